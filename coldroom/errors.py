@@ -1,0 +1,112 @@
+"""One exception family for everything coldroom reports to a user.
+
+The CLI catches :class:`ColdroomError` once and maps each subclass to an exit
+code; library callers may catch the specific subclass.
+"""
+
+from __future__ import annotations
+
+
+class ColdroomError(ValueError):
+    """Base class of every error coldroom raises on purpose.
+
+    Parameters
+    ----------
+    message : str
+        One line, naming the quantity, the value and the valid range.
+    """
+
+    exit_code = 1
+
+
+class ProjectFileError(ColdroomError):
+    """The project file is unreadable, malformed or physically impossible.
+
+    Carries the file name, line, column and dotted key so the CLI can print
+    ``file:line:col: dotted.key: message``.
+    """
+
+    exit_code = 65
+
+    def __init__(
+        self,
+        message: str,
+        *,
+        file: str | None = None,
+        line: int | None = None,
+        column: int | None = None,
+        key: str | None = None,
+    ) -> None:
+        self.message = message
+        self.file = file
+        self.line = line
+        self.column = column
+        self.key = key
+        super().__init__(self.format())
+
+    def format(self) -> str:
+        """Return the one-line ``file:line:col: key: message`` form."""
+        where = self.file or "<input>"
+        if self.line is not None:
+            where += f":{self.line}"
+            if self.column is not None:
+                where += f":{self.column}"
+        parts = [where]
+        if self.key:
+            parts.append(self.key)
+        parts.append(self.message)
+        return ": ".join(parts)
+
+
+class UnitError(ColdroomError):
+    """A quantity string has an unknown unit or one of the wrong kind."""
+
+    exit_code = 65
+
+
+class LookupNameError(ColdroomError):
+    """An unknown name in a table (refrigerant, product, material, method).
+
+    The message lists the closest valid names.
+    """
+
+    exit_code = 65
+
+
+class CalculationError(ColdroomError):
+    """The calculation is impossible at these conditions (explained)."""
+
+    exit_code = 1
+
+
+class PropertyRangeError(CalculationError):
+    """A refrigerant state outside the range the property model supports."""
+
+
+class OutputError(ColdroomError):
+    """An output file cannot be written (exists without --force, is the input,
+    or the directory is not writable)."""
+
+    exit_code = 73
+
+
+def closest_names(name: str, valid: list[str] | tuple[str, ...], n: int = 5) -> list[str]:
+    """Return up to *n* valid names closest to *name* (case-insensitive).
+
+    Examples
+    --------
+    >>> closest_names("R448", ["R-448A", "R-449A", "R-134a"])[:2]
+    ['R-448A', 'R-449A']
+    """
+    import difflib
+
+    lowered = {v.lower(): v for v in valid}
+    hits = difflib.get_close_matches(name.lower(), list(lowered), n=n, cutoff=0.3)
+    return [lowered[h] for h in hits]
+
+
+def unknown_name(kind: str, name: str, valid: list[str] | tuple[str, ...]) -> LookupNameError:
+    """Build the standard "unknown X" error with the closest valid names."""
+    near = closest_names(name, valid)
+    hint = f"; closest: {', '.join(near)}" if near else ""
+    return LookupNameError(f"unknown {kind} {name!r}{hint} (see the full list with `coldroom` listing commands)")
