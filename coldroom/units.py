@@ -1,0 +1,498 @@
+"""Units at the edge: parse "100 mm", "35 °F", "2.5 kW", "3 TR" into SI; format SI for people.
+
+A small explicit table instead of a general units library: the trade's spellings
+("TR", "Btu/h", "35 F", "cfm") are read the way a contractor means them, and the
+import costs nothing.
+
+SI units used inside coldroom, per kind:
+
+==========================  ==========  ==========================================
+kind                        SI unit     notes
+==========================  ==========  ==========================================
+length                      m
+area                        m²
+volume                      m³
+temperature                 °C          an absolute temperature, stored in °C
+temperature_difference      K           a 9 °F difference is 5 K
+power                       W
+energy                      J
+mass                        kg
+time                        s
+pressure                    Pa          absolute
+conductivity                W/(m·K)
+u_value                     W/(m²·K)
+specific_heat               J/(kg·K)
+specific_energy             J/kg        latent heat, enthalpy
+power_per_area              W/m²
+density                     kg/m³
+volume_flow                 m³/s
+fraction                    1           "85 %" → 0.85
+==========================  ==========  ==========================================
+
+Conversion factors are exact by definition where a definition exists (inch,
+foot, pound, international-table Btu, ton of refrigeration = 12 000 Btu/h);
+sources are named beside each.
+
+Examples
+--------
+>>> parse_quantity("100 mm", "length")
+0.1
+>>> parse_quantity("35 °F", "temperature")
+1.6666666666666667
+>>> parse_quantity("9 °F", "temperature_difference")
+5.0
+>>> round(parse_quantity("3 TR", "power"), 3)
+10550.559
+>>> parse_quantity(4, "length", default_unit="in")
+0.1016
+"""
+
+from __future__ import annotations
+
+import math
+import re
+from dataclasses import dataclass
+
+from coldroom.errors import UnitError
+
+# --- exact or defined factors -----------------------------------------------
+INCH = 0.0254  # m, exact (international yard and pound agreement, 1959)
+FOOT = 0.3048  # m, exact (same)
+POUND = 0.45359237  # kg, exact (same)
+BTU = 1055.05585262  # J, International Table Btu (ISO 31-4 / NIST SP 811)
+BTU_PER_HOUR = BTU / 3600.0  # W, = 0.29307107... W
+TON_REFRIGERATION = 12000.0 * BTU_PER_HOUR  # W, 12 000 Btu/h by definition (NIST SP 811)
+HORSEPOWER = 745.69987158227022  # W, mechanical hp (NIST SP 811)
+PSI = 6894.757293168361  # Pa, lbf/in² (NIST SP 811)
+INCH_HG = 3386.389  # Pa, conventional inch of mercury at 0 °C (NIST SP 811)
+STANDARD_ATMOSPHERE = 101325.0  # Pa, exact
+CALORIE = 4.1868  # J, International Table calorie
+
+
+@dataclass(frozen=True)
+class Unit:
+    """One spelling of a unit: SI value = (value + zero_shift) × factor + offset."""
+
+    symbol: str
+    factor: float
+    offset: float = 0.0
+    zero_shift: float = 0.0
+
+    def to_si(self, value: float) -> float:
+        return (value + self.zero_shift) * self.factor + self.offset
+
+    def from_si(self, value_si: float) -> float:
+        return (value_si - self.offset) / self.factor - self.zero_shift
+
+
+def _u(symbol: str, factor: float, offset: float = 0.0, zero_shift: float = 0.0) -> Unit:
+    return Unit(symbol, factor, offset, zero_shift)
+
+# kind -> {normalised spelling: Unit}. The first spelling listed for each unit
+# is the one shown in error messages.
+_TABLE: dict[str, dict[str, Unit]] = {}
+_SHOWN: dict[str, list[str]] = {}
+
+
+def _add(kind: str, spellings: tuple[str, ...], unit: Unit) -> None:
+    table = _TABLE.setdefault(kind, {})
+    shown = _SHOWN.setdefault(kind, [])
+    shown.append(spellings[0])
+    for spelling in spellings:
+        table[_normalise(spelling)] = unit
+
+
+def _normalise(text: str) -> str:
+    """Canonical form of a unit spelling: lower case, no blanks or separators."""
+    t = text.strip()
+    t = t.replace("º", "°").replace("˚", "°")
+    t = t.replace("²", "2").replace("³", "3").replace("µ", "u")
+    t = t.lower()
+    t = re.sub(r"\bdeg(rees?)?\s*", "°", t)
+    t = t.replace("per", "/") if re.fullmatch(r"[a-z0-9°\s]+per[a-z0-9°\s]+", t) else t
+    t = re.sub(r"[\s·*.\-_()^]", "", t)
+    return t
+
+
+# length
+_add("length", ("m", "metre", "meter", "metres", "meters"), _u("m", 1.0))
+_add("length", ("mm", "millimetre", "millimeter", "millimetres", "millimeters"), _u("mm", 1e-3))
+_add("length", ("cm", "centimetre", "centimeter", "centimetres", "centimeters"), _u("cm", 1e-2))
+_add("length", ("in", "inch", "inches", '"'), _u("in", INCH))
+_add("length", ("ft", "foot", "feet", "'"), _u("ft", FOOT))
+# area
+_add("area", ("m²", "m2", "sqm", "sq m"), _u("m²", 1.0))
+_add("area", ("ft²", "ft2", "sqft", "sq ft", "square feet"), _u("ft²", FOOT**2))
+# volume
+_add("volume", ("m³", "m3", "cubic metres", "cubic meters"), _u("m³", 1.0))
+_add("volume", ("L", "l", "litre", "liter", "litres", "liters"), _u("L", 1e-3))
+_add("volume", ("ft³", "ft3", "cuft", "cu ft", "cubic feet"), _u("ft³", FOOT**3))
+# absolute temperature (stored in °C)
+_add("temperature", ("°C", "C", "celsius"), _u("°C", 1.0))
+_add("temperature", ("°F", "F", "fahrenheit"), _u("°F", 5.0 / 9.0, 0.0, -32.0))
+_add("temperature", ("K", "kelvin"), _u("K", 1.0, -273.15))
+# temperature difference (K)
+_add("temperature_difference", ("K", "kelvin", "delta_K"), _u("K", 1.0))
+_add("temperature_difference", ("°C", "C", "delta_C"), _u("°C", 1.0))
+_add("temperature_difference", ("°F", "F", "R", "°R", "delta_F"), _u("°F", 5.0 / 9.0))
+# power
+_add("power", ("W", "watt", "watts"), _u("W", 1.0))
+_add("power", ("kW", "kilowatt", "kilowatts"), _u("kW", 1e3))
+_add("power", ("MW",), _u("MW", 1e6))
+_add("power", ("Btu/h", "btu/hr", "btuh", "btu/hour"), _u("Btu/h", BTU_PER_HOUR))
+_add("power", ("MBH", "kBtu/h", "mbtuh"), _u("MBH", 1000.0 * BTU_PER_HOUR))
+_add("power", ("TR", "ton", "tons", "RT", "ton of refrigeration"), _u("TR", TON_REFRIGERATION))
+_add("power", ("hp", "horsepower"), _u("hp", HORSEPOWER))
+# energy
+_add("energy", ("J", "joule", "joules"), _u("J", 1.0))
+_add("energy", ("kJ",), _u("kJ", 1e3))
+_add("energy", ("MJ",), _u("MJ", 1e6))
+_add("energy", ("Wh",), _u("Wh", 3600.0))
+_add("energy", ("kWh",), _u("kWh", 3.6e6))
+_add("energy", ("Btu", "btus"), _u("Btu", BTU))
+# mass
+_add("mass", ("kg", "kilogram", "kilograms", "kgs"), _u("kg", 1.0))
+_add("mass", ("g", "gram", "grams"), _u("g", 1e-3))
+_add("mass", ("t", "tonne", "tonnes", "metric ton"), _u("t", 1e3))
+_add("mass", ("lb", "lbs", "pound", "pounds", "lbm"), _u("lb", POUND))
+# time
+_add("time", ("s", "sec", "second", "seconds"), _u("s", 1.0))
+_add("time", ("min", "mins", "minute", "minutes"), _u("min", 60.0))
+_add("time", ("h", "hr", "hrs", "hour", "hours"), _u("h", 3600.0))
+_add("time", ("d", "day", "days"), _u("d", 86400.0))
+# pressure (absolute)
+_add("pressure", ("Pa", "pascal"), _u("Pa", 1.0))
+_add("pressure", ("hPa", "mbar"), _u("hPa", 100.0))
+_add("pressure", ("kPa",), _u("kPa", 1e3))
+_add("pressure", ("MPa",), _u("MPa", 1e6))
+_add("pressure", ("bar", "bara", "bar(a)"), _u("bar", 1e5))
+_add("pressure", ("psi", "psia", "lbf/in2"), _u("psia", PSI))
+_add("pressure", ("inHg", "in hg"), _u("inHg", INCH_HG))
+_add("pressure", ("atm",), _u("atm", STANDARD_ATMOSPHERE))
+# conductivity
+_add("conductivity", ("W/(m·K)", "W/mK", "W/m/K", "W/(mK)"), _u("W/(m·K)", 1.0))
+_add("conductivity", ("mW/(m·K)", "mW/mK"), _u("mW/(m·K)", 1e-3))
+_add(
+    "conductivity",
+    ("Btu·in/(h·ft²·°F)", "Btu in/h ft2 F", "btuin/hft2f", "btuin/hft2°f", "Btu·in/h·ft²·°F"),
+    _u("Btu·in/(h·ft²·°F)", BTU_PER_HOUR * INCH / (FOOT**2 * 5.0 / 9.0)),
+)
+_add(
+    "conductivity",
+    ("Btu/(h·ft·°F)", "btu/hft°f", "btu/hftf"),
+    _u("Btu/(h·ft·°F)", BTU_PER_HOUR / (FOOT * 5.0 / 9.0)),
+)
+# U-value
+_add("u_value", ("W/(m²·K)", "W/m2K", "W/m2/K", "W/(m2K)"), _u("W/(m²·K)", 1.0))
+_add(
+    "u_value",
+    ("Btu/(h·ft²·°F)", "btu/hft2f", "btu/hft2°f", "Btu/h ft2 F"),
+    _u("Btu/(h·ft²·°F)", BTU_PER_HOUR / (FOOT**2 * 5.0 / 9.0)),
+)
+# specific heat
+_add("specific_heat", ("kJ/(kg·K)", "kJ/kgK", "kJ/kg/K", "kJ/kg°C", "kJ/(kgK)"), _u("kJ/(kg·K)", 1e3))
+_add("specific_heat", ("J/(kg·K)", "J/kgK", "J/kg/K"), _u("J/(kg·K)", 1.0))
+_add(
+    "specific_heat",
+    ("Btu/(lb·°F)", "btu/lb°f", "btu/lbf", "Btu/lb F"),
+    _u("Btu/(lb·°F)", BTU / (POUND * 5.0 / 9.0)),
+)
+# specific energy (latent heat, enthalpy)
+_add("specific_energy", ("kJ/kg",), _u("kJ/kg", 1e3))
+_add("specific_energy", ("J/kg",), _u("J/kg", 1.0))
+_add("specific_energy", ("Btu/lb", "btu/lbm"), _u("Btu/lb", BTU / POUND))
+# power per area (lighting)
+_add("power_per_area", ("W/m²", "W/m2"), _u("W/m²", 1.0))
+_add("power_per_area", ("W/ft²", "W/ft2", "W/sqft"), _u("W/ft²", 1.0 / FOOT**2))
+# density
+_add("density", ("kg/m³", "kg/m3"), _u("kg/m³", 1.0))
+_add("density", ("lb/ft³", "lb/ft3", "pcf"), _u("lb/ft³", POUND / FOOT**3))
+# volume flow
+_add("volume_flow", ("m³/s", "m3/s"), _u("m³/s", 1.0))
+_add("volume_flow", ("m³/h", "m3/h", "cmh"), _u("m³/h", 1.0 / 3600.0))
+_add("volume_flow", ("L/s", "l/s"), _u("L/s", 1e-3))
+_add("volume_flow", ("cfm", "ft³/min", "ft3/min"), _u("cfm", FOOT**3 / 60.0))
+# fraction
+_add("fraction", ("%", "percent", "pct"), _u("%", 0.01))
+_add("fraction", ("-", "1", "fraction"), _u("-", 1.0))
+
+KINDS: tuple[str, ...] = tuple(_TABLE)
+
+# Bare numbers: the unit each kind means by default in each unit system, unless
+# a field declares its own (insulation thickness in mm or in, say).
+DEFAULT_UNITS: dict[str, dict[str, str]] = {
+    "SI": {
+        "length": "m",
+        "area": "m²",
+        "volume": "m³",
+        "temperature": "°C",
+        "temperature_difference": "K",
+        "power": "W",
+        "energy": "kWh",
+        "mass": "kg",
+        "time": "h",
+        "pressure": "kPa",
+        "conductivity": "W/(m·K)",
+        "u_value": "W/(m²·K)",
+        "specific_heat": "kJ/(kg·K)",
+        "specific_energy": "kJ/kg",
+        "power_per_area": "W/m²",
+        "density": "kg/m³",
+        "volume_flow": "m³/h",
+        "fraction": "-",
+    },
+    "IP": {
+        "length": "ft",
+        "area": "ft²",
+        "volume": "ft³",
+        "temperature": "°F",
+        "temperature_difference": "°F",
+        "power": "Btu/h",
+        "energy": "Btu",
+        "mass": "lb",
+        "time": "h",
+        "pressure": "psia",
+        "conductivity": "Btu·in/(h·ft²·°F)",
+        "u_value": "Btu/(h·ft²·°F)",
+        "specific_heat": "Btu/(lb·°F)",
+        "specific_energy": "Btu/lb",
+        "power_per_area": "W/ft²",
+        "density": "lb/ft³",
+        "volume_flow": "cfm",
+        "fraction": "-",
+    },
+}
+
+_NUMBER = r"[-+]?(?:\d+(?:[.,]\d*)?|[.,]\d+)(?:[eE][-+]?\d+)?"
+_QUANTITY = re.compile(rf"^\s*(?P<number>{_NUMBER})\s*(?P<unit>.*?)\s*$")
+
+
+def accepted_units(kind: str) -> list[str]:
+    """The unit spellings shown to users for *kind*.
+
+    Examples
+    --------
+    >>> accepted_units("temperature")
+    ['°C', '°F', 'K']
+    """
+    _check_kind(kind)
+    return list(_SHOWN[kind])
+
+
+def _check_kind(kind: str) -> None:
+    if kind not in _TABLE:
+        raise ValueError(f"unknown quantity kind {kind!r}; kinds: {', '.join(KINDS)}")
+
+
+def unit_for(kind: str, spelling: str) -> Unit:
+    """Look up *spelling* among the units of *kind*; UnitError lists the valid ones."""
+    _check_kind(kind)
+    key = _normalise(spelling)
+    unit = _TABLE[kind].get(key)
+    if unit is not None:
+        return unit
+    other = [k for k, table in _TABLE.items() if key in table and k != kind]
+    shown = ", ".join(_SHOWN[kind])
+    label = kind.replace("_", " ")
+    if other:
+        raise UnitError(
+            f"{spelling!r} is a unit of {other[0].replace('_', ' ')}, not of {label}; use one of: {shown}"
+        )
+    raise UnitError(f"unknown unit {spelling!r} for {label}; use one of: {shown}")
+
+
+def parse_quantity(
+    value: object,
+    kind: str,
+    default_unit: str | None = None,
+    system: str = "SI",
+) -> float:
+    """Convert a bare number or a "number unit" string to SI.
+
+    Parameters
+    ----------
+    value : float | int | str
+        ``12.5``, ``"100 mm"``, ``"35 °F"``, ``"2.5 kW"``, ``"85 %"``.
+    kind : str
+        One of :data:`KINDS`.
+    default_unit : str, optional
+        Unit of a bare number; when omitted, the default of *kind* in *system*.
+    system : {"SI", "IP"}
+        Unit system of the project, used for bare numbers.
+
+    Returns
+    -------
+    float
+        The value in the SI unit of *kind* (°C for temperatures).
+
+    Raises
+    ------
+    UnitError
+        Unknown unit, a unit of another kind, not a number, or not finite.
+
+    Examples
+    --------
+    >>> parse_quantity("12000 Btu/h", "power")  # doctest: +ELLIPSIS
+    3516.85...
+    >>> parse_quantity("85 %", "fraction")
+    0.85
+    >>> parse_quantity(50, "temperature", system="IP")
+    10.0
+    """
+    _check_kind(kind)
+    if isinstance(value, bool):
+        raise UnitError(f"expected a number or a quantity such as '{_example(kind)}', got {value!r}")
+    if isinstance(value, (int, float)):
+        number = float(value)
+        spelling = default_unit or DEFAULT_UNITS[system][kind]
+    elif isinstance(value, str):
+        match = _QUANTITY.match(value)
+        if not match:
+            raise UnitError(
+                f"cannot read {value!r} as a {kind.replace('_', ' ')}; write a number and a unit, e.g. '{_example(kind)}'"
+            )
+        number = float(match.group("number").replace(",", "."))
+        spelling = match.group("unit") or default_unit or DEFAULT_UNITS[system][kind]
+    else:
+        raise UnitError(f"expected a number or a quantity such as '{_example(kind)}', got {type(value).__name__}")
+    if not math.isfinite(number):
+        raise UnitError(f"{value!r} is not a finite number")
+    unit = unit_for(kind, spelling)
+    result = unit.to_si(number)
+    if kind == "temperature" and result < -273.15:
+        raise UnitError(f"{value!r} is below absolute zero")
+    return result
+
+
+def _example(kind: str) -> str:
+    examples = {
+        "length": "2.4 m",
+        "area": "12 m²",
+        "volume": "30 m³",
+        "temperature": "2 °C",
+        "temperature_difference": "6 K",
+        "power": "2.5 kW",
+        "energy": "12 kWh",
+        "mass": "500 kg",
+        "time": "8 h",
+        "pressure": "101.3 kPa",
+        "conductivity": "0.023 W/(m·K)",
+        "u_value": "0.25 W/(m²·K)",
+        "specific_heat": "3.6 kJ/(kg·K)",
+        "specific_energy": "250 kJ/kg",
+        "power_per_area": "6 W/m²",
+        "density": "1.2 kg/m³",
+        "volume_flow": "500 m³/h",
+        "fraction": "85 %",
+    }
+    return examples.get(kind, "1")
+
+
+def to_unit(value_si: float, kind: str, unit: str) -> float:
+    """Convert an SI value of *kind* into *unit*.
+
+    Examples
+    --------
+    >>> round(to_unit(3516.8528, "power", "TR"), 6)
+    1.0
+    >>> to_unit(0.0, "temperature", "°F")
+    32.0
+    """
+    return unit_for(kind, unit).from_si(value_si)
+
+
+# Display units per system: (kind) -> unit symbol used on the sheet and terminal.
+DISPLAY_UNITS: dict[str, dict[str, str]] = {
+    "SI": {
+        "length": "m",
+        "thickness": "mm",
+        "area": "m²",
+        "volume": "m³",
+        "temperature": "°C",
+        "temperature_difference": "K",
+        "power": "W",
+        "power_large": "kW",
+        "energy": "kWh",
+        "mass": "kg",
+        "pressure": "kPa",
+        "conductivity": "W/(m·K)",
+        "u_value": "W/(m²·K)",
+        "specific_heat": "kJ/(kg·K)",
+        "specific_energy": "kJ/kg",
+        "power_per_area": "W/m²",
+        "density": "kg/m³",
+        "volume_flow": "m³/h",
+        "mass_flow": "kg/s",
+    },
+    "IP": {
+        "length": "ft",
+        "thickness": "in",
+        "area": "ft²",
+        "volume": "ft³",
+        "temperature": "°F",
+        "temperature_difference": "°F",
+        "power": "Btu/h",
+        "power_large": "TR",
+        "energy": "Btu",
+        "mass": "lb",
+        "pressure": "psia",
+        "conductivity": "Btu·in/(h·ft²·°F)",
+        "u_value": "Btu/(h·ft²·°F)",
+        "specific_heat": "Btu/(lb·°F)",
+        "specific_energy": "Btu/lb",
+        "power_per_area": "W/ft²",
+        "density": "lb/ft³",
+        "volume_flow": "cfm",
+        "mass_flow": "lb/h",
+    },
+}
+
+_DISPLAY_KIND = {"thickness": "length", "power_large": "power", "mass_flow": "mass_flow"}
+
+
+def display(value_si: float, kind: str, system: str = "SI", digits: int | None = None) -> str:
+    """Format an SI value for people in the project's unit system, unit included.
+
+    *kind* may also be ``"thickness"`` (mm / in), ``"power_large"`` (kW / TR)
+    or ``"mass_flow"`` (kg/s / lb/h).
+
+    Examples
+    --------
+    >>> display(2.0, "temperature", "IP")
+    '35.6 °F'
+    >>> display(7033.7, "power_large", "IP")
+    '2.00 TR'
+    >>> display(0.1, "thickness")
+    '100 mm'
+    """
+    unit = DISPLAY_UNITS[system][kind]
+    base = _DISPLAY_KIND.get(kind, kind)
+    if base == "mass_flow":
+        value = value_si if unit == "kg/s" else value_si * 3600.0 / POUND
+    else:
+        value = to_unit(value_si, base, unit)
+    return f"{format_number(value, digits)} {unit}"
+
+
+def format_number(value: float, digits: int | None = None) -> str:
+    """Round for reading: about three significant figures, thousands separated.
+
+    Examples
+    --------
+    >>> format_number(12345.6)
+    '12,346'
+    >>> format_number(0.01234)
+    '0.0123'
+    >>> format_number(3.14159, 2)
+    '3.14'
+    """
+    if digits is not None:
+        return f"{value:,.{digits}f}"
+    magnitude = abs(value)
+    if magnitude >= 100 or value == 0:
+        return f"{value:,.0f}"
+    if magnitude >= 10:
+        return f"{value:,.1f}"
+    if magnitude >= 1:
+        return f"{value:,.2f}"
+    return f"{value:.3g}"
