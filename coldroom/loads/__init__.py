@@ -1,0 +1,1 @@
+"""Heat-load components of a refrigerated room (pure functions, SI)."""
