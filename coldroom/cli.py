@@ -30,9 +30,10 @@ app = typer.Typer(
 
 def fail(error: ColdroomError) -> "typer.Exit":
     """Print *error* as one line on stderr and return the Exit to raise."""
-    text = error.format() if hasattr(error, "format") else str(error)
-    text = " ".join(str(text).split())  # guarantee a single line
-    print(f"coldroom: error: {text}" if ":" not in text.split(" ")[0] else text, file=sys.stderr)
+    from coldroom.errors import ProjectFileError
+
+    text = error.format() if isinstance(error, ProjectFileError) else f"coldroom: {error}"
+    print(" ".join(text.split()), file=sys.stderr)  # always exactly one line
     return typer.Exit(code=getattr(error, "exit_code", 1))
 
 
@@ -64,9 +65,77 @@ def _root(
 # inside the command body.
 
 
+@app.command("validate")
+def validate_command(
+    project: str = typer.Argument(..., help="Project file (YAML)."),
+) -> None:
+    """Check a project file: syntax, keys, units, ranges and physical sense."""
+
+    def run() -> None:
+        from coldroom.checks import project_warnings
+        from coldroom.projectfile import load_project
+
+        model = load_project(project)
+        rooms = ", ".join(room.name for room in model.rooms)
+        print(f"{project}: valid ({len(model.rooms)} room{'s' if len(model.rooms) != 1 else ''}: {rooms})")
+        for key, message in project_warnings(model):
+            print(f"{project}: warning: {key}: {message}", file=sys.stderr)
+
+    guarded(run)
+
+
+@app.command("schema")
+def schema_command() -> None:
+    """Print the JSON Schema of the project file (for editors that complete and check YAML)."""
+    import json
+
+    from coldroom.projectfile import json_schema
+
+    print(json.dumps(json_schema(), indent=2, ensure_ascii=False))
+
+
+@app.command("new")
+def new_command(
+    file: str = typer.Argument(..., help="Where to write the starter project file."),
+    force: bool = typer.Option(False, "--force", help="Overwrite an existing file."),
+) -> None:
+    """Write a commented starter project file to edit."""
+
+    def run() -> None:
+        from importlib.resources import files
+
+        from coldroom.output import write_atomic
+
+        text = files("coldroom.data").joinpath("starter.yaml").read_text(encoding="utf-8")
+        write_atomic(file, text, force=force)
+        print(f"wrote {file}; edit it, then run: coldroom validate {file}")
+
+    guarded(run)
+
+
 def main() -> None:
-    """Console-script entry point."""
-    app()
+    """Console-script entry point.
+
+    A ColdroomError is reported by the commands themselves. Anything else is a
+    bug in coldroom: it is reported on one line with exit code 70 (set
+    COLDROOM_DEBUG=1 to see the traceback).
+    """
+    import os
+
+    try:
+        app()
+    except SystemExit:
+        raise
+    except KeyboardInterrupt:
+        print("coldroom: interrupted; no output was written", file=sys.stderr)
+        raise SystemExit(130) from None
+    except ColdroomError as error:  # raised outside a guarded block
+        raise SystemExit(fail(error).exit_code) from None
+    except Exception as error:  # pragma: no cover - defensive
+        if os.environ.get("COLDROOM_DEBUG"):
+            raise
+        print(f"coldroom: internal error ({type(error).__name__}: {error}); please report it", file=sys.stderr)
+        raise SystemExit(70) from None
 
 
 if __name__ == "__main__":  # pragma: no cover

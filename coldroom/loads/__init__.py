@@ -1,1 +1,231 @@
-"""Heat-load components of a refrigerated room (pure functions, SI)."""
+"""Heat-load components of a refrigerated room, and the room's 24-hour total.
+
+The sub-modules are pure physics on plain floats (SI):
+:mod:`~coldroom.loads.transmission`, :mod:`~coldroom.loads.infiltration`,
+:mod:`~coldroom.loads.product`, :mod:`~coldroom.loads.internal`,
+:mod:`~coldroom.loads.totals`. This module maps one validated room of a
+project (:class:`coldroom.projectfile.Room`) onto them and collects the lines
+into a :class:`coldroom.results.RoomLoads`.
+
+The components follow ASHRAE Handbook—Refrigeration, chapter
+"Refrigerated-Facility Loads": transmission, product, infiltration, internal
+(people, lighting, forklifts and other equipment in the room) and equipment
+(evaporator fans, heaters, defrost).
+"""
+
+from __future__ import annotations
+
+from typing import TYPE_CHECKING, Callable
+
+from coldroom.results import LoadLine, RoomLoads
+
+if TYPE_CHECKING:  # pragma: no cover
+    from coldroom.projectfile import Construction, DesignConditions, ProjectModel, Room, Surface
+
+DAY = 86400.0  # s
+
+#: Film coefficients used for constructions built from layers [W/(m²·K)]:
+#: still air inside and against another space, 24 km/h wind outdoors, none
+#: against ground or a heated plane (ASHRAE-derived SI tables [pub]).
+INSIDE_FILM = "still_air"
+OUTSIDE_FILMS = {"outdoors": "wind_24kmh", "space": "still_air", "roof_void": "still_air"}
+
+
+def construction_u(construction: "Construction", facing: str) -> float:
+    """U-value of a construction as built against *facing* [W/(m²·K)].
+
+    An explicit ``u_value`` is taken as given (films included); layers get the
+    inside still-air film and the outside film for what they face.
+    """
+    from coldroom.data import materials
+    from coldroom.loads.transmission import u_value
+
+    if construction.u_value is not None:
+        return construction.u_value
+    layers = [
+        (
+            layer.thickness,
+            layer.conductivity if layer.conductivity is not None else materials.material(layer.material).conductivity,  # type: ignore[arg-type]
+        )
+        for layer in construction.layers or []
+    ]
+    outside = OUTSIDE_FILMS.get(facing)
+    return u_value(
+        layers,
+        materials.film_coefficient(INSIDE_FILM),
+        materials.film_coefficient(outside) if outside else None,
+    )
+
+
+def outdoor_relative_humidity(design: "DesignConditions") -> float:
+    """Outdoor design relative humidity [-] (from the wet bulb when given that way)."""
+    from coldroom import psychrometrics
+
+    if design.outdoor_rh is not None:
+        return design.outdoor_rh
+    assert design.outdoor_wet_bulb is not None
+    return psychrometrics.relative_humidity_from_wet_bulb(
+        design.outdoor_temperature, design.outdoor_wet_bulb, site_pressure(design)
+    )
+
+
+def site_pressure(design: "DesignConditions") -> float:
+    """Barometric pressure at the site [Pa]: given, or the standard atmosphere at the altitude."""
+    from coldroom import psychrometrics
+
+    if design.barometric_pressure is not None:
+        return design.barometric_pressure
+    return psychrometrics.standard_pressure(design.altitude or 0.0)
+
+
+def transmission_lines(model: "ProjectModel", room: "Room") -> list[LoadLine]:
+    """One line per side of the room: q = U·A·(t_o + Δt_sun − t_r)."""
+    from coldroom.loads import transmission
+
+    design = model.design
+    lines: list[LoadLine] = []
+    for side in ("north", "east", "south", "west", "ceiling", "floor"):
+        surface = room.envelope.side(side)
+        construction = model.construction(surface.construction)
+        u = construction_u(construction, surface.facing)
+        area = room.surface_area(side)
+        sun = 0.0
+        if surface.facing == "outdoors":
+            outside = design.outdoor_temperature
+            if surface.colour is not None and side != "floor":
+                orientation = "roof" if side == "ceiling" else side
+                sun = transmission.sun_allowance(orientation, surface.colour, design.hemisphere)
+            q = transmission.surface_heat_gain(area, u, outside, room.temperature, sun)
+            beyond = "outdoors"
+        elif surface.facing == "ground":
+            outside = design.ground_temperature
+            q = transmission.floor_on_grade_heat_gain(area, u, outside, room.temperature)
+            beyond = "ground"
+        elif surface.facing == "heated_slab":
+            assert surface.temperature is not None
+            outside = surface.temperature
+            q = transmission.heated_slab_floor_heat_gain(area, u, outside, room.temperature)
+            beyond = "heated plane"
+        else:
+            assert surface.temperature is not None
+            outside = surface.temperature
+            q = transmission.surface_heat_gain(area, u, outside, room.temperature)
+            beyond = "roof void" if surface.facing == "roof_void" else "adjacent space"
+        dt = outside + sun - room.temperature
+        sun_text = f" incl. sun {sun:.1f} K" if sun else ""
+        lines.append(
+            LoadLine(
+                "transmission",
+                f"{side} ({beyond})",
+                q * DAY,
+                f"U {u:.3f} W/(m²·K) × {area:.2f} m² × {dt:.1f} K{sun_text}",
+            )
+        )
+    return lines
+
+
+def infiltration_lines(model: "ProjectModel", room: "Room") -> list[LoadLine]:
+    """Infiltration by the room's method: per door (Gosney & Olama), or by air changes."""
+    from coldroom.loads import infiltration
+
+    design = model.design
+    pressure = site_pressure(design)
+    rh_out = outdoor_relative_humidity(design)
+    if room.infiltration.method == "air_changes":
+        result = infiltration.air_change_infiltration(
+            room_volume=room.inside_volume,
+            room_temperature=room.temperature,
+            room_relative_humidity=room.rh,
+            outside_temperature=design.outdoor_temperature,
+            outside_relative_humidity=rh_out,
+            usage=room.infiltration.usage,
+            air_changes_per_day=room.infiltration.air_changes_per_day,
+            pressure=pressure,
+        )
+        return [
+            LoadLine(
+                "infiltration",
+                "air changes",
+                result.daily_energy,
+                f"{result.air_changes_per_day:.2f} changes/day × {room.inside_volume:.1f} m³ "
+                f"× {result.heat_per_volume / 1e3:.1f} kJ/m³",
+            )
+        ]
+    lines = []
+    for door in room.doors:
+        result = infiltration.door_infiltration(
+            door_width=door.width,
+            door_height=door.height,
+            room_temperature=room.temperature,
+            room_relative_humidity=room.rh,
+            outside_temperature=design.outdoor_temperature,
+            outside_relative_humidity=rh_out,
+            passages_per_day=door.passages_per_day,
+            passage_time=door.passage_time,
+            standing_open_time=door.open_time,
+            protection=door.protection,
+            effectiveness=door.effectiveness,
+            pressure=pressure,
+        )
+        lines.append(
+            LoadLine(
+                "infiltration",
+                f"door: {door.name}",
+                result.daily_energy,
+                f"{result.full_open_power / 1e3:.2f} kW open × Dt {result.open_time_factor:.3f} "
+                f"× Df {result.flow_factor:.2f} × (1 − E {result.effectiveness:.2f})",
+            )
+        )
+    return lines
+
+
+def _run_time(room: "Room") -> tuple[float, str]:
+    from coldroom.loads import totals
+
+    if room.run_hours is not None:
+        return room.run_hours, "given"
+    hours = totals.default_run_hours(room.defrost.type)
+    return hours * 3600.0, f"default for {room.defrost.type.replace('_', '-')} defrost"
+
+
+LineSource = Callable[["ProjectModel", "Room"], list[LoadLine]]
+
+
+def room_loads(model: "ProjectModel", room: "Room") -> RoomLoads:
+    """The 24-hour heat load of *room* in *model*.
+
+    Returns
+    -------
+    RoomLoads
+        Every line, the safety factor, run time and the peak-hour load [W].
+    """
+    from coldroom.loads.internal_glue import internal_lines, peak_extra
+    from coldroom.loads.product_glue import product_lines, product_peak
+
+    lines: list[LoadLine] = []
+    lines += transmission_lines(model, room)
+    lines += product_lines(model, room)
+    lines += infiltration_lines(model, room)
+    lines += internal_lines(model, room)
+    run_time, basis = _run_time(room)
+    steady = sum(
+        line.daily_energy for line in lines if line.component in ("transmission", "infiltration")
+    ) / DAY
+    peak = steady + product_peak(model, room) + peak_extra(model, room)
+    warnings: list[str] = []
+    return RoomLoads(
+        name=room.name,
+        lines=tuple(lines),
+        safety_factor=room.safety_factor,
+        run_time=run_time,
+        run_time_basis=basis,
+        peak_load=peak,
+        volume=room.inside_volume,
+        floor_area=room.floor_area,
+        warnings=tuple(warnings),
+    )
+
+
+def project_loads(model: "ProjectModel") -> tuple[RoomLoads, ...]:
+    """:func:`room_loads` for every room, in file order."""
+    return tuple(room_loads(model, room) for room in model.rooms)

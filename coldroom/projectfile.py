@@ -1,0 +1,673 @@
+"""The project file: safe YAML → pydantic models → a typed project in SI.
+
+This is the only module that reads YAML (through :mod:`coldroom.safeyaml`).
+Every quantity in the file accepts a bare number in the project's unit system
+(``project.units: SI`` or ``IP``) or a string with a unit (``"100 mm"``,
+``"35 °F"``, ``"2.5 kW"``); after validation every field holds a plain float in
+SI (temperatures in °C, durations in s unless the field says otherwise).
+
+Errors are raised as :class:`coldroom.errors.ProjectFileError` carrying the
+file, line, column and dotted key, printed by the CLI as
+``file:line:col: dotted.key: message``.
+
+Layout of a project file (all keys are ours; see ``coldroom new``)::
+
+    project:      name, client, site, prepared_by, date, units
+    design:       outdoor_temperature, outdoor_rh | outdoor_wet_bulb,
+                  ground_temperature, altitude | barometric_pressure, hemisphere
+    constructions: {name: {layers: [...]} | {u_value: ...}}
+    rooms:        [room, ...]
+
+Examples
+--------
+>>> p = parse_project_text('''
+... project: {name: Demo, units: SI}
+... design: {outdoor_temperature: 30, outdoor_rh: 50 %, ground_temperature: 12}
+... constructions:
+...   panel: {layers: [{material: pur_panel, thickness: 100 mm}]}
+... rooms:
+...   - name: Cooler
+...     temperature: 2
+...     rh: 85 %
+...     dimensions: {length: 4, width: 3, height: 2.6}
+...     envelope:
+...       walls: {construction: panel, facing: space, temperature: 20}
+...       ceiling: {construction: panel, facing: space, temperature: 25}
+...       floor: {construction: panel, facing: ground}
+... ''')
+>>> p.rooms[0].envelope.floor.facing
+'ground'
+>>> round(p.rooms[0].surface_area("north"), 2)
+10.4
+"""
+
+from __future__ import annotations
+
+import datetime as _dt
+import os
+from contextvars import ContextVar
+from functools import partial
+from pathlib import Path
+from typing import Annotated, Any, Literal, Optional, Union
+
+from pydantic import (
+    BaseModel,
+    BeforeValidator,
+    ConfigDict,
+    Field,
+    ValidationError,
+    ValidationInfo,
+    field_validator,
+    model_validator,
+)
+from pydantic_core import PydanticCustomError
+
+from coldroom import units as _units
+from coldroom.errors import ColdroomError, ProjectFileError, UnitError
+
+# The unit system used for bare numbers while a file is being validated.
+_SYSTEM: ContextVar[str] = ContextVar("coldroom_unit_system", default="SI")
+
+SIDES = ("north", "east", "south", "west", "ceiling", "floor")
+WALLS = ("north", "east", "south", "west")
+
+
+# --- quantity fields ---------------------------------------------------------
+
+
+def _parse(
+    value: Any,
+    info: ValidationInfo | None = None,
+    *,
+    kind: str,
+    si_unit: str | None,
+    ip_unit: str | None,
+    ge: float | None,
+    le: float | None,
+    gt: float | None,
+) -> float:
+    system = _SYSTEM.get()
+    if info is not None and info.context and "system" in info.context:
+        system = info.context["system"]
+    default = si_unit if system == "SI" else ip_unit
+    try:
+        number = _units.parse_quantity(value, kind, default_unit=default, system=system)
+    except UnitError as exc:
+        raise PydanticCustomError("coldroom_unit", str(exc)) from None
+    low_ok = (ge is None or number >= ge) and (gt is None or number > gt)
+    high_ok = le is None or number <= le
+    if not (low_ok and high_ok):
+        raise PydanticCustomError(
+            "coldroom_range",
+            "{value} is outside the valid range {range}",
+            {"value": _shown(value, kind, default, system), "range": _range_text(kind, ge, gt, le, default, system)},
+        )
+    return number
+
+
+def _shown(value: Any, kind: str, default: str | None, system: str) -> str:
+    if isinstance(value, str):
+        return repr(value)
+    unit = default or _units.DEFAULT_UNITS[system][kind]
+    return f"{value} {unit}" if kind != "fraction" else f"{value}"
+
+
+def _range_text(
+    kind: str, ge: float | None, gt: float | None, le: float | None, default: str | None, system: str
+) -> str:
+    unit = default or _units.DEFAULT_UNITS[system][kind]
+    if kind == "fraction":
+        unit = "%"
+
+    def fmt(x: float) -> str:
+        v = _units.to_unit(x, kind, unit)
+        return f"{v:.6g}"
+
+    low = ge if ge is not None else gt
+    if low is not None and le is not None:
+        op = "…" if ge is not None else " (exclusive) … "
+        return f"{fmt(low)}{op}{fmt(le)} {unit}"
+    if low is not None:
+        return f"{'≥' if ge is not None else '>'} {fmt(low)} {unit}"
+    return f"≤ {fmt(le)} {unit}"  # type: ignore[arg-type]
+
+
+def Q(
+    kind: str,
+    *,
+    si: str | None = None,
+    ip: str | None = None,
+    ge: float | None = None,
+    le: float | None = None,
+    gt: float | None = None,
+) -> Any:
+    """An annotated float field holding an SI value parsed from a quantity.
+
+    Parameters
+    ----------
+    kind : str
+        Quantity kind (see :mod:`coldroom.units`).
+    si, ip : str, optional
+        Unit of a bare number in SI and IP projects (default: the kind's).
+    ge, le, gt : float, optional
+        Bounds in SI (°C for temperatures).
+    """
+    validator = partial(_parse, kind=kind, si_unit=si, ip_unit=ip, ge=ge, le=le, gt=gt)
+
+    def run(value: Any, info: ValidationInfo) -> float:
+        return validator(value, info)
+
+    return Annotated[float, BeforeValidator(run, json_schema_input_type=Union[float, str])]
+
+
+Temperature = Q("temperature", ge=-60.0, le=70.0)
+RoomTemperature = Q("temperature", ge=-50.0, le=25.0)
+OutdoorTemperature = Q("temperature", ge=-40.0, le=55.0)
+Fraction = Q("fraction", ge=0.0, le=1.0)
+RelativeHumidity = Q("fraction", ge=0.0, le=1.0)
+HoursPerDay = Q("time", si="h", ip="h", ge=0.0, le=86400.0)
+Length = Q("length", gt=0.0, le=100.0)
+Thickness = Q("length", si="mm", ip="in", gt=0.0, le=1.0)
+Power = Q("power", ge=0.0, le=1e7)
+Mass = Q("mass", ge=0.0, le=1e7)
+
+
+class Strict(BaseModel):
+    """Base for every model: unknown keys forbidden, no NaN/inf, frozen."""
+
+    model_config = ConfigDict(extra="forbid", allow_inf_nan=False, frozen=True, str_strip_whitespace=True)
+
+
+# --- project header and design conditions --------------------------------------
+
+
+class ProjectInfo(Strict):
+    """Who and where: printed in the sheet's header."""
+
+    name: str = Field(min_length=1, max_length=200)
+    client: str = Field(default="", max_length=200)
+    site: str = Field(default="", max_length=200)
+    prepared_by: str = Field(default="", max_length=200)
+    date: Optional[str] = Field(
+        default=None,
+        description="ISO date YYYY-MM-DD printed on the sheet; when omitted, SOURCE_DATE_EPOCH or today.",
+    )
+    units: Literal["SI", "IP"] = "SI"
+    notes: str = Field(default="", max_length=2000)
+
+    @field_validator("date", mode="before")
+    @classmethod
+    def _date(cls, value: Any) -> Any:
+        if value is None:
+            return None
+        if isinstance(value, (_dt.date, _dt.datetime)):
+            return value.isoformat()[:10]
+        try:
+            return _dt.date.fromisoformat(str(value)).isoformat()
+        except ValueError:
+            raise PydanticCustomError(
+                "coldroom_date", "{value!r} is not a date; write YYYY-MM-DD", {"value": value}
+            ) from None
+
+
+class DesignConditions(Strict):
+    """Site design conditions.
+
+    Give the outdoor humidity as ``outdoor_rh`` or ``outdoor_wet_bulb`` (not
+    both), and the site's pressure as ``altitude`` or ``barometric_pressure``
+    (default: sea level, 101.325 kPa).
+    """
+
+    outdoor_temperature: OutdoorTemperature
+    outdoor_rh: Optional[RelativeHumidity] = None
+    outdoor_wet_bulb: Optional[OutdoorTemperature] = None
+    ground_temperature: Temperature = Field(
+        default=12.0, description="Annual mean ground temperature under slabs [°C] (10–15 °C typical [trade])."
+    )
+    altitude: Optional[Q("length", ge=-500.0, le=5000.0)] = None  # type: ignore[valid-type]
+    barometric_pressure: Optional[Q("pressure", ge=50e3, le=110e3)] = None  # type: ignore[valid-type]
+    hemisphere: Literal["north", "south"] = "north"
+
+    @model_validator(mode="after")
+    def _one_of(self) -> "DesignConditions":
+        if self.outdoor_rh is not None and self.outdoor_wet_bulb is not None:
+            raise ValueError("give outdoor_rh or outdoor_wet_bulb, not both")
+        if self.outdoor_rh is None and self.outdoor_wet_bulb is None:
+            raise ValueError("give the outdoor humidity as outdoor_rh or outdoor_wet_bulb")
+        if self.altitude is not None and self.barometric_pressure is not None:
+            raise ValueError("give altitude or barometric_pressure, not both")
+        return self
+
+
+# --- constructions --------------------------------------------------------------
+
+
+class Layer(Strict):
+    """One layer of a construction: a material from the table, or an explicit conductivity."""
+
+    material: Optional[str] = None
+    conductivity: Optional[Q("conductivity", gt=0.0, le=400.0)] = None  # type: ignore[valid-type]
+    thickness: Thickness
+
+    @model_validator(mode="after")
+    def _one_of(self) -> "Layer":
+        if (self.material is None) == (self.conductivity is None):
+            raise ValueError("give a layer either a material name or a conductivity (exactly one)")
+        if self.material is not None:
+            from coldroom.data import materials
+
+            materials.material(self.material)  # raises LookupNameError listing close names
+        return self
+
+
+class Construction(Strict):
+    """Wall, ceiling or floor build-up: insulation layers, or a known U-value."""
+
+    layers: Optional[list[Layer]] = Field(default=None, min_length=1, max_length=20)
+    u_value: Optional[Q("u_value", gt=0.0, le=10.0)] = None  # type: ignore[valid-type]
+    description: str = ""
+
+    @model_validator(mode="after")
+    def _one_of(self) -> "Construction":
+        if (self.layers is None) == (self.u_value is None):
+            raise ValueError("give a construction either layers or a u_value (exactly one)")
+        return self
+
+
+class Surface(Strict):
+    """One side of the room and what lies beyond it.
+
+    ``facing``: ``outdoors`` (sun allowance from ``colour`` and orientation),
+    ``space`` or ``roof_void`` (another space at ``temperature``), ``ground``
+    (the design ground temperature) or ``heated_slab`` (a freezer floor over a
+    heated plane held at ``temperature``; the heater's own power is not added).
+    """
+
+    construction: Union[str, Construction]
+    facing: Literal["outdoors", "space", "roof_void", "ground", "heated_slab"]
+    temperature: Optional[Temperature] = None
+    colour: Optional[Literal["light", "medium", "dark"]] = None
+    area: Optional[Q("area", gt=0.0, le=10000.0)] = None  # type: ignore[valid-type]
+
+    @model_validator(mode="after")
+    def _facing_needs(self) -> "Surface":
+        if self.facing in ("space", "roof_void", "heated_slab") and self.temperature is None:
+            raise ValueError(f"a surface facing {self.facing} needs the temperature on the other side")
+        if self.facing == "outdoors" and self.temperature is not None:
+            raise ValueError("a surface facing outdoors takes the design outdoor temperature; remove temperature")
+        if self.facing != "outdoors" and self.colour is not None:
+            raise ValueError("colour (for the sun allowance) applies only to surfaces facing outdoors")
+        return self
+
+
+class Envelope(Strict):
+    """The six sides of the room. ``walls`` sets all four walls; a named side overrides it."""
+
+    walls: Optional[Surface] = None
+    north: Optional[Surface] = None
+    east: Optional[Surface] = None
+    south: Optional[Surface] = None
+    west: Optional[Surface] = None
+    ceiling: Surface
+    floor: Surface
+
+    @model_validator(mode="after")
+    def _complete(self) -> "Envelope":
+        missing = [w for w in WALLS if getattr(self, w) is None and self.walls is None]
+        if missing:
+            raise ValueError(f"walls {', '.join(missing)} have no surface; give `walls` or each side")
+        if self.floor.facing == "outdoors" and self.floor.colour is not None:
+            raise ValueError("a floor gets no sun allowance; remove colour")
+        return self
+
+    def side(self, name: str) -> Surface:
+        """The surface of side *name* (``north`` … ``floor``)."""
+        own = getattr(self, name)
+        return own if own is not None else self.walls  # type: ignore[return-value]
+
+
+class Dimensions(Strict):
+    """Inside dimensions. North and south walls are length × height; east and west are width × height."""
+
+    length: Length
+    width: Length
+    height: Q("length", ge=1.5, le=30.0)  # type: ignore[valid-type]
+
+
+# --- doors and infiltration -------------------------------------------------------------
+
+
+class Door(Strict):
+    """A door and its traffic (Gosney & Olama door method)."""
+
+    name: str = "door"
+    wall: Optional[Literal["north", "east", "south", "west"]] = None
+    width: Q("length", ge=0.3, le=10.0)  # type: ignore[valid-type]
+    height: Q("length", ge=0.5, le=10.0)  # type: ignore[valid-type]
+    passages_per_day: float = Field(default=0.0, ge=0.0, le=20000.0)
+    passage_time: Q("time", si="s", ip="s", ge=0.0, le=600.0) = 15.0  # type: ignore[valid-type]
+    open_time: Q("time", si="min", ip="min", ge=0.0, le=86400.0) = 0.0  # type: ignore[valid-type]
+    protection: Literal["none", "strip_curtain", "air_curtain", "vestibule"] = "none"
+    effectiveness: Optional[Fraction] = None
+
+
+class Infiltration(Strict):
+    """How infiltration is counted: ``door`` (per door) or ``air_changes`` (by room volume)."""
+
+    method: Literal["door", "air_changes"] = "door"
+    usage: Literal["normal", "heavy", "long_storage"] = "normal"
+    air_changes_per_day: Optional[float] = Field(default=None, gt=0.0, le=500.0)
+
+
+# --- products -------------------------------------------------------------------------
+
+
+class ProductProperties(Strict):
+    """Explicit properties for a product not in the table.
+
+    Give ``water_content`` (Siebel's formulas), or the specific heats and latent heat.
+    """
+
+    water_content: Optional[Fraction] = None
+    specific_heat_above: Optional[Q("specific_heat", gt=0.0, le=10e3)] = None  # type: ignore[valid-type]
+    specific_heat_below: Optional[Q("specific_heat", gt=0.0, le=10e3)] = None  # type: ignore[valid-type]
+    latent_heat: Optional[Q("specific_energy", ge=0.0, le=400e3)] = None  # type: ignore[valid-type]
+    freezing_point: Temperature = -1.0
+
+    @model_validator(mode="after")
+    def _enough(self) -> "ProductProperties":
+        explicit = (self.specific_heat_above, self.specific_heat_below, self.latent_heat)
+        if self.water_content is None and any(v is None for v in explicit):
+            raise ValueError(
+                "give water_content, or all of specific_heat_above, specific_heat_below and latent_heat"
+            )
+        return self
+
+
+class Packaging(Strict):
+    """Packaging brought in with the daily intake."""
+
+    mass: Mass = 0.0
+    material: Literal["corrugated_board", "wood", "plastic", "other"] = "corrugated_board"
+    specific_heat: Optional[Q("specific_heat", gt=0.0, le=5e3)] = None  # type: ignore[valid-type]
+
+
+class Product(Strict):
+    """A product: named from the table or with explicit properties, and its daily movement."""
+
+    product: Optional[str] = None
+    properties: Optional[ProductProperties] = None
+    daily_intake: Mass = 0.0
+    entering_temperature: Optional[Temperature] = None
+    final_temperature: Optional[Temperature] = None
+    pulldown_time: Q("time", si="h", ip="h", gt=0.0, le=7 * 86400.0) = 86400.0  # type: ignore[valid-type]
+    packaging: Optional[Packaging] = None
+    stored_mass: Mass = 0.0
+
+    @model_validator(mode="after")
+    def _check(self) -> "Product":
+        if (self.product is None) == (self.properties is None):
+            raise ValueError("give a product either a table name (product) or properties (exactly one)")
+        if self.product is not None:
+            from coldroom.data import products
+
+            products.lookup(self.product)
+        if self.daily_intake > 0 and (self.entering_temperature is None or self.final_temperature is None):
+            raise ValueError("a daily_intake needs entering_temperature and final_temperature")
+        return self
+
+
+# --- internal loads -------------------------------------------------------------------------
+
+
+class People(Strict):
+    count: float = Field(default=0.0, ge=0.0, le=200.0)
+    hours: HoursPerDay = 0.0
+
+
+class Lighting(Strict):
+    """Lighting by power density (``power_density``) or total ``power``."""
+
+    power_density: Optional[Q("power_per_area", ge=0.0, le=100.0)] = None  # type: ignore[valid-type]
+    power: Optional[Power] = None
+    hours: HoursPerDay = 0.0
+
+    @model_validator(mode="after")
+    def _one_of(self) -> "Lighting":
+        if (self.power_density is None) == (self.power is None):
+            raise ValueError("give lighting either power_density or power (exactly one)")
+        return self
+
+
+class Fans(Strict):
+    """Evaporator fan motors. In the air stream the whole input counts."""
+
+    count: float = Field(default=1.0, ge=0.0, le=100.0)
+    power: Power = 0.0
+    hours: HoursPerDay = 86400.0
+    in_air_stream: bool = True
+    motor_efficiency: Fraction = 0.6
+
+
+class Appliance(Strict):
+    """Forklift, pallet truck, heater (door frame, drain line) or other equipment."""
+
+    name: str = Field(min_length=1, max_length=100)
+    kind: Literal["equipment", "forklift", "heater"] = "equipment"
+    power: Power
+    hours: HoursPerDay = 86400.0
+    count: float = Field(default=1.0, ge=0.0, le=100.0)
+
+
+class Defrost(Strict):
+    """Defrost: type, frequency, duration, heater power and the share of it reaching the room."""
+
+    type: Literal["off_cycle", "electric", "hot_gas"] = "off_cycle"
+    per_day: float = Field(default=4.0, ge=0.0, le=24.0)
+    duration: Q("time", si="min", ip="min", ge=0.0, le=7200.0) = 1800.0  # type: ignore[valid-type]
+    heater_power: Power = 0.0
+    share_to_room: Fraction = Field(default=0.5, description="Share of the heater energy reaching the room (trade 50–100 %).")
+
+
+# --- refrigeration (sizing) -------------------------------------------------------------------
+
+
+class Refrigeration(Strict):
+    """Choices for the refrigerant side; every field has a documented default in coldroom.sizing."""
+
+    refrigerant: str = "R448A"
+    evaporator_td: Optional[Q("temperature_difference", gt=0.0, le=25.0)] = None  # type: ignore[valid-type]
+    condenser_td: Optional[Q("temperature_difference", gt=0.0, le=30.0)] = None  # type: ignore[valid-type]
+    condenser_air_temperature: Optional[OutdoorTemperature] = None
+    superheat: Q("temperature_difference", ge=0.0, le=30.0) = 5.0  # type: ignore[valid-type]
+    suction_line_superheat: Q("temperature_difference", ge=0.0, le=40.0) = 5.0  # type: ignore[valid-type]
+    subcooling: Q("temperature_difference", ge=0.0, le=30.0) = 2.0  # type: ignore[valid-type]
+    isentropic_efficiency: float = Field(default=0.65, gt=0.2, le=1.0)
+    clearance: float = Field(default=0.04, ge=0.0, le=0.2)
+
+
+# --- room and project ---------------------------------------------------------------------------
+
+
+class Room(Strict):
+    """One walk-in room."""
+
+    name: str = Field(min_length=1, max_length=100)
+    temperature: RoomTemperature
+    rh: RelativeHumidity = 0.85
+    dimensions: Optional[Dimensions] = None
+    volume: Optional[Q("volume", gt=0.0, le=1e5)] = None  # type: ignore[valid-type]
+    envelope: Envelope
+    doors: list[Door] = Field(default_factory=list, max_length=20)
+    infiltration: Infiltration = Infiltration()
+    products: list[Product] = Field(default_factory=list, max_length=50)
+    people: People = People()
+    lighting: Optional[Lighting] = None
+    fans: Optional[Fans] = None
+    appliances: list[Appliance] = Field(default_factory=list, max_length=50)
+    defrost: Defrost = Defrost()
+    safety_factor: Q("fraction", ge=0.0, le=1.0) = 0.10  # type: ignore[valid-type]
+    run_hours: Optional[Q("time", si="h", ip="h", ge=3600.0, le=86400.0)] = None  # type: ignore[valid-type]
+    refrigeration: Refrigeration = Refrigeration()
+    existing_unit: Optional[dict[str, Any]] = Field(
+        default=None, description="An installed unit to check (see coldroom.equipment)."
+    )
+
+    @model_validator(mode="after")
+    def _geometry(self) -> "Room":
+        if self.dimensions is None:
+            sides_without_area = [s for s in SIDES if self.envelope.side(s).area is None]
+            if sides_without_area:
+                raise ValueError(
+                    f"give dimensions, or an area for every surface (missing: {', '.join(sides_without_area)})"
+                )
+            if self.volume is None:
+                raise ValueError("without dimensions the room needs a volume")
+        return self
+
+    # derived geometry (SI)
+    def surface_area(self, side: str) -> float:
+        """Area of *side* [m²]: explicit, or from the inside dimensions."""
+        surface = self.envelope.side(side)
+        if surface.area is not None:
+            return surface.area
+        d = self.dimensions
+        assert d is not None
+        if side in ("north", "south"):
+            return d.length * d.height
+        if side in ("east", "west"):
+            return d.width * d.height
+        return d.length * d.width
+
+    @property
+    def floor_area(self) -> float:
+        """Floor area [m²]."""
+        return self.surface_area("floor")
+
+    @property
+    def inside_volume(self) -> float:
+        """Inside volume [m³]."""
+        if self.volume is not None:
+            return self.volume
+        d = self.dimensions
+        assert d is not None
+        return d.length * d.width * d.height
+
+
+class ProjectModel(Strict):
+    """The whole project file."""
+
+    project: ProjectInfo
+    design: DesignConditions
+    constructions: dict[str, Construction] = Field(default_factory=dict, max_length=50)
+    rooms: list[Room] = Field(min_length=1, max_length=50)
+
+    def construction(self, ref: Union[str, Construction]) -> Construction:
+        """Resolve a surface's construction (a name from ``constructions`` or inline)."""
+        if isinstance(ref, Construction):
+            return ref
+        return self.constructions[ref]
+
+
+# --- loading ------------------------------------------------------------------------------------------
+
+
+def _system_of(data: Any) -> str:
+    if isinstance(data, dict):
+        project = data.get("project")
+        if isinstance(project, dict) and project.get("units") in ("SI", "IP"):
+            return str(project["units"])
+    return "SI"
+
+
+def _message(error: dict[str, Any]) -> str:
+    kind = error.get("type", "")
+    msg = str(error.get("msg", "invalid value"))
+    if msg.startswith("Value error, "):
+        msg = msg[len("Value error, ") :]
+    if kind == "extra_forbidden":
+        return "unknown key (check the spelling; `coldroom schema` lists the valid keys)"
+    if kind == "missing":
+        return "required key is missing"
+    if kind == "literal_error":
+        return f"{error.get('input')!r} is not one of the valid choices: {msg.split('Input should be ', 1)[-1]}"
+    if kind in ("float_parsing", "float_type", "int_parsing"):
+        return f"{error.get('input')!r} is not a number"
+    if kind in ("greater_than_equal", "less_than_equal", "greater_than", "less_than"):
+        ctx = error.get("ctx", {})
+        return f"{error.get('input')!r} is outside the valid range ({msg.replace('Input should be ', '')}; {ctx})"
+    return msg
+
+
+def parse_project_data(data: Any, filename: str = "<input>", loaded: Any = None) -> ProjectModel:
+    """Validate already-loaded YAML data into a :class:`ProjectModel`.
+
+    Raises
+    ------
+    ProjectFileError
+        On the first invalid key, with its position when *loaded* carries marks.
+    """
+    system = _system_of(data)
+    token = _SYSTEM.set(system)
+    try:
+        model = ProjectModel.model_validate(data, context={"system": system})
+    except ValidationError as exc:
+        errors = exc.errors(include_url=False)
+        first = errors[0]
+        loc = tuple(first.get("loc", ()))
+        message = _message(first)
+        if len(errors) > 1:
+            message += f" (and {len(errors) - 1} more error{'s' if len(errors) > 2 else ''})"
+        raise _error_at(loaded, filename, message, loc) from None
+    except ColdroomError as exc:  # raised from inside a validator (e.g. an unknown product name)
+        raise ProjectFileError(str(exc), file=filename) from None
+    finally:
+        _SYSTEM.reset(token)
+    from coldroom.checks import check_project
+
+    check_project(model, lambda message, path: _error_at(loaded, filename, message, path))
+    return model
+
+
+def _error_at(loaded: Any, filename: str, message: str, path: tuple) -> ProjectFileError:
+    if loaded is not None:
+        return loaded.error(message, path)
+    from coldroom.safeyaml import dotted
+
+    return ProjectFileError(message, file=filename, key=dotted(path) or None)
+
+
+def parse_project_text(text: str | bytes, filename: str = "<input>") -> ProjectModel:
+    """Load and validate a project from YAML text."""
+    from coldroom.safeyaml import load_yaml
+
+    loaded = load_yaml(text, filename=filename)
+    return parse_project_data(loaded.data, filename=filename, loaded=loaded)
+
+
+def load_project(path: str | os.PathLike[str]) -> ProjectModel:
+    """Read and validate the project file at *path*.
+
+    Raises
+    ------
+    ProjectFileError
+        Unreadable, malformed or physically impossible input (exit code 65).
+    """
+    p = Path(path)
+    try:
+        raw = p.read_bytes()
+    except FileNotFoundError:
+        raise ProjectFileError("no such file", file=str(p)) from None
+    except IsADirectoryError:
+        raise ProjectFileError("is a directory, not a project file", file=str(p)) from None
+    except OSError as exc:
+        raise ProjectFileError(f"cannot read: {exc.strerror}", file=str(p)) from None
+    return parse_project_text(raw, filename=str(p))
+
+
+def json_schema() -> dict[str, Any]:
+    """JSON Schema of the project file, for editors that complete and check YAML."""
+    schema = ProjectModel.model_json_schema()
+    schema["$schema"] = "https://json-schema.org/draft/2020-12/schema"
+    schema["title"] = "coldroom project file"
+    return schema

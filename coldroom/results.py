@@ -1,0 +1,202 @@
+"""Result objects: frozen dataclasses in SI, every field's unit in its name or docstring.
+
+Reports (PDF, JSON, terminal) only read these; they compute nothing new.
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass, field
+from typing import Any, Optional
+
+#: The load components, in the order of the ASHRAE Handbook—Refrigeration
+#: chapter "Refrigerated-Facility Loads": transmission, product, infiltration,
+#: internal, equipment.
+COMPONENTS: tuple[str, ...] = ("transmission", "product", "infiltration", "internal", "equipment")
+
+
+@dataclass(frozen=True)
+class LoadLine:
+    """One line of the load calculation.
+
+    Attributes
+    ----------
+    component : str
+        One of :data:`COMPONENTS`.
+    item : str
+        What the line is ("north wall", "door: shop door", "strawberries: latent").
+    daily_energy : float
+        Heat gained over 24 h [J].
+    basis : str
+        How the figure was found, for the sheet ("U 0.22 W/(m²·K) × 13.5 m² × 22 K").
+    """
+
+    component: str
+    item: str
+    daily_energy: float
+    basis: str = ""
+
+    @property
+    def average_power(self) -> float:
+        """24-hour average heat gain [W]."""
+        return self.daily_energy / 86400.0
+
+
+@dataclass(frozen=True)
+class RoomLoads:
+    """The 24-hour heat load of one room.
+
+    Attributes
+    ----------
+    name : str
+        Room name.
+    lines : tuple of LoadLine
+        Every contribution.
+    safety_factor : float
+        Fraction added to the daily energy [-].
+    run_time : float
+        Compressor run time per day [s].
+    run_time_basis : str
+        Where the run time came from (given, or the default for the defrost type).
+    peak_load : float
+        Peak-hour load [W]: product at its pull-down rate, all internal loads on,
+        transmission and infiltration at their averages.
+    volume : float
+        Inside volume [m³].
+    floor_area : float
+        Floor area [m²].
+    """
+
+    name: str
+    lines: tuple[LoadLine, ...]
+    safety_factor: float
+    run_time: float
+    run_time_basis: str
+    peak_load: float
+    volume: float
+    floor_area: float
+    warnings: tuple[str, ...] = ()
+
+    def component_energy(self, component: str) -> float:
+        """Daily energy of one component [J]."""
+        return sum(line.daily_energy for line in self.lines if line.component == component)
+
+    @property
+    def components_w(self) -> dict[str, float]:
+        """24-hour average of each component [W], in :data:`COMPONENTS` order."""
+        return {c: self.component_energy(c) / 86400.0 for c in COMPONENTS}
+
+    @property
+    def daily_energy(self) -> float:
+        """Total heat gain over 24 h, before the safety factor [J]."""
+        return sum(line.daily_energy for line in self.lines)
+
+    @property
+    def required_capacity(self) -> float:
+        """Required refrigeration capacity [W] = (1 + SF) × daily energy / run time."""
+        return (1.0 + self.safety_factor) * self.daily_energy / self.run_time
+
+    @property
+    def peak_capacity(self) -> float:
+        """Peak-hour load with the safety factor [W]."""
+        return (1.0 + self.safety_factor) * self.peak_load
+
+    @property
+    def design_capacity(self) -> float:
+        """Capacity the equipment is sized for [W]: the larger of the required and the peak capacity."""
+        return max(self.required_capacity, self.peak_capacity)
+
+    @property
+    def governed_by(self) -> str:
+        """``"daily energy"`` or ``"peak hour"``: which figure sets the design capacity."""
+        return "peak hour" if self.peak_capacity > self.required_capacity else "daily energy"
+
+    def to_json(self) -> dict[str, Any]:
+        """JSON object with SI numbers; every numeric key names its unit."""
+        return {
+            "name": self.name,
+            "loads_w": self.components_w,
+            "daily_energy_kwh": self.daily_energy / 3.6e6,
+            "safety_factor": self.safety_factor,
+            "run_hours": self.run_time / 3600.0,
+            "run_hours_basis": self.run_time_basis,
+            "required_capacity_w": self.required_capacity,
+            "peak_load_w": self.peak_load,
+            "design_capacity_w": self.design_capacity,
+            "design_capacity_governed_by": self.governed_by,
+            "volume_m3": self.volume,
+            "floor_area_m2": self.floor_area,
+            "lines": [
+                {
+                    "component": line.component,
+                    "item": line.item,
+                    "daily_energy_kwh": line.daily_energy / 3.6e6,
+                    "average_w": line.average_power,
+                    "basis": line.basis,
+                }
+                for line in self.lines
+            ],
+            "warnings": list(self.warnings),
+        }
+
+
+@dataclass(frozen=True)
+class RoomResult:
+    """Everything coldroom found for one room."""
+
+    loads: RoomLoads
+    evaporating_temperature: Optional[float] = None  # °C, saturated dew point
+    condensing_temperature: Optional[float] = None  # °C, saturated dew point
+    condenser_air_temperature: Optional[float] = None  # °C
+    sizing_basis: tuple[tuple[str, str], ...] = ()  # (what, value and source) pairs for the sheet
+    cycle: Any = None  # coldroom.cycle.CycleResult
+    check: Any = None  # coldroom.equipment.CheckResult
+    warnings: tuple[str, ...] = ()
+
+    @property
+    def name(self) -> str:
+        return self.loads.name
+
+    def to_json(self) -> dict[str, Any]:
+        out = self.loads.to_json()
+        out["evaporating_temperature_c"] = self.evaporating_temperature
+        out["condensing_temperature_c"] = self.condensing_temperature
+        out["condenser_air_temperature_c"] = self.condenser_air_temperature
+        out["cycle"] = self.cycle.to_json() if self.cycle is not None else None
+        if self.check is not None:
+            out["existing_unit"] = self.check.to_json()
+        out["warnings"] = list(self.loads.warnings) + list(self.warnings)
+        return out
+
+
+@dataclass(frozen=True)
+class ProjectResult:
+    """The result of one project file."""
+
+    project_name: str
+    client: str
+    site: str
+    prepared_by: str
+    date: str
+    unit_system: str
+    input_file: str
+    input_sha256: str
+    rooms: tuple[RoomResult, ...]
+    warnings: tuple[str, ...] = ()
+    versions: dict[str, str] = field(default_factory=dict)
+
+    def to_json(self) -> dict[str, Any]:
+        return {
+            "project": {
+                "name": self.project_name,
+                "client": self.client,
+                "site": self.site,
+                "prepared_by": self.prepared_by,
+                "date": self.date,
+                "unit_system": self.unit_system,
+                "input_file": self.input_file,
+                "input_sha256": self.input_sha256,
+            },
+            "versions": dict(self.versions),
+            "rooms": [room.to_json() for room in self.rooms],
+            "warnings": list(self.warnings),
+        }
