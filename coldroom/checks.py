@@ -113,28 +113,14 @@ def _check_doors(room: "Room", at: tuple, error: ErrorFactory) -> None:
 
 def project_warnings(model: "ProjectModel") -> list[tuple[str, str]]:
     """Legal but implausible input, as (dotted key, message) pairs for the sheet and terminal."""
-    from coldroom.loads.transmission import u_value
-    from coldroom.data import materials
+    from coldroom.loads import construction_u
 
     out: list[tuple[str, str]] = []
     for i, room in enumerate(model.rooms):
         key = f"rooms[{i}]"
         for side in ("north", "east", "south", "west", "ceiling"):
             surface = room.envelope.side(side)
-            construction = model.construction(surface.construction)
-            if construction.u_value is not None:
-                u = construction.u_value
-            else:
-                layers = [
-                    (
-                        layer.thickness,
-                        layer.conductivity
-                        if layer.conductivity is not None
-                        else materials.material(layer.material).conductivity,  # type: ignore[arg-type]
-                    )
-                    for layer in construction.layers or []
-                ]
-                u = u_value(layers)
+            u = construction_u(model.construction(surface.construction), surface.facing)
             if u > WALL_U_WARNING:
                 out.append(
                     (

@@ -84,6 +84,48 @@ def validate_command(
     guarded(run)
 
 
+@app.command("load")
+def load_command(
+    project: str = typer.Argument(..., help="Project file (YAML)."),
+    json_out: Optional[str] = typer.Option(
+        None, "--json", help="Also write the result as JSON to FILE ('-' for stdout).", metavar="FILE"
+    ),
+    force: bool = typer.Option(False, "--force", help="Overwrite an existing JSON file."),
+) -> None:
+    """Each room's 24-hour heat load, component by component, and the required capacity."""
+
+    def run() -> None:
+        import json
+
+        from coldroom.checks import project_warnings
+        from coldroom.loads import project_loads
+        from coldroom.output import write_atomic
+        from coldroom.projectfile import load_project
+        from coldroom.textreport import loads_report
+
+        model = load_project(project)
+        rooms = project_loads(model)
+        warnings = [message for _, message in project_warnings(model)]
+        payload = {
+            "project": {"name": model.project.name, "unit_system": model.project.units},
+            "rooms": [r.to_json() for r in rooms],
+            "warnings": warnings,
+        }
+        text = json.dumps(payload, indent=2, ensure_ascii=False) + "\n"
+        to_stdout = json_out == "-"
+        out = sys.stderr if to_stdout else sys.stdout
+        print(loads_report(rooms, model.project.units, [r.temperature for r in model.rooms]), file=out)
+        for message in warnings:
+            print(f"warning: {message}", file=out)
+        if to_stdout:
+            sys.stdout.write(text)
+        elif json_out:
+            write_atomic(json_out, text, force=force, inputs=[project])
+            print(f"wrote {json_out}", file=out)
+
+    guarded(run)
+
+
 @app.command("schema")
 def schema_command() -> None:
     """Print the JSON Schema of the project file (for editors that complete and check YAML)."""

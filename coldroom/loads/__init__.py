@@ -179,12 +179,105 @@ def infiltration_lines(model: "ProjectModel", room: "Room") -> list[LoadLine]:
     return lines
 
 
+def internal_lines(model: "ProjectModel", room: "Room") -> list[LoadLine]:
+    """People, lighting, forklifts and equipment (internal); fans, heaters and defrost (equipment)."""
+    from coldroom.loads import internal
+
+    lines: list[LoadLine] = []
+    t = room.temperature
+    if room.people.count > 0 and room.people.hours > 0:
+        hours = room.people.hours / 3600.0
+        rate = internal.people_heat_rate(t)
+        lines.append(
+            LoadLine(
+                "internal",
+                "people",
+                internal.people_energy(room.people.count, hours, t),
+                f"{room.people.count:g} × {rate:.0f} W × {hours:g} h",
+            )
+        )
+    if room.lighting is not None and room.lighting.hours > 0:
+        light = room.lighting
+        power = light.power if light.power is not None else light.power_density * room.floor_area  # type: ignore[operator]
+        hours = light.hours / 3600.0
+        basis = (
+            f"{light.power_density:g} W/m² × {room.floor_area:.1f} m² × {hours:g} h"
+            if light.power_density is not None
+            else f"{power:.0f} W × {hours:g} h"
+        )
+        lines.append(LoadLine("internal", "lighting", internal.lighting_energy(power, hours), basis))
+    for appliance in room.appliances:
+        hours = appliance.hours / 3600.0
+        power = appliance.power * appliance.count
+        if appliance.kind == "heater":
+            energy = internal.heater_energy(power, hours)
+            component = "equipment"
+        elif appliance.kind == "forklift":
+            energy = internal.forklift_energy(power, hours)
+            component = "internal"
+        else:
+            energy = internal.equipment_energy(power, hours)
+            component = "internal"
+        count = f"{appliance.count:g} × " if appliance.count != 1 else ""
+        lines.append(
+            LoadLine(component, appliance.name, energy, f"{count}{appliance.power:.0f} W × {hours:g} h")
+        )
+    if room.fans is not None and room.fans.power > 0 and room.fans.hours > 0:
+        fans = room.fans
+        hours = fans.hours / 3600.0
+        location = "in_air_stream" if fans.in_air_stream else "load_inside_motor_outside"
+        energy = internal.motor_energy(fans.power * fans.count, hours, location, fans.motor_efficiency)
+        lines.append(
+            LoadLine(
+                "equipment",
+                "evaporator fans",
+                energy,
+                f"{fans.count:g} × {fans.power:.0f} W × {hours:g} h"
+                + ("" if fans.in_air_stream else f" × η {fans.motor_efficiency:.2f}"),
+            )
+        )
+    d = room.defrost
+    if d.type != "off_cycle" and d.heater_power > 0 and d.per_day > 0:
+        energy = internal.defrost_energy(d.heater_power, d.per_day, d.duration, d.share_to_room)
+        lines.append(
+            LoadLine(
+                "equipment",
+                f"defrost ({d.type.replace('_', ' ')})",
+                energy,
+                f"{d.heater_power / 1e3:.2f} kW × {d.per_day:g}/day × {d.duration / 60:g} min × {d.share_to_room:.0%}",
+            )
+        )
+    return lines
+
+
+def internal_peak(model: "ProjectModel", room: "Room") -> float:
+    """Internal and equipment loads all on at once, defrost excluded [W].
+
+    Defrost heat is left out: the compressor does not run while the coil defrosts.
+    """
+    from coldroom.loads import internal
+
+    peak = 0.0
+    if room.people.count > 0 and room.people.hours > 0:
+        peak += room.people.count * internal.people_heat_rate(room.temperature)
+    if room.lighting is not None and room.lighting.hours > 0:
+        light = room.lighting
+        peak += light.power if light.power is not None else light.power_density * room.floor_area  # type: ignore[operator]
+    for appliance in room.appliances:
+        if appliance.hours > 0:
+            peak += appliance.power * appliance.count
+    if room.fans is not None and room.fans.hours > 0:
+        fan_power = room.fans.power * room.fans.count
+        peak += fan_power if room.fans.in_air_stream else fan_power * room.fans.motor_efficiency
+    return peak
+
+
 def _run_time(room: "Room") -> tuple[float, str]:
     from coldroom.loads import totals
 
     if room.run_hours is not None:
         return room.run_hours, "given"
-    hours = totals.default_run_hours(room.defrost.type)
+    hours = totals.run_hours_for_defrost(room.defrost.type)
     return hours * 3600.0, f"default for {room.defrost.type.replace('_', '-')} defrost"
 
 
@@ -199,7 +292,6 @@ def room_loads(model: "ProjectModel", room: "Room") -> RoomLoads:
     RoomLoads
         Every line, the safety factor, run time and the peak-hour load [W].
     """
-    from coldroom.loads.internal_glue import internal_lines, peak_extra
     from coldroom.loads.product_glue import product_lines, product_peak
 
     lines: list[LoadLine] = []
@@ -211,7 +303,7 @@ def room_loads(model: "ProjectModel", room: "Room") -> RoomLoads:
     steady = sum(
         line.daily_energy for line in lines if line.component in ("transmission", "infiltration")
     ) / DAY
-    peak = steady + product_peak(model, room) + peak_extra(model, room)
+    peak = steady + product_peak(model, room) + internal_peak(model, room)
     warnings: list[str] = []
     return RoomLoads(
         name=room.name,

@@ -1,0 +1,73 @@
+"""Plain-text tables for the terminal (no heavy imports; presents results, computes nothing new)."""
+
+from __future__ import annotations
+
+from typing import Sequence
+
+from coldroom.results import COMPONENTS, RoomLoads
+from coldroom.units import display, format_number
+
+
+def table(headers: Sequence[str], rows: Sequence[Sequence[str]], align: str | None = None) -> str:
+    """A simple aligned table: *align* is one character per column, ``l`` or ``r``.
+
+    Examples
+    --------
+    >>> print(table(["a", "bb"], [["x", "1"], ["yy", "22"]], "lr"))
+    a    bb
+    --  ---
+    x     1
+    yy   22
+    """
+    align = align or "l" + "r" * (len(headers) - 1)
+    widths = [max(len(str(h)), *(len(str(r[i])) for r in rows)) if rows else len(str(h)) for i, h in enumerate(headers)]
+
+    def line(cells: Sequence[str]) -> str:
+        out = []
+        for cell, width, a in zip(cells, widths, align):
+            out.append(str(cell).rjust(width) if a == "r" else str(cell).ljust(width))
+        return "  ".join(out).rstrip()
+
+    rule = "  ".join("-" * w for w in widths)
+    return "\n".join([line(headers), rule, *(line(r) for r in rows)])
+
+
+def power_text(watts: float, system: str) -> str:
+    """A capacity for people: kW in SI, Btu/h and TR in IP."""
+    if system == "IP":
+        return f"{display(watts, 'power', 'IP')} ({display(watts, 'power_large', 'IP')})"
+    return display(watts, "power_large", "SI") if abs(watts) >= 1000 else display(watts, "power", "SI")
+
+
+def room_load_table(loads: RoomLoads, system: str) -> str:
+    """The component table of one room with its totals."""
+    total = loads.daily_energy
+    unit = "Btu/h" if system == "IP" else "W"
+    rows = []
+    for component in COMPONENTS:
+        energy = loads.component_energy(component)
+        share = 100.0 * energy / total if total else 0.0
+        average = display(energy / 86400.0, "power", system, digits=0).rsplit(" ", 1)[0]
+        rows.append([component, format_number(energy / 3.6e6, 1), average, f"{share:.1f}"])
+    rows.append(["total", format_number(total / 3.6e6, 1), display(total / 86400.0, "power", system, digits=0).rsplit(" ", 1)[0], "100.0"])
+    body = table(["component", "kWh/day", f"average {unit}", "share %"], rows, "lrrr")
+    run_h = loads.run_time / 3600.0
+    footer = [
+        f"run time {run_h:g} h/day ({loads.run_time_basis}), safety factor {loads.safety_factor:.0%}",
+        f"required capacity   {power_text(loads.required_capacity, system)}",
+        f"peak-hour capacity  {power_text(loads.peak_capacity, system)}"
+        f"   (product at pull-down rate, all internal loads on)",
+        f"design capacity     {power_text(loads.design_capacity, system)}   (set by the {loads.governed_by})",
+    ]
+    return body + "\n" + "\n".join(footer)
+
+
+def loads_report(rooms: Sequence[RoomLoads], system: str, temperatures: Sequence[float]) -> str:
+    """The terminal output of ``coldroom load``."""
+    parts = []
+    for loads, temperature in zip(rooms, temperatures):
+        title = f"{loads.name}  ({display(temperature, 'temperature', system)}, {display(loads.volume, 'volume', system)})"
+        parts.append(title + "\n" + room_load_table(loads, system))
+        for warning in loads.warnings:
+            parts.append(f"  warning: {warning}")
+    return "\n\n".join(parts)
