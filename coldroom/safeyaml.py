@@ -396,41 +396,48 @@ def _check_size(root: Node, max_nodes: int, max_depth: int) -> None:
     sizes: dict[int, tuple[int, int]] = {}
     active: set[int] = set()
 
-    def measure(node: Node) -> tuple[int, int]:
-        known = sizes.get(id(node))
-        if known is not None:
-            return known
-        if isinstance(node, ScalarNode):
-            result = (1, 0)
-        else:
-            if id(node) in active:
-                raise _Located("an alias refers to a collection that contains it (endless data)", node.start_mark)
-            active.add(id(node))
-            count, depth = 1, 0
-            children = (
-                node.value
-                if isinstance(node, SequenceNode)
-                else [child for pair in node.value for child in pair]
-            )
-            for child in children:
-                child_count, child_depth = measure(child)
-                count += child_count
-                depth = max(depth, child_depth)
-                if count > max_nodes:
+    def measure(node: Node, level: int) -> tuple[int, int]:
+        # level: nesting of this node as reached now (the top mapping is 1);
+        # returns (expanded node count, expanded height in collections).
+        # an alias is a shallow copy sharing its anchor's children list: key on that list
+        key = id(node) if isinstance(node, ScalarNode) else id(node.value)
+        known = sizes.get(key)
+        if known is None:
+            if isinstance(node, ScalarNode):
+                known = (1, 0)
+                sizes[key] = known
+            else:
+                if level > max_depth:  # stop before recursing further
+                    raise _Located(f"nested deeper than {max_depth} levels (through aliases)", node.start_mark)
+                if key in active:
                     raise _Located(
-                        f"expands to more than {max_nodes} values (through aliases *name);"
-                        " write the data out without nested aliases",
-                        node.start_mark,
+                        "an alias refers to a collection that contains it (endless data)", node.start_mark
                     )
-            depth += 1
-            if depth > max_depth:
-                raise _Located(f"nested deeper than {max_depth} levels (through aliases)", node.start_mark)
-            active.discard(id(node))
-            result = (count, depth)
-        sizes[id(node)] = result
-        return result
+                active.add(key)
+                count, height = 1, 0
+                children = (
+                    node.value
+                    if isinstance(node, SequenceNode)
+                    else [child for pair in node.value for child in pair]
+                )
+                for child in children:
+                    child_count, child_height = measure(child, level + 1)
+                    count += child_count
+                    height = max(height, child_height)
+                    if count > max_nodes:
+                        raise _Located(
+                            f"holds more than {max_nodes} values with its aliases (*name) expanded;"
+                            " a project file needs far fewer (write it out without nested aliases)",
+                            node.start_mark,
+                        )
+                active.discard(key)
+                known = (count, height + 1)
+                sizes[key] = known
+        if level - 1 + known[1] > max_depth:
+            raise _Located(f"nested deeper than {max_depth} levels (through aliases)", node.start_mark)
+        return known
 
-    measure(root)
+    measure(root, 1)
 
 
 def _show(value: str) -> str:
