@@ -151,3 +151,11 @@ def test_wet_bulb_at_dry_bulb_is_saturation(t, depression):
     except CalculationError:  # very dry: the pair is inconsistent and refused
         return
     assert rh_lower < 1.0
+
+
+@given(st.floats(-5.0, 30.0), st.floats(0.0, 20.0), st.integers(1, 500))
+def test_door_into_warmer_room_adds_nothing(t_out, warmer, passages):
+    # Buoyant inflow exists only into the colder (denser) room; the warmer side gets zero.
+    r = _door(room_temperature=t_out + warmer + 0.5, outside_temperature=t_out, outside_relative_humidity=0.5,
+              room_relative_humidity=0.5, passages_per_day=passages)  # fmt: skip
+    assert r.full_open_power == 0.0 and r.average_power == 0.0
