@@ -330,6 +330,7 @@ def test_non_standard_tags_rejected(source):
         ("2.5: a\n", "must be text (it reads as float)"),
         ("? [a, b]\n: 1\n", "must be text, not a list"),
         ("on: 1\n", "yes/no boolean"),
+        ("y: 1\n", "yes/no boolean"),  # YAML 1.1 bool; PyYAML alone would read text
     ],
 )
 def test_keys_must_be_text(source, fragment):
@@ -434,6 +435,14 @@ def test_position_falls_back_to_longest_existing_prefix():
     assert loaded.position(("nowhere",)) == (2, 1)
     error = loaded.error("Field required", ("rooms", 1, "doors"))
     assert error.format() == "demo.yaml:9:5: rooms[1].doors: Field required"
+
+
+def test_crlf_line_endings_marks():
+    loaded = load_yaml(b"a: 1\r\nb:\r\n  c: x\r\n")
+    assert loaded.data == {"a": 1, "b": {"c": "x"}}
+    assert loaded.marks[("b", "c")] == (3, 3)
+    error = reject(b"a: 1\r\nb:\r\n  c: off\r\n")
+    assert (error.line, error.column, error.key) == (3, 6, "b.c")
 
 
 def test_dotted():
