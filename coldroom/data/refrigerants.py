@@ -1,0 +1,316 @@
+"""Refrigerant catalogue: names, safety classes, GWP, flammability limits.
+
+Pure Python, no CoolProp: listing refrigerants (``coldroom refrigerants``) and
+looking one up must stay instant. Properties come from
+:mod:`coldroom.refrigerant`, which maps each entry to a CoolProp fluid through
+:attr:`RefrigerantInfo.coolprop_name`.
+
+Source keys (every value carries one in :attr:`RefrigerantInfo.sources`):
+
+``ASHRAE 34 [mem]``
+    ANSI/ASHRAE Standard 34 / ISO 817 safety group (toxicity A/B, flammability
+    1/2L/2/3). Recalled, not read from the standard; verify.
+``IPCC AR4 [mem]``
+    100-year GWP, IPCC Fourth Assessment Report (2007), WG1 ch. 2 table 2.14, as
+    used by EU Regulation 517/2014; blends as the mass-weighted sum of the
+    components. Recalled; verify.
+``IPCC AR5 [mem]``
+    100-year GWP, IPCC Fifth Assessment Report (2013), WG1 ch. 8 appendix
+    8.A table 8.A.1, blends mass-weighted. Recalled; verify.
+``ISO 817 / EN 378-1 annex [mem]``
+    Lower flammability limit (LFL) in kg/m³ as tabulated for charge-limit
+    rules. Recalled; verify.
+``CoolProp 8.0 [pub]``
+    The fluid or predefined mixture name present in CoolProp 8.0.0 (checked
+    with ``get_global_param_string('fluids_list' / 'predefined_mixtures')``).
+``ASHRAE 34 numbering [pub]``
+    400-series numbers are zeotropic blends (with temperature glide), 500-series
+    azeotropic blends (no glide), per the numbering rules of ASHRAE 34.
+
+Model choice (``model``):
+
+``pure``
+    A single fluid with its reference equation of state in CoolProp.
+``pseudo-pure``
+    CoolProp's pseudo-pure equation of state for a blend (Lemmon 2003,
+    Int. J. Thermophys. 24 (4) 991-1006 [mem]) with separate ancillary
+    equations for bubble and dew pressure. Fast (µs per state) and, for
+    R-404A, R-407C and R-507A, within about 0.1 % of the full mixture model
+    in latent heat and 0.01 K in bubble/dew temperatures at −10/40 °C (checked
+    here against the ``.mix`` models of CoolProp 8.0). Preferred where it exists.
+``mixture``
+    CoolProp's multi-fluid Helmholtz mixture model with a predefined blend
+    (``R448A.mix`` …). Accurate but slow (milliseconds per state); the fast
+    routines in :mod:`coldroom.refrigerant` avoid its P–H / P–S flashes.
+
+Examples
+--------
+>>> lookup("r448a").name
+'R-448A'
+>>> lookup("R-1234ze(E)") is lookup("R1234ZE")
+True
+>>> lookup("R-717").safety_class
+'B2L'
+"""
+
+from __future__ import annotations
+
+import re
+from dataclasses import dataclass, field
+from types import MappingProxyType
+from typing import Mapping
+
+from coldroom import errors
+
+ASHRAE34 = "ASHRAE 34 [mem]"
+AR4 = "IPCC AR4 [mem]"
+AR5 = "IPCC AR5 [mem]"
+LFL_SRC = "ISO 817 / EN 378-1 annex [mem]"
+COOLPROP = "CoolProp 8.0 [pub]"
+NUMBERING = "ASHRAE 34 numbering [pub]"
+NOT_FLAMMABLE = "class 1 (no flame propagation): no LFL [mem]"
+
+
+@dataclass(frozen=True)
+class RefrigerantInfo:
+    """One catalogue entry.
+
+    Attributes
+    ----------
+    name : str
+        ASHRAE 34 designation, e.g. ``"R-448A"``.
+    coolprop_name : str
+        Fluid name for CoolProp's HEOS backend (``"R134a"``, ``"R404A"``
+        pseudo-pure, ``"R448A.mix"`` predefined mixture).
+    model : str
+        ``"pure"``, ``"pseudo-pure"`` or ``"mixture"`` (see module docstring).
+    safety_class : str
+        ISO 817 / ASHRAE 34 safety group, e.g. ``"A1"``, ``"A2L"``, ``"B2L"``.
+    gwp_ar4 : float
+        100-year global warming potential, IPCC AR4 [1].
+    gwp_ar5 : float or None
+        100-year global warming potential, IPCC AR5 [1]; ``None`` where AR5
+        tabulates no value.
+    lfl_kg_m3 : float or None
+        Lower flammability limit [kg/m³]; ``None`` for class 1 (non-flammable).
+    is_blend : bool
+        A mixture of two or more components (400- or 500-series).
+    zeotropic : bool
+        Glide-bearing blend (400-series): bubble and dew temperatures differ
+        at one pressure. Azeotropes (500-series) and pure fluids are not.
+    chemical : str
+        Chemical name or blend composition (mass %), for the listing.
+    sources : Mapping[str, str]
+        Source key per attribute (``"safety_class" -> "ASHRAE 34 [mem]"`` …).
+    note : str
+        Anything a user should know (legacy fluid, model accuracy, AR5 "<1").
+    """
+
+    name: str
+    coolprop_name: str
+    model: str
+    safety_class: str
+    gwp_ar4: float
+    gwp_ar5: float | None
+    lfl_kg_m3: float | None
+    is_blend: bool
+    zeotropic: bool
+    chemical: str
+    sources: Mapping[str, str] = field(default_factory=dict, compare=False, hash=False)
+    note: str = ""
+
+    @property
+    def flammable(self) -> bool:
+        """True for flammability classes 2L, 2 and 3."""
+        return self.safety_class[1:] != "1"
+
+    @property
+    def higher_toxicity(self) -> bool:
+        """True for toxicity class B."""
+        return self.safety_class.startswith("B")
+
+
+def _entry(
+    name: str,
+    coolprop_name: str,
+    model: str,
+    safety_class: str,
+    gwp_ar4: float,
+    gwp_ar5: float | None,
+    lfl: float | None,
+    chemical: str,
+    note: str = "",
+    gwp_ar5_source: str = AR5,
+    gwp_ar4_source: str = AR4,
+) -> RefrigerantInfo:
+    number = name.split("-", 1)[1]
+    # 400-series zeotropic, 500-series azeotropic (ASHRAE 34 numbering [pub]);
+    # "R-600a" and "R-290" are single compounds.
+    is_blend = number.startswith(("4", "5")) and number[:3].isdigit() and len(number) == 4
+    zeotropic = is_blend and number.startswith("4")
+    sources = MappingProxyType(
+        {
+            "coolprop_name": COOLPROP,
+            "model": COOLPROP,
+            "safety_class": ASHRAE34,
+            "gwp_ar4": gwp_ar4_source,
+            "gwp_ar5": gwp_ar5_source,
+            "lfl_kg_m3": LFL_SRC if lfl is not None else NOT_FLAMMABLE,
+            "is_blend": NUMBERING,
+            "zeotropic": NUMBERING,
+            "chemical": ASHRAE34,
+        }
+    )
+    return RefrigerantInfo(
+        name=name,
+        coolprop_name=coolprop_name,
+        model=model,
+        safety_class=safety_class,
+        gwp_ar4=gwp_ar4,
+        gwp_ar5=gwp_ar5,
+        lfl_kg_m3=lfl,
+        is_blend=is_blend,
+        zeotropic=zeotropic,
+        chemical=chemical,
+        sources=sources,
+        note=note,
+    )
+
+
+_AR5_BELOW_ONE = "IPCC AR5 [mem]: tabulated as <1, stored as 1"
+_AR5_NONE = "IPCC AR5 [mem]: no value tabulated for this hydrocarbon"
+
+#: The catalogue, in listing order. Values recalled from the named sources
+#: (tags [mem]); blend compositions are nominal mass fractions.
+CATALOGUE: tuple[RefrigerantInfo, ...] = (
+    _entry("R-134a", "R134a", "pure", "A1", 1430, 1300, None, "1,1,1,2-tetrafluoroethane"),
+    _entry(
+        "R-404A", "R404A", "pseudo-pure", "A1", 3922, 3943, None, "R-125/143a/134a (44/52/4)",
+        note="pseudo-pure model; glide about 0.7 K; GWP >= 2500",
+    ),
+    _entry(
+        "R-507A", "R507A", "pseudo-pure", "A1", 3985, 3985, None, "R-125/143a (50/50)",
+        note="pseudo-pure model; azeotrope; GWP >= 2500",
+    ),
+    _entry("R-407A", "R407A.mix", "mixture", "A1", 2107, 1923, None, "R-32/125/134a (20/40/40)"),
+    _entry(
+        "R-407C", "R407C", "pseudo-pure", "A1", 1774, 1624, None, "R-32/125/134a (23/25/52)",
+        note="pseudo-pure model with separate bubble/dew ancillaries; glide about 7 K",
+    ),
+    _entry("R-407F", "R407F.mix", "mixture", "A1", 1825, 1674, None, "R-32/125/134a (30/30/40)"),
+    _entry(
+        "R-448A", "R448A.mix", "mixture", "A1", 1387, 1273, None,
+        "R-32/125/1234yf/134a/1234ze(E) (26/26/20/21/7)",
+    ),
+    _entry(
+        "R-449A", "R449A.mix", "mixture", "A1", 1397, 1282, None, "R-32/125/1234yf/134a (24.3/24.7/25.3/25.7)",
+    ),
+    _entry("R-452A", "R452A.mix", "mixture", "A1", 2140, 1945, None, "R-32/125/1234yf (11/59/30)"),
+    _entry("R-513A", "R513A.mix", "mixture", "A1", 631, 573, None, "R-1234yf/134a (56/44)", note="azeotrope"),
+    _entry("R-454C", "R454C.mix", "mixture", "A2L", 148, 146, 0.293, "R-32/1234yf (21.5/78.5)"),
+    _entry("R-455A", "R455A.mix", "mixture", "A2L", 148, 146, 0.431, "R-744/32/1234yf (3/21.5/75.5)"),
+    _entry(
+        "R-290", "n-Propane", "pure", "A3", 3, None, 0.038, "propane",
+        gwp_ar5_source=_AR5_NONE, gwp_ar4_source="IPCC AR4 [mem] (commonly quoted value; verify)",
+    ),
+    _entry(
+        "R-600a", "IsoButane", "pure", "A3", 3, None, 0.043, "isobutane",
+        gwp_ar5_source=_AR5_NONE, gwp_ar4_source="IPCC AR4 [mem] (commonly quoted value; verify)",
+    ),
+    _entry("R-717", "Ammonia", "pure", "B2L", 0, 0, 0.116, "ammonia"),
+    _entry(
+        "R-744", "CarbonDioxide", "pure", "A1", 1, 1, None, "carbon dioxide",
+        note="critical point 31 °C: transcritical above it (give a gas-cooler outlet temperature)",
+    ),
+    _entry(
+        "R-1234yf", "R1234yf", "pure", "A2L", 4, 1, 0.289, "2,3,3,3-tetrafluoropropene",
+        gwp_ar5_source=_AR5_BELOW_ONE,
+    ),
+    _entry(
+        "R-1234ze(E)", "R1234ze(E)", "pure", "A2L", 7, 1, 0.303, "trans-1,3,3,3-tetrafluoropropene",
+        gwp_ar5_source=_AR5_BELOW_ONE,
+    ),
+    _entry(
+        "R-22", "R22", "pure", "A1", 1810, 1760, None, "chlorodifluoromethane",
+        note="legacy HCFC (ozone-depleting, phased out): for existing installations only",
+    ),
+)
+
+_BY_NAME: dict[str, RefrigerantInfo] = {info.name: info for info in CATALOGUE}
+
+
+def _key(name: str) -> str:
+    """Normalise a spelling: upper case, no spaces, hyphens or parentheses.
+
+    ``"R-1234ze(E)"`` → ``"R1234ZEE"``; ``"r448a"`` → ``"R448A"``.
+    """
+    return re.sub(r"[\s\-_()]", "", name).upper()
+
+
+# Explicit extra spellings (never a fuzzy guess): chemical names and the short
+# form "R1234ZE" that the trade uses for the (E) isomer.
+_ALIASES: dict[str, str] = {
+    "R1234ZE": "R-1234ze(E)",
+    "HFO1234ZEE": "R-1234ze(E)",
+    "HFO1234YF": "R-1234yf",
+    "PROPANE": "R-290",
+    "ISOBUTANE": "R-600a",
+    "AMMONIA": "R-717",
+    "NH3": "R-717",
+    "CO2": "R-744",
+    "CARBONDIOXIDE": "R-744",
+}
+
+_INDEX: dict[str, RefrigerantInfo] = {_key(info.name): info for info in CATALOGUE}
+_INDEX.update({alias: _BY_NAME[target] for alias, target in _ALIASES.items()})
+
+
+def names() -> tuple[str, ...]:
+    """All catalogue names in listing order.
+
+    Examples
+    --------
+    >>> "R-744" in names()
+    True
+    """
+    return tuple(info.name for info in CATALOGUE)
+
+
+def lookup(name: str) -> RefrigerantInfo:
+    """Find a refrigerant by name.
+
+    Normalisation (documented, exact after it): case-insensitive; spaces,
+    hyphens, underscores and parentheses ignored, so ``R448A``, ``R-448A``,
+    ``r448a`` and ``R-1234ze(E)`` / ``R1234ZEE`` all match; plus the aliases
+    ``R1234ZE`` (the (E) isomer), ``propane``, ``isobutane``, ``ammonia``/``NH3``,
+    ``CO2``.
+
+    Parameters
+    ----------
+    name : str
+        Refrigerant designation.
+
+    Returns
+    -------
+    RefrigerantInfo
+
+    Raises
+    ------
+    coldroom.errors.LookupNameError
+        Unknown name; the message lists the closest valid names.
+
+    Examples
+    --------
+    >>> lookup("R-290").coolprop_name
+    'n-Propane'
+    >>> lookup("R999")
+    Traceback (most recent call last):
+    ...
+    coldroom.errors.LookupNameError: unknown refrigerant 'R999'...
+    """
+    if isinstance(name, RefrigerantInfo):
+        return name
+    info = _INDEX.get(_key(str(name)))
+    if info is None:
+        raise errors.unknown_name("refrigerant", str(name), names())
+    return info
