@@ -39,7 +39,7 @@ Examples
 >>> round(fluid.dew_pressure(0.0) / 1e3, 1)          # kPa at 0 °C
 292.8
 >>> round(fluid.bubble_temperature(1e6), 2)           # °C at 1 MPa
-39.37
+39.39
 """
 
 from __future__ import annotations
