@@ -292,11 +292,138 @@ def search_products(text: str | None = None) -> list[Product]:
     return hits
 
 
+#: Lowest recommended storage temperature at or above which a fresh product is
+#: treated as chilling-sensitive [°C] (tropical/subtropical produce stored at
+#: 7 °C or warmer; common practice, no source [trade]).
+CHILLING_SENSITIVE_FROM = 7.0
+
+
+def storage_warnings(
+    product: Product, room_temperature: float, room_humidity: float | None = None
+) -> list[str]:
+    """Advice when a room's conditions do not suit a product.
+
+    Checks the recommended storage range (temperature and RH) of the table,
+    freezing damage of a fresh product below its initial freezing point, and
+    chilling injury of chilling-sensitive produce (recommended low end ≥ 7 °C,
+    common practice, no source) held below its range.
+
+    Parameters
+    ----------
+    product : Product
+        From :func:`get_product`.
+    room_temperature : float
+        Room air temperature [°C].
+    room_humidity : float, optional
+        Room relative humidity [%] (0–100); not checked if None.
+
+    Returns
+    -------
+    list of str
+        One sentence per finding; empty if the room suits the product.
+
+    Examples
+    --------
+    >>> storage_warnings(get_product("bananas"), 2.0)[0]
+    'Bananas (green, ripening): room 2 °C is below the recommended 13 … 14 °C — chilling injury risk'
+    >>> storage_warnings(get_product("apples"), 0.0, 92.0)
+    []
+    """
+    low, high = product.storage_temperature
+    t = room_temperature
+    out: list[str] = []
+    if product.is_fresh and t < product.freezing_point:
+        out.append(
+            f"{product.name}: room {t:g} °C is below the product's initial freezing point "
+            f"{product.freezing_point:g} °C — freezing damage to a fresh product"
+        )
+    elif t < low:
+        why = ""
+        if product.is_fresh and low >= CHILLING_SENSITIVE_FROM:
+            why = " — chilling injury risk"
+        out.append(f"{product.name}: room {t:g} °C is below the recommended {low:g} … {high:g} °C{why}")
+    if t > high:
+        why = " — the product will not stay frozen" if not product.is_fresh and t > product.freezing_point else ""
+        out.append(
+            f"{product.name}: room {t:g} °C is above the recommended {low:g} … {high:g} °C — "
+            f"shorter storage life{why}"
+        )
+    if room_humidity is not None and product.storage_humidity is not None:
+        rh_low, rh_high = product.storage_humidity
+        if room_humidity < rh_low:
+            out.append(
+                f"{product.name}: room RH {room_humidity:g} % is below the recommended "
+                f"{rh_low:g} … {rh_high:g} % — weight loss and wilting/drying"
+            )
+        elif room_humidity > rh_high:
+            out.append(
+                f"{product.name}: room RH {room_humidity:g} % is above the recommended "
+                f"{rh_low:g} … {rh_high:g} % — mould and surface-moisture risk"
+            )
+    return out
+
+
+def mix_warnings(products: list[Product] | tuple[Product, ...]) -> list[str]:
+    """Advice on products stored together in one room.
+
+    Flags pairs whose recommended temperature ranges do not overlap, pairs
+    whose recommended RH ranges do not overlap, and ethylene-sensitive
+    products stored with ethylene producers (USDA Agriculture Handbook 66
+    compatibility guidance [mem]).
+
+    Parameters
+    ----------
+    products : list of Product
+        The products sharing the room (duplicates ignored).
+
+    Returns
+    -------
+    list of str
+
+    Examples
+    --------
+    >>> mix_warnings([get_product("apples"), get_product("lettuce")])[-1]
+    'Lettuce, iceberg (ethylene-sensitive) stored with ethylene producers: Apples'
+    >>> mix_warnings([get_product("bananas"), get_product("strawberries")])[0]
+    'Bananas (green, ripening) (13 … 14 °C) and Strawberries (0 … 0.5 °C): recommended temperature ranges do not overlap'
+    """
+    unique: list[Product] = []
+    for p in products:
+        if p.key not in {u.key for u in unique}:
+            unique.append(p)
+    out: list[str] = []
+    for i, a in enumerate(unique):
+        for b in unique[i + 1 :]:
+            (a_lo, a_hi), (b_lo, b_hi) = a.storage_temperature, b.storage_temperature
+            if a_hi < b_lo or b_hi < a_lo:
+                out.append(
+                    f"{a.name} ({a_lo:g} … {a_hi:g} °C) and {b.name} ({b_lo:g} … {b_hi:g} °C): "
+                    "recommended temperature ranges do not overlap"
+                )
+            if a.storage_humidity and b.storage_humidity:
+                (ar_lo, ar_hi), (br_lo, br_hi) = a.storage_humidity, b.storage_humidity
+                if ar_hi < br_lo or br_hi < ar_lo:
+                    out.append(
+                        f"{a.name} ({ar_lo:g} … {ar_hi:g} % RH) and {b.name} ({br_lo:g} … {br_hi:g} % RH): "
+                        "recommended humidity ranges do not overlap"
+                    )
+    producers = [p for p in unique if p.ethylene == "producer"]
+    for p in unique:
+        if p.ethylene == "sensitive":
+            others = [q.name for q in producers if q.key != p.key]
+            if others:
+                out.append(f"{p.name} (ethylene-sensitive) stored with ethylene producers: {', '.join(others)}")
+    return out
+
+
 __all__ = [
     "CATEGORIES",
     "Product",
     "ProductTableError",
+    "CHILLING_SENSITIVE_FROM",
     "get_product",
+    "mix_warnings",
+    "storage_warnings",
     "load_products",
     "normalise_name",
     "product_keys",
