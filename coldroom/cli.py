@@ -155,6 +155,37 @@ def new_command(
     guarded(run)
 
 
+# --- products (product table listing) ---------------------------------------
+
+
+@app.command("products")
+def products_command(
+    text: Optional[str] = typer.Argument(
+        None, help="Search text: substring of key, name, alias or category (all products if omitted)."
+    ),
+) -> None:
+    """List or search the product table: freezing point, storage temperature and RH."""
+
+    def run() -> None:
+        from coldroom.data.products import search_products
+
+        found = search_products(text)
+        if not found:
+            print(f"no product matches {text!r}", file=sys.stderr)
+            raise typer.Exit(code=1)
+        header = ("key", "name", "category", "t_f °C", "storage °C", "RH %")
+        rows = []
+        for p in found:
+            lo, hi = p.storage_temperature
+            rh = "-" if p.storage_humidity is None else f"{p.storage_humidity[0]:g}-{p.storage_humidity[1]:g}"
+            rows.append((p.key, p.name, p.category, f"{p.freezing_point:g}", f"{lo:g} … {hi:g}", rh))
+        widths = [max(len(str(r[i])) for r in (header, *rows)) for i in range(len(header))]
+        for row in (header, *rows):
+            print("  ".join(str(c).ljust(w) for c, w in zip(row, widths)).rstrip())
+
+    guarded(run)
+
+
 def main() -> None:
     """Console-script entry point.
 
