@@ -349,6 +349,12 @@ class Door(Strict):
     open_time: Q("time", si="min", ip="min", ge=0.0, le=86400.0) = 0.0  # type: ignore[valid-type]
     protection: Literal["none", "strip_curtain", "air_curtain", "vestibule"] = "none"
     effectiveness: Optional[Fraction] = None
+    other_side_temperature: Optional[OutdoorTemperature] = Field(
+        default=None, description="Air temperature beyond the door (a corridor, an anteroom); default outdoors."
+    )
+    other_side_rh: Optional[RelativeHumidity] = Field(
+        default=None, description="Relative humidity beyond the door; default the outdoor design RH."
+    )
 
 
 class Infiltration(Strict):
@@ -411,7 +417,7 @@ class Product(Strict):
         if self.product is not None:
             from coldroom.data import products
 
-            products.lookup(self.product)
+            products.get_product(self.product)
         if self.daily_intake > 0 and (self.entering_temperature is None or self.final_temperature is None):
             raise ValueError("a daily_intake needs entering_temperature and final_temperature")
         return self
@@ -486,6 +492,148 @@ class Refrigeration(Strict):
     clearance: float = Field(default=0.04, ge=0.0, le=0.2)
 
 
+# --- existing unit (checked by coldroom.equipment) -------------------------------------------
+# BEGIN existing-unit block. Models for an installed condensing unit whose capacity is checked at
+# the room's new conditions (``coldroom check``). Rating temperatures are saturated DEW points.
+
+
+class RatedPoint(Strict):
+    """A unit known by one rated point (nameplate or catalogue line).
+
+    The rated capacity is taken as the compressor's refrigerating capacity at
+    the rating superheat and subcooling, ṁ·(h_suction gas − h_liquid) (EN 12900
+    convention [mem]). Give the rating suction state as ``superheat`` or
+    ``suction_gas_temperature`` (not both; default 10 K superheat, EN 12900 [mem]).
+    """
+
+    capacity: Q("power", gt=0.0, le=1e6)  # type: ignore[valid-type]
+    evaporating_temperature: Q("temperature", ge=-60.0, le=20.0)  # type: ignore[valid-type]
+    condensing_temperature: Q("temperature", ge=10.0, le=70.0)  # type: ignore[valid-type]
+    superheat: Optional[Q("temperature_difference", ge=0.0, le=40.0)] = None  # type: ignore[valid-type]
+    suction_gas_temperature: Optional[Q("temperature", ge=-50.0, le=40.0)] = None  # type: ignore[valid-type]
+    subcooling: Q("temperature_difference", ge=0.0, le=30.0) = 0.0  # type: ignore[valid-type]
+    power: Optional[Q("power", gt=0.0, le=1e6)] = None  # type: ignore[valid-type]
+    swept_volume: Optional[Q("volume_flow", gt=0.0, le=1.0)] = None  # type: ignore[valid-type]
+
+    @model_validator(mode="after")
+    def _check(self) -> "RatedPoint":
+        if self.superheat is not None and self.suction_gas_temperature is not None:
+            raise ValueError("give the rating superheat or the suction_gas_temperature, not both")
+        if self.evaporating_temperature >= self.condensing_temperature:
+            raise ValueError("the rating evaporating temperature must lie below the condensing temperature")
+        if self.suction_gas_temperature is not None and self.suction_gas_temperature < self.evaporating_temperature:
+            raise ValueError("the suction_gas_temperature lies below the rating evaporating temperature")
+        return self
+
+    @property
+    def rating_superheat(self) -> float:
+        """Superheat at the compressor inlet at rating [K] (10 K when neither is given, EN 12900 [mem])."""
+        if self.suction_gas_temperature is not None:
+            return self.suction_gas_temperature - self.evaporating_temperature
+        return 10.0 if self.superheat is None else self.superheat
+
+
+PolynomialCoefficients = Annotated[list[float], Field(min_length=10, max_length=10)]
+
+
+class CompressorPolynomial(Strict):
+    """AHRI 540 / EN 12900 ten-coefficient polynomials of a compressor [pub].
+
+    X = C1 + C2·S + C3·D + C4·S² + C5·S·D + C6·D² + C7·S³ + C8·D·S² + C9·S·D² + C10·D³,
+    S and D the suction and discharge dew points. ``units`` names the units the
+    coefficients were fitted in: ``SI`` = °C, capacity W, power W, mass flow kg/h;
+    ``IP`` = °F, capacity Btu/h, power W, mass flow lb/h (AHRI 540 practice [mem]).
+    The envelope (``suction_min`` … ``discharge_max``) is read like every
+    temperature in the file (a bare number in the project's unit system).
+    """
+
+    units: Literal["SI", "IP"] = "SI"
+    capacity: PolynomialCoefficients
+    power: PolynomialCoefficients
+    mass_flow: Optional[PolynomialCoefficients] = None
+    superheat: Optional[Q("temperature_difference", ge=0.0, le=40.0)] = None  # type: ignore[valid-type]
+    return_gas_temperature: Optional[Q("temperature", ge=-50.0, le=40.0)] = None  # type: ignore[valid-type]
+    subcooling: Q("temperature_difference", ge=0.0, le=30.0) = 0.0  # type: ignore[valid-type]
+    suction_min: Q("temperature", ge=-60.0, le=30.0)  # type: ignore[valid-type]
+    suction_max: Q("temperature", ge=-60.0, le=30.0)  # type: ignore[valid-type]
+    discharge_min: Q("temperature", ge=0.0, le=80.0)  # type: ignore[valid-type]
+    discharge_max: Q("temperature", ge=0.0, le=80.0)  # type: ignore[valid-type]
+    density_correction_factor: float = Field(
+        default=0.75,
+        ge=0.0,
+        le=1.0,
+        description="F in ṁ = ṁ_rated·[1 + F·(ρ/ρ_rated − 1)]; 1 is ṁ ∝ ρ_suction, 0.75 Rice & Dabiri [pub].",
+    )
+
+    @field_validator("capacity", "power", "mass_flow")
+    @classmethod
+    def _finite(cls, value: Optional[list[float]]) -> Optional[list[float]]:
+        import math
+
+        if value is not None and not all(math.isfinite(c) for c in value):
+            raise ValueError("polynomial coefficients must be finite numbers")
+        return value
+
+    @model_validator(mode="after")
+    def _check(self) -> "CompressorPolynomial":
+        if self.superheat is not None and self.return_gas_temperature is not None:
+            raise ValueError("give the rating superheat or the return_gas_temperature, not both")
+        if self.superheat is None and self.return_gas_temperature is None:
+            raise ValueError(
+                "give the polynomials' rating superheat (EN 12900: 10 K) or return_gas_temperature "
+                "(AHRI 540: 65 °F)"
+            )
+        if self.suction_min >= self.suction_max:
+            raise ValueError("suction_min must lie below suction_max")
+        if self.discharge_min >= self.discharge_max:
+            raise ValueError("discharge_min must lie below discharge_max")
+        if self.suction_max >= self.discharge_max:
+            raise ValueError("the suction envelope must lie below the discharge envelope")
+        return self
+
+
+class UnitCoolerRating(Strict):
+    """The evaporator (unit cooler): rated capacity at DT1 = air on − evaporating dew (EN 328 [mem])."""
+
+    capacity: Q("power", gt=0.0, le=1e6)  # type: ignore[valid-type]
+    dt1: Q("temperature_difference", gt=0.0, le=30.0)  # type: ignore[valid-type]
+
+
+class CondenserRating(Strict):
+    """The air-cooled condenser: rated heat rejection at ΔT = SCT − entering air [trade]."""
+
+    heat_rejection: Q("power", gt=0.0, le=1e6)  # type: ignore[valid-type]
+    temperature_difference: Q("temperature_difference", gt=0.0, le=40.0)  # type: ignore[valid-type]
+
+
+class ExistingUnit(Strict):
+    """An installed unit to check at the room's new conditions (see :mod:`coldroom.equipment`).
+
+    Give the compressor as ``rated_point`` or ``polynomial`` (exactly one);
+    ``unit_cooler`` and ``condenser`` are optional — without them the sizing
+    TDs fix the evaporating and condensing temperatures.
+    """
+
+    name: str = Field(default="existing unit", max_length=100)
+    refrigerant: str
+    rated_point: Optional[RatedPoint] = None
+    polynomial: Optional[CompressorPolynomial] = None
+    unit_cooler: Optional[UnitCoolerRating] = None
+    condenser: Optional[CondenserRating] = None
+
+    @model_validator(mode="after")
+    def _check(self) -> "ExistingUnit":
+        if (self.rated_point is None) == (self.polynomial is None):
+            raise ValueError("describe the existing unit's compressor by rated_point or polynomial (exactly one)")
+        from coldroom.data import refrigerants
+
+        refrigerants.lookup(self.refrigerant)  # raises LookupNameError listing close names
+        return self
+
+
+# END existing-unit block
+
+
 # --- room and project ---------------------------------------------------------------------------
 
 
@@ -509,7 +657,7 @@ class Room(Strict):
     safety_factor: Q("fraction", ge=0.0, le=1.0) = 0.10  # type: ignore[valid-type]
     run_hours: Optional[Q("time", si="h", ip="h", ge=3600.0, le=86400.0)] = None  # type: ignore[valid-type]
     refrigeration: Refrigeration = Refrigeration()
-    existing_unit: Optional[dict[str, Any]] = Field(
+    existing_unit: Optional[ExistingUnit] = Field(
         default=None, description="An installed unit to check (see coldroom.equipment)."
     )
 

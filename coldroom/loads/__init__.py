@@ -158,8 +158,10 @@ def infiltration_lines(model: "ProjectModel", room: "Room") -> list[LoadLine]:
             door_height=door.height,
             room_temperature=room.temperature,
             room_relative_humidity=room.rh,
-            outside_temperature=design.outdoor_temperature,
-            outside_relative_humidity=rh_out,
+            outside_temperature=(
+                door.other_side_temperature if door.other_side_temperature is not None else design.outdoor_temperature
+            ),
+            outside_relative_humidity=door.other_side_rh if door.other_side_rh is not None else rh_out,
             passages_per_day=door.passages_per_day,
             passage_time=door.passage_time,
             standing_open_time=door.open_time,
