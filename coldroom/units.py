@@ -460,6 +460,8 @@ def display(value_si: float, kind: str, system: str = "SI", digits: int | None =
     --------
     >>> display(2.0, "temperature", "IP")
     '35.6 °F'
+    >>> display(2.0, "temperature")
+    '2.0 °C'
     >>> display(7033.7, "power_large", "IP")
     '2.00 TR'
     >>> display(0.1, "thickness")
@@ -467,6 +469,8 @@ def display(value_si: float, kind: str, system: str = "SI", digits: int | None =
     """
     unit = DISPLAY_UNITS[system][kind]
     base = _DISPLAY_KIND.get(kind, kind)
+    if digits is None and base in ("temperature", "temperature_difference"):
+        digits = 1
     if base == "mass_flow":
         value = value_si if unit == "kg/s" else value_si * 3600.0 / POUND
     else:

@@ -181,6 +181,67 @@ def infiltration_lines(model: "ProjectModel", room: "Room") -> list[LoadLine]:
     return lines
 
 
+def _product_loads(room: "Room") -> list:
+    """One :class:`coldroom.loads.product.ProductLoad` per product entry of *room*."""
+    from coldroom.data.products import get_product
+    from coldroom.loads.product import explicit_properties, product_load
+
+    out = []
+    for item in room.products:
+        if item.product is not None:
+            table = get_product(item.product)
+            properties, respiration, label = table.properties(), table.respiration, table.name
+        else:
+            q = item.properties
+            assert q is not None
+            properties = explicit_properties(
+                q.freezing_point, q.water_content, q.specific_heat_above, q.specific_heat_below, q.latent_heat
+            )
+            respiration, label = None, "product (given properties)"
+        pack = item.packaging
+        material = pack.material if pack is not None and pack.material != "other" else "corrugated_board"
+        out.append(
+            product_load(
+                label,
+                properties,
+                item.daily_intake,
+                item.entering_temperature,
+                item.final_temperature,
+                item.pulldown_time,
+                pack.mass if pack is not None else 0.0,
+                material,
+                pack.specific_heat if pack is not None else None,
+                item.stored_mass,
+                room.temperature,
+                respiration,
+            )
+        )
+    return out
+
+
+def product_lines(model: "ProjectModel", room: "Room") -> list[LoadLine]:
+    """Product pull-down (sensible, latent, sensible below freezing), packaging and respiration."""
+    lines = []
+    for item, load in zip(room.products, _product_loads(room)):
+        basis = ""
+        if item.daily_intake > 0:
+            basis = (
+                f"{item.daily_intake:.0f} kg/day, {item.entering_temperature:.1f} → {item.final_temperature:.1f} °C"
+                f" in {item.pulldown_time / 3600:g} h"
+            )
+        for what, energy in load.lines():
+            extra = basis
+            if what.endswith("respiration"):
+                extra = f"{item.stored_mass:.0f} kg stored at {room.temperature:.1f} °C"
+            lines.append(LoadLine("product", what, energy, extra))
+    return lines
+
+
+def product_peak(model: "ProjectModel", room: "Room") -> float:
+    """Product at its pull-down rate plus respiration [W] (the rate during the pull-down)."""
+    return sum(load.pulldown_rate for load in _product_loads(room))
+
+
 def internal_lines(model: "ProjectModel", room: "Room") -> list[LoadLine]:
     """People, lighting, forklifts and equipment (internal); fans, heaters and defrost (equipment)."""
     from coldroom.loads import internal
@@ -294,8 +355,6 @@ def room_loads(model: "ProjectModel", room: "Room") -> RoomLoads:
     RoomLoads
         Every line, the safety factor, run time and the peak-hour load [W].
     """
-    from coldroom.loads.product_glue import product_lines, product_peak
-
     lines: list[LoadLine] = []
     lines += transmission_lines(model, room)
     lines += product_lines(model, room)
