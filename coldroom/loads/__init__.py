@@ -237,6 +237,19 @@ def product_lines(model: "ProjectModel", room: "Room") -> list[LoadLine]:
     return lines
 
 
+def storage_advice(room: "Room") -> list[str]:
+    """Storage warnings for the named products: room outside their range, or an unsuitable mix."""
+    from coldroom.data.products import get_product, mix_warnings, storage_warnings
+
+    named = [get_product(item.product) for item in room.products if item.product is not None]
+    out: list[str] = []
+    for product in dict.fromkeys(named):
+        out += storage_warnings(product, room.temperature, room.rh * 100.0)
+    if len(named) > 1:
+        out += mix_warnings(named)
+    return list(dict.fromkeys(out))
+
+
 def product_peak(model: "ProjectModel", room: "Room") -> float:
     """Product at its pull-down rate plus respiration [W] (the rate during the pull-down)."""
     return sum(load.pulldown_rate for load in _product_loads(room))
@@ -365,7 +378,7 @@ def room_loads(model: "ProjectModel", room: "Room") -> RoomLoads:
         line.daily_energy for line in lines if line.component in ("transmission", "infiltration")
     ) / DAY
     peak = steady + product_peak(model, room) + internal_peak(model, room)
-    warnings: list[str] = []
+    warnings = storage_advice(room)
     return RoomLoads(
         name=room.name,
         lines=tuple(lines),
