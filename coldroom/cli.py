@@ -186,6 +186,111 @@ def products_command(
     guarded(run)
 
 
+# --- size (loads + cycle per room → PDF sizing sheet and JSON) ---------------------------
+
+
+def _size_summary(result, model) -> str:  # type: ignore[no-untyped-def]
+    """The terminal summary of ``coldroom size`` (presents the result, computes nothing)."""
+    from coldroom.report.text import capacity, q, temperature
+
+    s = result.unit_system
+    lines = [f"{result.project_name}  ({result.date}, {s} units)"]
+    for room, room_in in zip(result.rooms, model.rooms):
+        loads = room.loads
+        lines.append("")
+        lines.append(f"{room.name}  ({temperature(room_in.temperature, s)}, {room_in.rh:.0%} RH)")
+        lines.append(
+            f"  required capacity   {capacity(loads.required_capacity, s)} (24 h)   "
+            f"design {capacity(loads.design_capacity, s)} (set by the {loads.governed_by})"
+        )
+        lines.append(
+            f"  evaporating / condensing (dew)   {temperature(room.evaporating_temperature, s)} / "
+            f"{temperature(room.condensing_temperature, s)}   condenser air {temperature(room.condenser_air_temperature, s)}"
+        )
+        if room.cycle is not None:
+            c = room.cycle.to_json()
+            lines.append(
+                f"  {c['refrigerant']}: mass flow {q(c['mass_flow_kg_s'], 'mass_flow', s)}   "
+                f"displacement {q(c['displacement_m3_h'] / 3600.0, 'volume_flow', s)}   "
+                f"compressor power {capacity(c['compressor_power_w'], s)}"
+            )
+            lines.append(
+                f"  heat of rejection {capacity(c['condenser_duty_w'], s)}   COP {c['cop']:.2f}   "
+                f"discharge {temperature(c['discharge_temperature_c'], s)}"
+            )
+        for message in list(loads.warnings) + list(room.warnings):
+            lines.append(f"  warning: {message}")
+    for message in result.warnings:
+        lines.append(f"warning: {message}")
+    return "\n".join(lines)
+
+
+@app.command("size")
+def size_command(
+    project: str = typer.Argument(..., help="Project file (YAML)."),
+    out: Optional[str] = typer.Option(
+        None, "--out", help="PDF sizing sheet to write (default: PROJECT.pdf beside the input).", metavar="FILE.pdf"
+    ),
+    json_out: Optional[str] = typer.Option(
+        None, "--json", help="Also write the result as JSON to FILE ('-' for stdout).", metavar="FILE"
+    ),
+    force: bool = typer.Option(False, "--force", help="Overwrite existing output files."),
+) -> None:
+    """Size every room: loads, design temperatures, cycle; write the PDF sizing sheet (and JSON)."""
+
+    def run() -> None:
+        import json
+        import os
+        from pathlib import Path
+
+        from coldroom.errors import OutputError, ProjectFileError
+        from coldroom.output import write_atomic
+        from coldroom.projectfile import parse_project_text
+
+        source = Path(project)
+        try:
+            raw = source.read_bytes()
+        except FileNotFoundError:
+            raise ProjectFileError("no such file", file=project) from None
+        except IsADirectoryError:
+            raise ProjectFileError("is a directory, not a project file", file=project) from None
+        except OSError as exc:
+            raise ProjectFileError(f"cannot read: {exc.strerror}", file=project) from None
+        pdf_path = Path(out) if out else source.with_suffix(".pdf")
+        to_stdout = json_out == "-"
+        targets = [pdf_path] + ([Path(json_out)] if json_out and not to_stdout else [])
+        # refuse early, before the slow part, what write_atomic would refuse at the end
+        if len(targets) == 2 and os.path.abspath(targets[0]) == os.path.abspath(targets[1]):
+            raise OutputError(f"{pdf_path}: --out and --json name the same file")
+        for target in targets:
+            if os.path.abspath(target) == os.path.abspath(source) or (
+                target.exists() and source.exists() and os.path.samefile(target, source)
+            ):
+                raise OutputError(f"{target}: refusing to write over the input file {project}")
+            if (target.exists() or target.is_symlink()) and not force:
+                raise OutputError(f"{target} already exists; pass --force to overwrite it")
+
+        model = parse_project_text(raw, filename=project)
+        from coldroom.report.sheet import render_sheet  # reportlab, lazily
+        from coldroom.sizing import size_project  # CoolProp, lazily
+
+        result = size_project(model, project, raw)
+        pdf = render_sheet(result, model)
+        text = json.dumps(result.to_json(), indent=2, ensure_ascii=False) + "\n"
+        console = sys.stderr if to_stdout else sys.stdout
+        print(_size_summary(result, model), file=console)
+        write_atomic(pdf_path, pdf, force=force, inputs=[project])
+        print(f"wrote {pdf_path}", file=console)
+        if to_stdout:
+            sys.stdout.write(text)
+            sys.stdout.flush()
+        elif json_out:
+            write_atomic(json_out, text, force=force, inputs=[project])
+            print(f"wrote {json_out}", file=console)
+
+    guarded(run)
+
+
 def main() -> None:
     """Console-script entry point.
 

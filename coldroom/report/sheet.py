@@ -1,0 +1,785 @@
+"""The PDF sizing sheet: a layout of our own, one function per section.
+
+The sheet presents a :class:`coldroom.results.ProjectResult` and echoes the
+project's own inputs (room temperature and RH, refrigerant catalogue entry);
+it computes nothing new. Every number carries its unit in the project's unit
+system (SI: A4 paper; IP: US Letter).
+
+Adding a section
+----------------
+Write ``def my_section(ctx: SheetContext, index: int) -> list`` returning
+reportlab flowables for room *index* (an empty list when it has nothing to
+show, e.g. ``ctx.result.rooms[index].check is None``), and insert it into
+:data:`ROOM_SECTIONS` where it belongs. Project-wide sections take only
+``ctx`` and go into :data:`PROJECT_SECTIONS`. Use :func:`heading`,
+:func:`grid` and :func:`note` so the section looks like the others.
+
+Determinism: the canvas runs with ``invariant=1`` and a fixed creation date
+(the sheet's date at 00:00 UTC), so the same input gives the same bytes.
+"""
+
+from __future__ import annotations
+
+import io
+from dataclasses import dataclass, field
+from typing import Any, Callable, Optional, Sequence
+
+from reportlab.lib import colors
+from reportlab.lib.enums import TA_LEFT
+from reportlab.lib.pagesizes import A4, LETTER
+from reportlab.lib.styles import ParagraphStyle
+from reportlab.lib.units import mm
+from reportlab.pdfgen.canvas import Canvas
+from reportlab.platypus import (
+    BaseDocTemplate,
+    CondPageBreak,
+    Frame,
+    KeepTogether,
+    PageBreak,
+    PageTemplate,
+    Paragraph,
+    Spacer,
+    Table,
+    TableStyle,
+)
+
+from coldroom.report.charts import INK, MUTED, RULE, BarChart
+from coldroom.report.text import capacity, clean, esc, q, temperature
+
+ACCENT = colors.HexColor("#4F6D8A")
+BAND = colors.HexColor("#EEF2F5")
+SOFT = colors.HexColor("#F7F8FA")
+WARN = colors.HexColor("#9A5B2E")
+WARN_BG = colors.HexColor("#FBF4EC")
+
+COMPONENT_LABELS = {
+    "transmission": "Transmission (walls, ceiling, floor)",
+    "product": "Product and packaging",
+    "infiltration": "Infiltration (doors, air changes)",
+    "internal": "Internal (people, lights, trucks)",
+    "equipment": "Equipment (fans, heaters, defrost)",
+}
+
+STATE_NAMES = (
+    "1  compressor suction",
+    "2  compressor discharge",
+    "3  condenser outlet",
+    "4  evaporator inlet",
+)
+
+# --- styles ---------------------------------------------------------------------------------
+
+BODY = ParagraphStyle("body", fontName="Helvetica", fontSize=8.5, leading=11, textColor=INK, alignment=TA_LEFT)
+SMALL = ParagraphStyle("small", parent=BODY, fontSize=7.5, leading=9.5)
+TINY = ParagraphStyle("tiny", parent=BODY, fontSize=6.8, leading=8.4, textColor=MUTED)
+CELL = ParagraphStyle("cell", parent=BODY, fontSize=8, leading=10)
+CELL_SMALL = ParagraphStyle("cellsmall", parent=BODY, fontSize=7.2, leading=9)
+H1 = ParagraphStyle("h1", parent=BODY, fontName="Helvetica-Bold", fontSize=16, leading=20, textColor=INK)
+H2 = ParagraphStyle("h2", parent=BODY, fontName="Helvetica-Bold", fontSize=12.5, leading=16, textColor=ACCENT,
+                    spaceBefore=2, spaceAfter=4)
+H3 = ParagraphStyle("h3", parent=BODY, fontName="Helvetica-Bold", fontSize=9.5, leading=12, textColor=INK,
+                    spaceBefore=8, spaceAfter=3)
+FIGURE = ParagraphStyle("figure", parent=BODY, fontName="Helvetica-Bold", fontSize=12, leading=14, textColor=INK)
+LABEL = ParagraphStyle("label", parent=BODY, fontSize=7, leading=8.5, textColor=MUTED)
+
+
+@dataclass
+class SheetContext:
+    """What every section reads.
+
+    Attributes
+    ----------
+    result : ProjectResult
+    model : ProjectModel or None
+        The project (for echoing inputs: room temperature and RH).
+    system : str
+        ``"SI"`` or ``"IP"``.
+    width : float
+        Usable frame width [pt].
+    cache : dict
+        Per-render scratch space (diagram data).
+    """
+
+    result: Any
+    model: Any
+    system: str
+    width: float
+    cache: dict = field(default_factory=dict)
+
+    def room_input(self, index: int) -> Any:
+        if self.model is None:
+            return None
+        return self.model.rooms[index]
+
+
+# --- building blocks -----------------------------------------------------------------------
+
+
+def heading(text: str, style: ParagraphStyle = H3) -> Paragraph:
+    """A section heading."""
+    return Paragraph(esc(text), style)
+
+
+def note(text: str, style: ParagraphStyle = SMALL) -> Paragraph:
+    """A paragraph of plain text (escaped)."""
+    return Paragraph(esc(text), style)
+
+
+def grid(
+    rows: Sequence[Sequence[Any]],
+    widths: Sequence[float],
+    header: bool = True,
+    align_right: Sequence[int] = (),
+    total_rows: Sequence[int] = (),
+    style: ParagraphStyle = CELL,
+) -> Table:
+    """A table in the sheet's style: header band, light rules, right-aligned number columns.
+
+    Plain strings are wrapped into paragraphs so long text breaks inside its cell.
+    """
+    right = ParagraphStyle("r", parent=style, alignment=2)
+    bold = ParagraphStyle("b", parent=style, fontName="Helvetica-Bold")
+    bold_right = ParagraphStyle("br", parent=right, fontName="Helvetica-Bold")
+    data = []
+    for r, row in enumerate(rows):
+        cells = []
+        for col, cell in enumerate(row):
+            if isinstance(cell, str):
+                strong = (header and r == 0) or r in total_rows
+                if col in align_right:
+                    st = bold_right if strong else right
+                else:
+                    st = bold if strong else style
+                cells.append(Paragraph(esc(cell), st))
+            else:
+                cells.append(cell)
+        data.append(cells)
+    table = Table(data, colWidths=list(widths), repeatRows=1 if header else 0, hAlign="LEFT")
+    commands = [
+        ("VALIGN", (0, 0), (-1, -1), "TOP"),
+        ("LEFTPADDING", (0, 0), (-1, -1), 4),
+        ("RIGHTPADDING", (0, 0), (-1, -1), 4),
+        ("TOPPADDING", (0, 0), (-1, -1), 2.2),
+        ("BOTTOMPADDING", (0, 0), (-1, -1), 2.2),
+        ("LINEBELOW", (0, 0), (-1, -1), 0.35, RULE),
+    ]
+    if header:
+        commands += [("BACKGROUND", (0, 0), (-1, 0), BAND), ("LINEBELOW", (0, 0), (-1, 0), 0.8, ACCENT)]
+    for r in total_rows:
+        commands += [("BACKGROUND", (0, r), (-1, r), SOFT), ("LINEABOVE", (0, r), (-1, r), 0.8, MUTED)]
+    table.setStyle(TableStyle(commands))
+    return table
+
+
+def figure_boxes(ctx: SheetContext, items: Sequence[tuple[str, str, str]]) -> Table:
+    """A band of key figures: (label, figure, subtext) per box."""
+    cells = [
+        [Paragraph(esc(label), LABEL), Paragraph(esc(figure), FIGURE), Paragraph(esc(sub), TINY)]
+        for label, figure, sub in items
+    ]
+    n = len(items)
+    table = Table([cells], colWidths=[ctx.width / n] * n, hAlign="LEFT")
+    table.setStyle(
+        TableStyle(
+            [
+                ("BACKGROUND", (0, 0), (-1, -1), BAND),
+                ("LINEBEFORE", (1, 0), (-1, -1), 2.5, colors.white),
+                ("VALIGN", (0, 0), (-1, -1), "TOP"),
+                ("LEFTPADDING", (0, 0), (-1, -1), 7),
+                ("TOPPADDING", (0, 0), (-1, -1), 5),
+                ("BOTTOMPADDING", (0, 0), (-1, -1), 6),
+            ]
+        )
+    )
+    return table
+
+
+def _room_cycle(ctx: SheetContext, index: int) -> Optional[dict]:
+    room = ctx.result.rooms[index]
+    if room.cycle is None:
+        return None
+    key = ("cycle", index)
+    if key not in ctx.cache:
+        ctx.cache[key] = room.cycle.to_json()
+    return ctx.cache[key]
+
+
+def _room_json(ctx: SheetContext, index: int) -> dict:
+    key = ("room", index)
+    if key not in ctx.cache:
+        ctx.cache[key] = ctx.result.rooms[index].to_json()
+    return ctx.cache[key]
+
+
+def _room_conditions(ctx: SheetContext, index: int) -> str:
+    room = ctx.room_input(index)
+    if room is None:
+        return ""
+    return f"{temperature(room.temperature, ctx.system)}, {room.rh:.0%} RH"
+
+
+# --- project sections ------------------------------------------------------------------------
+
+
+def title_section(ctx: SheetContext) -> list:
+    """Title and the project block: project, client, site, date, prepared by, input file."""
+    r = ctx.result
+    rows = [
+        ["Project", r.project_name, "Date", r.date],
+        ["Client", r.client or "–", "Prepared by", r.prepared_by or "–"],
+        ["Site", r.site or "–", "Input file", r.input_file],
+    ]
+    label = ParagraphStyle("lab", parent=CELL, textColor=MUTED)
+    data = [
+        [Paragraph(esc(a), label), Paragraph(esc(b), CELL), Paragraph(esc(c), label), Paragraph(esc(d), CELL)]
+        for a, b, c, d in rows
+    ]
+    w = ctx.width
+    table = Table(data, colWidths=[0.12 * w, 0.46 * w, 0.14 * w, 0.28 * w], hAlign="LEFT")
+    table.setStyle(
+        TableStyle(
+            [
+                ("VALIGN", (0, 0), (-1, -1), "TOP"),
+                ("LINEBELOW", (0, 0), (-1, -1), 0.35, RULE),
+                ("LEFTPADDING", (0, 0), (-1, -1), 3),
+                ("TOPPADDING", (0, 0), (-1, -1), 3),
+                ("BOTTOMPADDING", (0, 0), (-1, -1), 3),
+            ]
+        )
+    )
+    units = "SI units" if ctx.system == "SI" else "IP (inch-pound) units"
+    return [
+        Paragraph("Refrigeration sizing sheet", H1),
+        note(
+            f"Heat load, equipment duties and refrigerant cycle for {len(r.rooms)} "
+            f"room{'s' if len(r.rooms) != 1 else ''}; {units}; pressures absolute.",
+            SMALL,
+        ),
+        Spacer(1, 6),
+        table,
+        Spacer(1, 10),
+    ]
+
+
+def summary_section(ctx: SheetContext) -> list:
+    """One line per room: the figures needed to pick the equipment."""
+    s = ctx.system
+    rows: list[list[str]] = [
+        ["Room", "Conditions", "Design capacity", "Refrigerant", "SST / SCT (dew)", "Compressor power", "Heat of rejection"]
+    ]
+    for i, room in enumerate(ctx.result.rooms):
+        cyc = _room_cycle(ctx, i) or {}
+        rows.append(
+            [
+                room.name,
+                _room_conditions(ctx, i) or "–",
+                capacity(room.loads.design_capacity, s),
+                str(cyc.get("refrigerant", "–")),
+                f"{temperature(room.evaporating_temperature, s)} / {temperature(room.condensing_temperature, s)}",
+                capacity(cyc["compressor_power_w"], s) if cyc else "–",
+                capacity(cyc["condenser_duty_w"], s) if cyc else "–",
+            ]
+        )
+    w = ctx.width
+    widths = [0.17 * w, 0.14 * w, 0.15 * w, 0.1 * w, 0.16 * w, 0.14 * w, 0.14 * w]
+    return [heading("Summary", H3), grid(rows, widths, align_right=(2, 5, 6)), Spacer(1, 4)]
+
+
+def project_warnings_section(ctx: SheetContext) -> list:
+    """Warnings about the project file as a whole (implausible inputs)."""
+    if not ctx.result.warnings:
+        return []
+    return [heading("Check these inputs"), *_warning_box(ctx, ctx.result.warnings)]
+
+
+def _warning_box(ctx: SheetContext, messages: Sequence[str]) -> list:
+    style = ParagraphStyle("warn", parent=SMALL, textColor=WARN)
+    data = [[Paragraph("!", ParagraphStyle("bang", parent=style, fontName="Helvetica-Bold")), Paragraph(esc(m), style)]
+            for m in messages]
+    table = Table(data, colWidths=[16, ctx.width - 16], hAlign="LEFT")
+    table.setStyle(
+        TableStyle(
+            [
+                ("BACKGROUND", (0, 0), (-1, -1), WARN_BG),
+                ("LEFTPADDING", (0, 0), (0, -1), 6),
+                ("RIGHTPADDING", (0, 0), (0, -1), 0),
+                ("VALIGN", (0, 0), (-1, -1), "TOP"),
+                ("TOPPADDING", (0, 0), (-1, -1), 2.5),
+                ("BOTTOMPADDING", (0, 0), (-1, -1), 2.5),
+            ]
+        )
+    )
+    return [table]
+
+
+# --- room sections ------------------------------------------------------------------------------
+
+
+def room_title_section(ctx: SheetContext, index: int) -> list:
+    """Room heading and its four key figures."""
+    room = ctx.result.rooms[index]
+    s = ctx.system
+    cyc = _room_cycle(ctx, index)
+    n = len(ctx.result.rooms)
+    title = f"Room {index + 1} of {n}: {room.name}"
+    cond = _room_conditions(ctx, index)
+    boxes = [
+        ("Design capacity", capacity(room.loads.design_capacity, s), f"set by the {room.loads.governed_by}"),
+        (
+            "Evaporating / condensing (dew)",
+            f"{temperature(room.evaporating_temperature, s)} / {temperature(room.condensing_temperature, s)}",
+            f"room air {cond}" if cond else "",
+        ),
+    ]
+    if cyc:
+        boxes += [
+            ("Compressor power", capacity(cyc["compressor_power_w"], s), f"COP {cyc['cop']:.2f}"),
+            ("Heat of rejection", capacity(cyc["condenser_duty_w"], s),
+             f"condenser air {temperature(room.condenser_air_temperature, s)}"),
+        ]
+    return [heading(title, H2), figure_boxes(ctx, boxes), Spacer(1, 4)]
+
+
+def basis_section(ctx: SheetContext, index: int) -> list:
+    """Basis of design: conditions, constructions with U-values, doors, products, operation, refrigeration."""
+    room = ctx.result.rooms[index]
+    if not room.sizing_basis:
+        return []
+    rows: list[list[Any]] = []
+    group_rows: list[int] = []
+    current = None
+    for what, value in room.sizing_basis:
+        group, _, label = what.partition(": ")
+        if not label:
+            group, label = "", what
+        if group != current:
+            current = group
+            group_rows.append(len(rows))
+            rows.append([group, ""])
+        rows.append([label, value])
+    w = ctx.width
+    label_style = ParagraphStyle("g", parent=CELL_SMALL, fontName="Helvetica-Bold", textColor=ACCENT)
+    data = []
+    for r, (a, b) in enumerate(rows):
+        if r in group_rows:
+            data.append([Paragraph(esc(a), label_style), ""])
+        else:
+            data.append([Paragraph(esc(a), CELL_SMALL), Paragraph(esc(b), CELL_SMALL)])
+    table = Table(data, colWidths=[0.36 * w, 0.64 * w], hAlign="LEFT")
+    commands = [
+        ("VALIGN", (0, 0), (-1, -1), "TOP"),
+        ("LEFTPADDING", (0, 0), (-1, -1), 4),
+        ("TOPPADDING", (0, 0), (-1, -1), 1.4),
+        ("BOTTOMPADDING", (0, 0), (-1, -1), 1.4),
+    ]
+    for r in group_rows:
+        commands += [("LINEBELOW", (0, r), (-1, r), 0.5, RULE), ("TOPPADDING", (0, r), (-1, r), 5)]
+    table.setStyle(TableStyle(commands))
+    return [heading("Basis of design"), table]
+
+
+def loads_section(ctx: SheetContext, index: int) -> list:
+    """The 24-hour heat load by component: table, totals and a bar chart."""
+    room = ctx.result.rooms[index]
+    loads = room.loads
+    s = ctx.system
+    total = loads.daily_energy
+    energy_unit = "kWh/day" if s == "SI" else "Btu/day"
+    power_unit = "W" if s == "SI" else "Btu/h"
+
+    def energy(joules: float) -> str:
+        if s == "SI":
+            return clean(f"{joules / 3.6e6:,.1f}")
+        return q(joules, "energy", s, 0).rsplit(" ", 1)[0]
+
+    def power(watts: float) -> str:
+        return q(watts, "power", s, 0).rsplit(" ", 1)[0]
+
+    rows = [["Component", energy_unit, f"24-h average, {power_unit}", "Share"]]
+    bars = []
+    for component, label in COMPONENT_LABELS.items():
+        e = loads.component_energy(component)
+        share = e / total if total else 0.0
+        rows.append([label, energy(e), power(e / 86400.0), f"{share:.1%}"])
+        bars.append((label.split(" (")[0], e, f"{power(e / 86400.0)} {power_unit}  ({share:.0%})"))
+    rows.append(["Total heat gain", energy(total), power(total / 86400.0), "100.0%"])
+    totals = [
+        ["Safety factor", f"{loads.safety_factor:.0%}"],
+        ["Compressor run time", f"{loads.run_time / 3600:g} h/day ({loads.run_time_basis})"],
+        ["Required capacity (24-h energy x safety / run time)", capacity(loads.required_capacity, s)],
+        ["Peak-hour capacity (product pull-down, all internal loads on)", capacity(loads.peak_capacity, s)],
+        [f"Design capacity (the larger; set by the {loads.governed_by})", capacity(loads.design_capacity, s)],
+    ]
+    w = ctx.width
+    widths = [0.46 * w, 0.17 * w, 0.22 * w, 0.15 * w]
+    table = grid(rows, widths, align_right=(1, 2, 3), total_rows=(len(rows) - 1,))
+    totals_table = grid(totals, [0.63 * w, 0.37 * w], header=False, align_right=(1,), total_rows=(len(totals) - 1,))
+    chart = BarChart(bars, w, title="Where the heat comes from (24-hour average)")
+    return [
+        KeepTogether([heading("Heat load over 24 hours"), table, Spacer(1, 3), totals_table]),
+        Spacer(1, 8),
+        chart,
+    ]
+
+
+def load_lines_section(ctx: SheetContext, index: int) -> list:
+    """Every load line with the working behind it (the audit trail)."""
+    room = ctx.result.rooms[index]
+    s = ctx.system
+    power_unit = "W" if s == "SI" else "Btu/h"
+    rows = [["Component", "Item", f"Average, {power_unit}", "Working (SI)"]]
+    for line in room.loads.lines:
+        rows.append(
+            [
+                line.component,
+                line.item,
+                q(line.average_power, "power", s, 0).rsplit(" ", 1)[0],
+                line.basis or "",
+            ]
+        )
+    w = ctx.width
+    return [
+        heading("Load lines"),
+        note("Each line as calculated; the working column shows the inputs in SI units.", TINY),
+        Spacer(1, 2),
+        grid(rows, [0.13 * w, 0.25 * w, 0.12 * w, 0.50 * w], align_right=(2,), style=CELL_SMALL),
+    ]
+
+
+def duties_section(ctx: SheetContext, index: int) -> list:
+    """Required evaporator, condensing-unit and condenser duties with their rating conditions."""
+    room = ctx.result.rooms[index]
+    cyc = _room_cycle(ctx, index)
+    s = ctx.system
+    cap = capacity(room.loads.design_capacity, s)
+    te = temperature(room.evaporating_temperature, s)
+    tc = temperature(room.condensing_temperature, s)
+    air = temperature(room.condenser_air_temperature, s)
+    room_in = ctx.room_input(index)
+    room_air = temperature(room_in.temperature, s) if room_in is not None else "the room air"
+    rows = [
+        ["Equipment", "Required duty", "At"],
+        ["Evaporator (unit cooler)", cap, f"evaporating {te} (dew), air on {room_air}"],
+        ["Condensing unit", cap, f"SST {te} / SCT {tc} (dew), condenser air {air}"],
+    ]
+    if cyc:
+        rows.append(["Condenser: heat of rejection", capacity(cyc["condenser_duty_w"], s), f"SCT {tc}, air on {air}"])
+    w = ctx.width
+    out = [heading("Required equipment duties"), grid(rows, [0.3 * w, 0.22 * w, 0.48 * w], align_right=(1,))]
+    if cyc:
+        perf = [
+            ["Compressor figures", "Value"],
+            ["Refrigerant", str(cyc.get("refrigerant", "–"))],
+            ["Mass flow", q(cyc["mass_flow_kg_s"], "mass_flow", s)],
+            ["Suction volume flow (state 1)", q(cyc["suction_volume_flow_m3_h"] / 3600.0, "volume_flow", s)],
+            ["Compressor displacement (swept volume)", q(cyc["displacement_m3_h"] / 3600.0, "volume_flow", s)],
+            ["Compressor power (shaft)", capacity(cyc["compressor_power_w"], s)],
+            ["Discharge temperature", temperature(cyc["discharge_temperature_c"], s)],
+            ["Pressure ratio", f"{cyc['pressure_ratio']:.2f}"],
+            ["COP (cooling / compressor power)", f"{cyc['cop']:.2f}"],
+        ]
+        out += [Spacer(1, 4), grid(perf, [0.52 * w, 0.48 * w], align_right=(1,))]
+    return [KeepTogether(out)]
+
+
+def cycle_section(ctx: SheetContext, index: int) -> list:
+    """The cycle's four states and the pressure–enthalpy diagram."""
+    cyc = _room_cycle(ctx, index)
+    if not cyc:
+        return []
+    s = ctx.system
+    rows = [["State", "Pressure", "Temperature", "Enthalpy", "Entropy", "Quality"]]
+    for name, st in zip(STATE_NAMES, cyc["states"]):
+        quality = st.get("quality")
+        rows.append(
+            [
+                name,
+                q(st["p_pa"], "pressure", s),
+                temperature(st["t_c"], s),
+                q(st["h_j_kg"], "specific_energy", s, 1),
+                q(st["s_j_kg_k"], "specific_heat", s, 4 if s == "SI" else 4),
+                "–" if quality is None else f"{quality:.3f}",
+            ]
+        )
+    w = ctx.width
+    table = grid(rows, [0.24 * w, 0.15 * w, 0.14 * w, 0.16 * w, 0.19 * w, 0.12 * w], align_right=(1, 2, 3, 4, 5))
+    chart = _ph_chart(ctx, index, cyc)
+    out = [
+        KeepTogether(
+            [
+                heading("Refrigerant cycle"),
+                note(
+                    "Enthalpy and entropy in the default reference state of the property library "
+                    "(IIR for halocarbons); quality shown only inside the two-phase region.",
+                    TINY,
+                ),
+                Spacer(1, 2),
+                table,
+            ]
+        ),
+        Spacer(1, 6),
+    ]
+    if chart is not None:
+        out.append(chart)
+    return out
+
+
+def _ph_chart(ctx: SheetContext, index: int, cyc: dict) -> Any:
+    from coldroom.errors import ColdroomError
+    from coldroom.report.phchart import PHChart, diagram_data
+
+    room = ctx.result.rooms[index]
+    states = cyc["states"]
+    pressures = [st["p_pa"] for st in states]
+    p_low, p_high = min(pressures) / 2.2, max(pressures) * 2.0
+    isotherms = _isotherm_temperatures(room, states)
+    try:
+        data = diagram_data(cyc["refrigerant"], p_low, p_high, isotherms)
+    except ColdroomError:
+        return note("The pressure–enthalpy diagram could not be drawn for this refrigerant.", SMALL)
+    title = f"Pressure–enthalpy diagram, {cyc['refrigerant']}"
+    return PHChart(states, data, ctx.system, ctx.width, 250.0, title=title)
+
+
+def _isotherm_temperatures(room: Any, states: Sequence[dict]) -> list[float]:
+    """Round temperatures in the vapour region between suction and discharge (drawing choice)."""
+    low = states[0]["t_c"]
+    high = states[1]["t_c"]
+    step = 20.0 if high - low > 50 else 10.0
+    first = (int(low // step) + 1) * step
+    temps = []
+    t = first
+    while t < high + step and len(temps) < 6:
+        temps.append(t)
+        t += step
+    return temps
+
+
+def room_warnings_section(ctx: SheetContext, index: int) -> list:
+    """Warnings for this room (loads and cycle)."""
+    messages = _room_json(ctx, index).get("warnings", [])
+    if not messages:
+        return []
+    return [KeepTogether([heading("Warnings"), *_warning_box(ctx, messages)])]
+
+
+def safety_cautions(ctx: SheetContext, index: int) -> list[str]:
+    """The safety cautions that fit this room and its refrigerant (text only)."""
+    from coldroom.data import refrigerants
+
+    room = ctx.result.rooms[index]
+    cyc = _room_cycle(ctx, index) or {}
+    cautions: list[str] = []
+    info = None
+    if cyc.get("refrigerant"):
+        try:
+            info = refrigerants.lookup(cyc["refrigerant"])
+        except Exception:  # noqa: BLE001 - an unknown name only drops the refrigerant cautions
+            info = None
+    if info is not None:
+        cls = info.safety_class
+        if cls.endswith("2L") and cls.startswith("A"):
+            cautions.append(
+                f"{info.name} is class A2L (lower flammability). The charge allowed in an occupied space is "
+                "limited by its lower flammability limit and the room volume (EN 378-1, ISO 5149-1, "
+                "IEC 60335-2-89): check the system charge against them, keep ignition sources away from "
+                "possible leak points, use A2L-rated components and leak detection where required."
+            )
+        if cls.endswith("3"):
+            cautions.append(
+                f"{info.name} is class A3 (highly flammable). Charge limits are strict (EN 378-1, ISO 5149-1; "
+                "IEC 60335-2-89 for self-contained appliances): check the charge per circuit, keep all ignition "
+                "sources out of the refrigerant's reach, ventilate, and use only equipment rated for A3."
+            )
+        if cls.startswith("B"):
+            cautions.append(
+                f"{info.name} is class {cls} (higher toxicity"
+                + (", lower flammability" if cls.endswith("2L") else "")
+                + "). A leak endangers people: gas detection, alarms, ventilation and machinery-room rules "
+                "apply (EN 378, ISO 5149, ASHRAE 15)."
+            )
+        if info.name == "R-744":
+            cautions.append(
+                "R-744 (CO2) works at high pressure: standstill and operating pressures far above those of "
+                "other refrigerants. Every component and relief valve must be rated for them; only trained "
+                "persons may work on the system."
+            )
+        if info.note and "GWP" in info.note:
+            cautions.append(f"{info.name}: {info.note}. Check the F-gas or other regulations that apply to new equipment.")
+    cautions.append(
+        "People can be shut in a cold room. Fit an inside door release that works without a key, "
+        "lighting on an independent supply, and an alarm button inside that is heard where people are."
+    )
+    room_in = ctx.room_input(index)
+    cold = room_in is not None and room_in.temperature < 0.0
+    if room_in is None and room.evaporating_temperature is not None:
+        cold = room.evaporating_temperature < -10.0
+    if cold:
+        cautions.append(
+            "Below 0 °C the ground under the room freezes unless the slab is heated or ventilated: frost heave "
+            "lifts floors and walls. Check that slab heating is designed, installed and monitored."
+        )
+    cautions.append(
+        "Electrical work (supplies, heaters, controls, earthing) must be done by qualified persons to the "
+        "local electrical code."
+    )
+    return cautions
+
+
+def cautions_section(ctx: SheetContext, index: int) -> list:
+    """Safety cautions, deferring to codes and licensed practice."""
+    items = safety_cautions(ctx, index)
+    flow: list = [heading("Safety cautions")]
+    for text in items:
+        flow.append(Paragraph("\u2022 " + esc(text), ParagraphStyle("bul", parent=SMALL, leftIndent=8, firstLineIndent=-8, spaceAfter=2)))
+    flow.append(
+        note(
+            "This sheet sizes equipment; it does not replace the design rules of EN 378, ISO 5149, ASHRAE 15, "
+            "IEC 60335-2-89 and the local building and electrical codes. Installation, charging and "
+            "commissioning by licensed persons only.",
+            TINY,
+        )
+    )
+    return [KeepTogether(flow)]
+
+
+#: Project-wide sections, printed first.
+PROJECT_SECTIONS: list[Callable[[SheetContext], list]] = [title_section, summary_section, project_warnings_section]
+
+#: Sections printed for every room, in order. Insert new ones here.
+ROOM_SECTIONS: list[Callable[[SheetContext, int], list]] = [
+    room_title_section,
+    basis_section,
+    loads_section,
+    duties_section,
+    cycle_section,
+    room_warnings_section,
+    cautions_section,
+    load_lines_section,
+]
+
+
+# --- the page frame -----------------------------------------------------------------------------
+
+
+def _footer_text(result: Any) -> str:
+    v = result.versions or {}
+    return clean(
+        f"coldroom {v.get('coldroom', '?')}  ·  CoolProp {v.get('CoolProp', '?')}  ·  "
+        f"input {result.input_file}, sha256 {result.input_sha256[:12]}"
+    )
+
+
+def _canvas_maker(result: Any, page_width: float, margin: float) -> type:
+    footer = _footer_text(result)
+    header_left = clean(f"{result.project_name}")
+    header_right = clean(f"Sizing sheet  ·  {result.date}")
+    y, m, d = (int(x) for x in (result.date + "-01-01").split("-")[:3]) if _is_date(result.date) else (2000, 1, 1)
+
+    class NumberedCanvas(Canvas):
+        """Defers each page until the end to print "page x of y" (and the header and footer)."""
+
+        def __init__(self, *args: Any, **kwargs: Any) -> None:
+            kwargs["invariant"] = 1
+            super().__init__(*args, **kwargs)
+            self.setDateFormatter(lambda *_: f"D:{y:04d}{m:02d}{d:02d}000000+00'00'")
+            self._pages: list[dict] = []
+
+        def showPage(self) -> None:  # noqa: N802 - reportlab API
+            self._pages.append(dict(self.__dict__))
+            self._startPage()
+
+        def save(self) -> None:
+            total = len(self._pages)
+            for number, state in enumerate(self._pages, start=1):
+                self.__dict__.update(state)
+                self._frame(number, total)
+                Canvas.showPage(self)
+            Canvas.save(self)
+
+        def _frame(self, number: int, total: int) -> None:
+            w, h = self._pagesize
+            self.saveState()
+            self.setStrokeColor(ACCENT)
+            self.setLineWidth(1.2)
+            self.line(margin, h - margin + 12, w - margin, h - margin + 12)
+            self.setFont("Helvetica-Bold", 7.5)
+            self.setFillColor(INK)
+            self.drawString(margin, h - margin + 16, header_left[:90])
+            self.setFont("Helvetica", 7.5)
+            self.drawRightString(w - margin, h - margin + 16, header_right)
+            self.setStrokeColor(RULE)
+            self.setLineWidth(0.5)
+            self.line(margin, margin - 14, w - margin, margin - 14)
+            self.setFont("Helvetica", 6.8)
+            self.setFillColor(MUTED)
+            self.drawString(margin, margin - 24, footer)
+            self.drawRightString(w - margin, margin - 24, f"Page {number} of {total}")
+            self.restoreState()
+
+    return NumberedCanvas
+
+
+def _is_date(text: str) -> bool:
+    import datetime as _dt
+
+    try:
+        _dt.date.fromisoformat(text)
+        return True
+    except (TypeError, ValueError):
+        return False
+
+
+def build_story(ctx: SheetContext) -> list:
+    """All flowables of the sheet: project sections, then each room's sections."""
+    story: list = []
+    for section in PROJECT_SECTIONS:
+        story += section(ctx)
+    for index in range(len(ctx.result.rooms)):
+        if index > 0 or len(story) > 0:
+            story.append(PageBreak() if index > 0 else CondPageBreak(200))
+        for section in ROOM_SECTIONS:
+            story += section(ctx, index)
+    return story
+
+
+def render_sheet(result: Any, model: Any = None) -> bytes:
+    """Render the sizing sheet as PDF bytes.
+
+    Parameters
+    ----------
+    result : ProjectResult
+        What to present.
+    model : ProjectModel, optional
+        The project, for echoing inputs (room temperature and RH).
+
+    Returns
+    -------
+    bytes
+        The PDF; identical for identical input.
+    """
+    system = result.unit_system
+    pagesize = LETTER if system == "IP" else A4
+    margin = 16 * mm
+    buffer = io.BytesIO()
+    doc = BaseDocTemplate(
+        buffer,
+        pagesize=pagesize,
+        leftMargin=margin,
+        rightMargin=margin,
+        topMargin=margin + 6,
+        bottomMargin=margin + 2,
+        title=clean(f"Sizing sheet: {result.project_name}"),
+        author=clean(result.prepared_by or ""),
+        subject=clean(f"{result.input_file} sha256 {result.input_sha256}"),
+        creator=clean(f"coldroom {result.versions.get('coldroom', '')}"),
+        producer="coldroom (reportlab)",
+        invariant=1,
+    )
+    frame = Frame(doc.leftMargin, doc.bottomMargin, doc.width, doc.height, id="body", leftPadding=0,
+                  rightPadding=0, topPadding=0, bottomPadding=0)
+    doc.addPageTemplates([PageTemplate(id="page", frames=[frame])])
+    ctx = SheetContext(result=result, model=model, system=system, width=doc.width)
+    story = build_story(ctx)
+    doc.build(story, canvasmaker=_canvas_maker(result, pagesize[0], margin))
+    return buffer.getvalue()

@@ -1,0 +1,439 @@
+"""From a validated project to equipment duties: design temperatures and one cycle per room.
+
+For every room:
+
+1. the 24-hour load (:func:`coldroom.loads.room_loads`) gives the design
+   capacity (the larger of the 24-hour required capacity and the peak-hour
+   capacity, :attr:`coldroom.results.RoomLoads.design_capacity`);
+2. the saturated evaporating (dew) temperature is the room temperature minus
+   an evaporator TD chosen from the room's relative humidity
+   (:data:`EVAPORATOR_TD_BY_RH`, common practice [trade]) unless the project
+   gives ``refrigeration.evaporator_td``;
+3. the saturated condensing (dew) temperature is the condenser air temperature
+   (``refrigeration.condenser_air_temperature``, else the outdoor design dry
+   bulb) plus a condenser TD (:data:`DEFAULT_CONDENSER_TD`, [trade] 8–15 K for
+   air-cooled condensers) unless the project gives
+   ``refrigeration.condenser_td``;
+4. one condensing unit per room: :func:`coldroom.cycle.solve_cycle` at those
+   temperatures and the design capacity, with the superheat, subcooling,
+   isentropic efficiency and clearance of the room's ``refrigeration`` block
+   (defaults documented in :class:`coldroom.projectfile.Refrigeration`:
+   superheat 5 K, suction-line superheat 5 K, subcooling 2 K, isentropic
+   efficiency 0.65, clearance 0.04 — common practice, no source).
+
+Temperatures are in °C here (the trade states TDs against °C room
+temperatures); capacities in W.
+
+``RoomResult.sizing_basis`` holds ``(what, value)`` text pairs for the sheet,
+already in the project's unit system. *what* is ``"Group: label"``; the sheet
+groups rows by the text before the first ``": "``.
+
+Examples
+--------
+>>> evaporator_td_for(room_temperature=2.0, relative_humidity=0.90)[0]
+4.5
+>>> evaporator_td_for(room_temperature=2.0, relative_humidity=0.70)[0]
+7.5
+>>> evaporator_td_for(room_temperature=-20.0, relative_humidity=0.80)[0]
+5.5
+"""
+
+from __future__ import annotations
+
+import datetime as _dt
+import hashlib
+import os
+from dataclasses import dataclass
+from typing import TYPE_CHECKING, Optional
+
+from coldroom import units as _units
+from coldroom.errors import CalculationError
+
+if TYPE_CHECKING:  # pragma: no cover
+    from coldroom.projectfile import ProjectModel, Room
+    from coldroom.results import ProjectResult, RoomLoads, RoomResult
+
+TD_SOURCE = "trade practice, evaporator TD vs room RH [trade]"
+
+#: Evaporator TD (room air − saturated evaporating dew temperature) by room
+#: relative humidity, for rooms above :data:`FREEZER_BELOW` [trade, REFERENCES
+#: "Evaporator TD vs room RH"]: 4–5 K ≈ 90 % RH; 5.5–6.5 K ≈ 80–85 %;
+#: 6.5–9 K ≈ 65–80 %; 9–12 K ≈ 50–65 %. Each row: (lowest RH of the band
+#: [-], TD [K], source). The TD is the middle of the trade band, rounded to
+#: 0.5 K; below 50 % RH the top of the last band is used.
+EVAPORATOR_TD_BY_RH: tuple[tuple[float, float, str], ...] = (
+    (0.875, 4.5, f"4–5 K for about 90 % RH, {TD_SOURCE}"),
+    (0.80, 6.0, f"5.5–6.5 K for 80–85 % RH, {TD_SOURCE}"),
+    (0.65, 7.5, f"6.5–9 K for 65–80 % RH, {TD_SOURCE}"),
+    (0.50, 10.0, f"9–12 K for 50–65 % RH, {TD_SOURCE}"),
+    (0.0, 12.0, f"12 K (top of the 9–12 K band) below 50 % RH, {TD_SOURCE}"),
+)
+
+#: Rooms colder than this are freezers: RH is not controlled, TD 5–6 K [trade]
+#: (the threshold is common practice, no source) [°C].
+FREEZER_BELOW = -5.0
+FREEZER_TD = (5.5, f"5–6 K for freezers, {TD_SOURCE}")
+
+#: Air-cooled condenser TD above the entering air [K]: 10 K, inside the trade
+#: range 8–15 K [trade].
+DEFAULT_CONDENSER_TD = 10.0
+CONDENSER_TD_SOURCE = "air-cooled condenser, trade range 8–15 K [trade]"
+
+#: R-744 with a condensing temperature at or above this is sized as a
+#: transcritical cycle (critical point 31 °C) [°C].
+TRANSCRITICAL_FROM = 30.0
+#: Gas-cooler approach (outlet minus entering air) for transcritical R-744 [K]
+#: (from memory; verify — common practice 2–5 K).
+GAS_COOLER_APPROACH = 3.0
+
+
+def evaporator_td_for(room_temperature: float, relative_humidity: float) -> tuple[float, str]:
+    """Evaporator TD for a room, from the trade table.
+
+    Parameters
+    ----------
+    room_temperature : float
+        Room air temperature [°C].
+    relative_humidity : float
+        Target room relative humidity [-].
+
+    Returns
+    -------
+    (float, str)
+        TD [K] and its source text.
+
+    Examples
+    --------
+    >>> evaporator_td_for(0.0, 0.55)
+    (10.0, '9–12 K for 50–65 % RH, trade practice, evaporator TD vs room RH [trade]')
+    """
+    if room_temperature < FREEZER_BELOW:
+        return FREEZER_TD
+    for lowest, td, source in EVAPORATOR_TD_BY_RH:
+        if relative_humidity >= lowest:
+            return td, source
+    return EVAPORATOR_TD_BY_RH[-1][1], EVAPORATOR_TD_BY_RH[-1][2]  # pragma: no cover
+
+
+@dataclass(frozen=True)
+class DesignTemperatures:
+    """Design temperatures of one room's refrigeration system.
+
+    Attributes
+    ----------
+    evaporating_temperature : float
+        Saturated evaporating (dew) temperature [°C].
+    condensing_temperature : float
+        Saturated condensing (dew) temperature [°C].
+    condenser_air_temperature : float
+        Air entering the condenser [°C].
+    evaporator_td, condenser_td : float
+        The TDs used [K].
+    evaporator_td_source, condenser_td_source, condenser_air_source : str
+        Where each came from.
+    """
+
+    evaporating_temperature: float
+    condensing_temperature: float
+    condenser_air_temperature: float
+    evaporator_td: float
+    condenser_td: float
+    evaporator_td_source: str
+    condenser_td_source: str
+    condenser_air_source: str
+
+
+def design_temperatures(
+    room_temperature: float,
+    relative_humidity: float,
+    outdoor_temperature: float,
+    evaporator_td: Optional[float] = None,
+    condenser_td: Optional[float] = None,
+    condenser_air_temperature: Optional[float] = None,
+) -> DesignTemperatures:
+    """Evaporating and condensing dew temperatures for one room.
+
+    Parameters
+    ----------
+    room_temperature : float
+        Room air [°C].
+    relative_humidity : float
+        Target room RH [-].
+    outdoor_temperature : float
+        Outdoor design dry bulb [°C], the condenser air unless given.
+    evaporator_td, condenser_td : float, optional
+        Overrides [K].
+    condenser_air_temperature : float, optional
+        Air entering the condenser [°C].
+
+    Examples
+    --------
+    >>> t = design_temperatures(2.0, 0.90, 32.0)
+    >>> (t.evaporating_temperature, t.condensing_temperature)
+    (-2.5, 42.0)
+    """
+    if evaporator_td is None:
+        td_e, td_e_source = evaporator_td_for(room_temperature, relative_humidity)
+    else:
+        td_e, td_e_source = evaporator_td, "given in the project file"
+    if condenser_td is None:
+        td_c, td_c_source = DEFAULT_CONDENSER_TD, CONDENSER_TD_SOURCE
+    else:
+        td_c, td_c_source = condenser_td, "given in the project file"
+    if condenser_air_temperature is None:
+        air, air_source = outdoor_temperature, "outdoor design dry bulb"
+    else:
+        air, air_source = condenser_air_temperature, "given in the project file"
+    return DesignTemperatures(
+        evaporating_temperature=room_temperature - td_e,
+        condensing_temperature=air + td_c,
+        condenser_air_temperature=air,
+        evaporator_td=td_e,
+        condenser_td=td_c,
+        evaporator_td_source=td_e_source,
+        condenser_td_source=td_c_source,
+        condenser_air_source=air_source,
+    )
+
+
+def sheet_date(project_date: Optional[str], environ: Optional[dict] = None) -> str:
+    """The date printed on the sheet: the project's, else SOURCE_DATE_EPOCH (UTC), else today.
+
+    Examples
+    --------
+    >>> sheet_date("2026-11-16")
+    '2026-11-16'
+    >>> sheet_date(None, {"SOURCE_DATE_EPOCH": "0"})
+    '1970-01-01'
+    """
+    if project_date:
+        return project_date
+    env = os.environ if environ is None else environ
+    epoch = env.get("SOURCE_DATE_EPOCH")
+    if epoch:
+        try:
+            return _dt.datetime.fromtimestamp(int(epoch), tz=_dt.timezone.utc).date().isoformat()
+        except (ValueError, OverflowError, OSError):
+            pass
+    return _dt.date.today().isoformat()
+
+
+def versions() -> dict[str, str]:
+    """Versions printed on every page: coldroom and CoolProp (read from metadata, no import)."""
+    from importlib import metadata
+
+    from coldroom import __version__
+
+    try:
+        coolprop = metadata.version("CoolProp")
+    except metadata.PackageNotFoundError:  # pragma: no cover
+        coolprop = "unknown"
+    return {"coldroom": __version__, "CoolProp": coolprop}
+
+
+def _basis(model: "ProjectModel", room: "Room", loads: "RoomLoads", temps: DesignTemperatures) -> tuple:
+    """The (what, value) pairs printed under "Basis of design", in the project's units."""
+    from coldroom.data import refrigerants
+    from coldroom.loads import construction_u, outdoor_relative_humidity, site_pressure
+
+    system = model.project.units
+    d = model.design
+    show = _units.display
+    rows: list[tuple[str, str]] = []
+    add = rows.append
+    rh_out = outdoor_relative_humidity(d)
+    add(("Site: outdoor design dry bulb", show(d.outdoor_temperature, "temperature", system)))
+    if d.outdoor_wet_bulb is not None:
+        add(("Site: outdoor wet bulb", f"{show(d.outdoor_wet_bulb, 'temperature', system)} (RH {rh_out:.0%})"))
+    else:
+        add(("Site: outdoor relative humidity", f"{rh_out:.0%}"))
+    add(("Site: ground temperature", show(d.ground_temperature, "temperature", system)))
+    add(("Site: barometric pressure", show(site_pressure(d), "pressure", system)))
+    add(("Room: temperature and RH", f"{show(room.temperature, 'temperature', system)}, {room.rh:.0%} RH"))
+    if room.dimensions is not None:
+        dim = room.dimensions
+        add(
+            (
+                "Room: inside dimensions (L × W × H)",
+                " × ".join(_units.format_number(_units.to_unit(x, "length", _units.DISPLAY_UNITS[system]["length"]))
+                           for x in (dim.length, dim.width, dim.height))
+                + f" {_units.DISPLAY_UNITS[system]['length']}",
+            )
+        )
+    add(("Room: volume and floor area",
+         f"{show(loads.volume, 'volume', system)}, {show(loads.floor_area, 'area', system)}"))
+    # constructions: one row per construction used, with the sides it covers
+    used: dict[str, list[str]] = {}
+    u_of: dict[str, float] = {}
+    desc: dict[str, str] = {}
+    for side in ("north", "east", "south", "west", "ceiling", "floor"):
+        surface = room.envelope.side(side)
+        name = surface.construction if isinstance(surface.construction, str) else f"{side} (inline)"
+        construction = model.construction(surface.construction)
+        key = f"{name} @ {surface.facing}"
+        used.setdefault(key, []).append(side)
+        u_of[key] = construction_u(construction, surface.facing)
+        desc[key] = construction.description or name
+    for key, sides in used.items():
+        add((f"Construction: {desc[key]}", f"U {show(u_of[key], 'u_value', system)} ({', '.join(sides)})"))
+    for door in room.doors:
+        w = show(door.width, "length", system)
+        h = show(door.height, "length", system)
+        add(
+            (
+                f"Door: {door.name}",
+                f"{w} × {h}, {door.passages_per_day:g} passages/day, open {door.open_time / 60:g} min/day, "
+                f"{door.protection.replace('_', ' ')}",
+            )
+        )
+    if room.infiltration.method == "air_changes":
+        add(("Door: infiltration method", f"air changes ({room.infiltration.usage.replace('_', ' ')} use)"))
+    for product in room.products:
+        label = product.product.replace("_", " ") if product.product else "product (given properties)"
+        if product.daily_intake > 0:
+            assert product.entering_temperature is not None and product.final_temperature is not None
+            text = (
+                f"{show(product.daily_intake, 'mass', system)}/day, "
+                f"{show(product.entering_temperature, 'temperature', system)} → "
+                f"{show(product.final_temperature, 'temperature', system)} in {product.pulldown_time / 3600:g} h"
+            )
+        else:
+            text = "stored only"
+        if product.stored_mass > 0:
+            text += f"; {show(product.stored_mass, 'mass', system)} stored"
+        add((f"Product: {label}", text))
+    add(("Operation: compressor run time", f"{loads.run_time / 3600:g} h/day ({loads.run_time_basis})"))
+    add(("Operation: safety factor", f"{loads.safety_factor:.0%}"))
+    add(("Operation: defrost", room.defrost.type.replace("_", "-")))
+    add(("Operation: design capacity set by", loads.governed_by))
+    r = room.refrigeration
+    info = refrigerants.lookup(r.refrigerant)
+    add(("Refrigeration: refrigerant", f"{info.name} (safety class {info.safety_class}, GWP {info.gwp_ar4:g} AR4)"))
+    add(
+        (
+            "Refrigeration: evaporator TD",
+            f"{show(temps.evaporator_td, 'temperature_difference', system)} ({temps.evaporator_td_source})",
+        )
+    )
+    add(
+        (
+            "Refrigeration: condenser air",
+            f"{show(temps.condenser_air_temperature, 'temperature', system)} ({temps.condenser_air_source})",
+        )
+    )
+    add(
+        (
+            "Refrigeration: condenser TD",
+            f"{show(temps.condenser_td, 'temperature_difference', system)} ({temps.condenser_td_source})",
+        )
+    )
+    add(
+        (
+            "Refrigeration: superheat / suction line / subcooling",
+            " / ".join(show(x, "temperature_difference", system)
+                       for x in (r.superheat, r.suction_line_superheat, r.subcooling)),
+        )
+    )
+    add(("Refrigeration: compressor", f"isentropic efficiency {r.isentropic_efficiency:.2f}, clearance {r.clearance:.2f}"))
+    return tuple(rows)
+
+
+def size_room(model: "ProjectModel", room: "Room") -> "RoomResult":
+    """Loads, design temperatures and the cycle for one room.
+
+    Raises
+    ------
+    CalculationError
+        The cycle cannot be solved; the message names the room.
+    """
+    from coldroom.cycle import solve_cycle
+    from coldroom.data import refrigerants
+    from coldroom.loads import room_loads
+    from coldroom.results import RoomResult
+
+    loads = room_loads(model, room)
+    r = room.refrigeration
+    temps = design_temperatures(
+        room.temperature,
+        room.rh,
+        model.design.outdoor_temperature,
+        evaporator_td=r.evaporator_td,
+        condenser_td=r.condenser_td,
+        condenser_air_temperature=r.condenser_air_temperature,
+    )
+    info = refrigerants.lookup(r.refrigerant)
+    condensing: Optional[float] = temps.condensing_temperature
+    gas_cooler: Optional[float] = None
+    if info.name == "R-744" and condensing >= TRANSCRITICAL_FROM:
+        # transcritical: no condensing temperature; gas-cooler outlet = air + approach
+        condensing, gas_cooler = None, temps.condenser_air_temperature + GAS_COOLER_APPROACH
+    try:
+        cycle = solve_cycle(
+            info.name,
+            temps.evaporating_temperature,
+            condensing,
+            loads.design_capacity,
+            superheat=r.superheat,
+            subcooling=r.subcooling,
+            isentropic_efficiency=r.isentropic_efficiency,
+            suction_line_superheat=r.suction_line_superheat,
+            clearance=r.clearance,
+            gas_cooler_outlet_temperature=gas_cooler,
+        )
+    except CalculationError as exc:
+        raise type(exc)(
+            f"room {room.name!r}: the {info.name} cycle at evaporating {temps.evaporating_temperature:.1f} °C / "
+            f"condensing {temps.condensing_temperature:.1f} °C cannot be sized: {exc}"
+        ) from None
+    warnings = [f"{room.name}: {w}" for w in getattr(cycle, "warnings", ()) or ()]
+    return RoomResult(
+        loads=loads,
+        evaporating_temperature=temps.evaporating_temperature,
+        condensing_temperature=condensing,
+        condenser_air_temperature=temps.condenser_air_temperature,
+        sizing_basis=_basis(model, room, loads, temps),
+        cycle=cycle,
+        check=None,
+        warnings=tuple(warnings),
+    )
+
+
+def size_project(model: "ProjectModel", input_path: str, input_bytes: bytes) -> "ProjectResult":
+    """Size every room of *model*.
+
+    Parameters
+    ----------
+    model : ProjectModel
+        The validated project.
+    input_path : str
+        The project file's name, as printed on the sheet.
+    input_bytes : bytes
+        The project file's content (its SHA-256 goes on every page).
+
+    Returns
+    -------
+    ProjectResult
+
+    Raises
+    ------
+    CalculationError
+        A room's cycle cannot be solved (the message names the room).
+    """
+    from coldroom.checks import project_warnings
+    from coldroom.results import ProjectResult
+
+    rooms = tuple(size_room(model, room) for room in model.rooms)
+    info = model.project
+    return ProjectResult(
+        project_name=info.name,
+        client=info.client,
+        site=info.site,
+        prepared_by=info.prepared_by,
+        date=sheet_date(info.date),
+        unit_system=info.units,
+        input_file=os.path.basename(str(input_path)),
+        input_sha256=hashlib.sha256(input_bytes).hexdigest(),
+        rooms=rooms,
+        warnings=tuple(message for _key, message in project_warnings(model)),
+        versions=versions(),
+    )
