@@ -291,6 +291,138 @@ def size_command(
     guarded(run)
 
 
+# --- refrigerants and the cycle (catalogue listing; `coldroom cycle`) -------
+
+
+@app.command("refrigerants")
+def refrigerants_command() -> None:
+    """List the refrigerant catalogue: safety class, GWP, flammability limit, model."""
+
+    def run() -> None:
+        from coldroom.data.refrigerants import CATALOGUE
+
+        header = ("name", "class", "GWP AR4", "GWP AR5", "LFL kg/m³", "blend", "property model", "composition")
+        rows = []
+        for r in CATALOGUE:
+            blend = "zeotrope" if r.zeotropic else ("azeotrope" if r.is_blend else "-")
+            rows.append(
+                (
+                    r.name,
+                    r.safety_class,
+                    f"{r.gwp_ar4:g}",
+                    "-" if r.gwp_ar5 is None else f"{r.gwp_ar5:g}",
+                    "-" if r.lfl_kg_m3 is None else f"{r.lfl_kg_m3:g}",
+                    blend,
+                    f"{r.model} ({r.coolprop_name})",
+                    r.chemical,
+                )
+            )
+        widths = [max(len(str(row[i])) for row in (header, *rows)) for i in range(len(header))]
+        for row in (header, *rows):
+            print("  ".join(str(c).ljust(w) for c, w in zip(row, widths)).rstrip())
+        print("GWP: IPCC AR4/AR5 100-year values; classes ISO 817/ASHRAE 34 (values recalled, verify for compliance).")
+
+    guarded(run)
+
+
+def _cycle_table(result) -> str:
+    """Readable table of a CycleResult (display units: kPa, kJ/kg, kW, m³/h)."""
+    lines = []
+    r = result
+    high = (
+        f"gas cooler outlet {r.gas_cooler_outlet_temperature:.1f} °C (transcritical)"
+        if r.transcritical
+        else f"condensing {r.condensing_temperature:.1f} °C (dew)"
+    )
+    lines.append(f"{r.refrigerant}  [{r.safety_class}, GWP {r.gwp_ar4:g} AR4]  {r.property_model}")
+    lines.append(
+        f"evaporating {r.evaporating_temperature:.1f} °C (dew), {high}; capacity {r.capacity / 1e3:.3f} kW"
+    )
+    lines.append(
+        f"superheat {r.superheat:g} K, subcooling {r.subcooling:g} K, isentropic efficiency {r.isentropic_efficiency:g}, "
+        f"clearance {r.clearance:g}"
+    )
+    lines.append("")
+    lines.append(f"{'state':<26}{'p kPa':>10}{'t °C':>9}{'h kJ/kg':>10}{'s kJ/kg·K':>11}{'quality':>9}")
+    labels = ("1 compressor suction", "2 compressor discharge", "3 condenser outlet", "4 evaporator inlet")
+    for label, s in zip(labels, r.states):
+        q = "-" if s.quality is None else f"{s.quality:.3f}"
+        lines.append(f"{label:<26}{s.p / 1e3:>10.1f}{s.t:>9.1f}{s.h / 1e3:>10.2f}{s.s / 1e3:>11.4f}{q:>9}")
+    lines.append("")
+    rows = [
+        ("refrigerating effect", f"{r.refrigerating_effect / 1e3:.2f} kJ/kg"),
+        ("mass flow", f"{r.mass_flow * 3600:.2f} kg/h  ({r.mass_flow * 1e3:.3f} g/s)"),
+        ("suction volume flow", f"{r.suction_volume_flow * 3600:.3f} m³/h"),
+        ("volumetric efficiency", f"{r.volumetric_efficiency:.3f}"),
+        ("displacement", f"{r.displacement * 3600:.3f} m³/h"),
+        ("compressor power", f"{r.compressor_power / 1e3:.3f} kW"),
+        ("condenser duty (THR)", f"{r.condenser_duty / 1e3:.3f} kW"),
+        ("COP", f"{r.cop:.2f}  (Carnot {r.carnot_cop:.2f}, ratio {r.carnot_ratio:.2f})"),
+        ("discharge temperature", f"{r.discharge_temperature:.1f} °C"),
+        ("pressure ratio", f"{r.pressure_ratio:.2f}"),
+        ("glide evaporator / condenser", f"{r.glide_evaporator:.2f} K / "
+         + ("-" if r.glide_condenser is None else f"{r.glide_condenser:.2f} K")),
+    ]
+    if r.suction_line_heat_gain:
+        rows.insert(7, ("suction-line heat gain", f"{r.suction_line_heat_gain / 1e3:.3f} kW"))
+    width = max(len(k) for k, _ in rows)
+    lines.extend(f"{k:<{width}}  {v}" for k, v in rows)
+    for w in r.warnings:
+        lines.append(f"warning: {w}")
+    return "\n".join(lines)
+
+
+@app.command("cycle")
+def cycle_command(
+    refrigerant: str = typer.Option(..., "--refrigerant", "-r", help="Refrigerant, e.g. R448A, R-134a, R744."),
+    evaporating: str = typer.Option(..., "--evaporating", help="Evaporating dew temperature (°C unless a unit is given, e.g. '14 °F')."),
+    condensing: Optional[str] = typer.Option(None, "--condensing", help="Condensing dew temperature (°C unless a unit is given)."),
+    capacity: str = typer.Option(..., "--capacity", help="Refrigerating capacity: '5 kW', '17000 Btu/h', '1.5 TR'; bare number = W."),
+    superheat: str = typer.Option("5", "--superheat", help="Useful superheat at the evaporator outlet [K]."),
+    subcooling: str = typer.Option("2", "--subcooling", help="Subcooling at the condenser outlet [K]."),
+    isentropic_efficiency: float = typer.Option(0.70, "--isentropic-efficiency", help="Compressor isentropic efficiency (0-1]."),
+    clearance: float = typer.Option(0.04, "--clearance", help="Clearance volume ratio for the volumetric efficiency."),
+    gas_cooler_outlet: Optional[str] = typer.Option(None, "--gas-cooler-outlet", help="R-744 transcritical: gas-cooler outlet temperature (°C)."),
+    as_json: bool = typer.Option(False, "--json", help="Print the result as JSON on stdout."),
+) -> None:
+    """Size one vapour-compression cycle without a project file.
+
+    --superheat 0 --subcooling 0 --isentropic-efficiency 1 is the ideal cycle.
+    """
+    from coldroom.errors import UnitError
+    from coldroom.units import parse_quantity
+
+    try:
+        te = parse_quantity(evaporating, "temperature", default_unit="°C")
+        tc = None if condensing is None else parse_quantity(condensing, "temperature", default_unit="°C")
+        q = parse_quantity(capacity, "power", default_unit="W")
+        sh = parse_quantity(superheat, "temperature_difference", default_unit="K")
+        sc = parse_quantity(subcooling, "temperature_difference", default_unit="K")
+        tgc = None if gas_cooler_outlet is None else parse_quantity(gas_cooler_outlet, "temperature", default_unit="°C")
+    except UnitError as error:
+        print(f"coldroom: error: {' '.join(str(error).split())}", file=sys.stderr)
+        raise typer.Exit(code=2) from None
+    if tc is None and tgc is None:
+        print("coldroom: error: give --condensing (or --gas-cooler-outlet for transcritical R-744)", file=sys.stderr)
+        raise typer.Exit(code=2)
+
+    def run() -> None:
+        import json
+
+        from coldroom.cycle import solve_cycle
+
+        result = solve_cycle(
+            refrigerant, te, tc, q, superheat=sh, subcooling=sc, isentropic_efficiency=isentropic_efficiency,
+            clearance=clearance, gas_cooler_outlet_temperature=tgc,
+        )
+        if as_json:
+            print(json.dumps(result.to_json(), indent=2, ensure_ascii=False))
+        else:
+            print(_cycle_table(result))
+
+    guarded(run)
+
+
 def main() -> None:
     """Console-script entry point.
 
