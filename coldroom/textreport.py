@@ -14,10 +14,10 @@ def table(headers: Sequence[str], rows: Sequence[Sequence[str]], align: str | No
     Examples
     --------
     >>> print(table(["a", "bb"], [["x", "1"], ["yy", "22"]], "lr"))
-    a    bb
-    --  ---
-    x     1
-    yy   22
+    a   bb
+    --  --
+    x    1
+    yy  22
     """
     align = align or "l" + "r" * (len(headers) - 1)
     widths = [max(len(str(h)), *(len(str(r[i])) for r in rows)) if rows else len(str(h)) for i, h in enumerate(headers)]
