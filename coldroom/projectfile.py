@@ -762,19 +762,37 @@ def parse_project_data(data: Any, filename: str = "<input>", loaded: Any = None)
     except ValidationError as exc:
         errors = exc.errors(include_url=False)
         first = errors[0]
-        loc = tuple(first.get("loc", ()))
+        loc = _refined_location(first)
         message = _message(first)
         if len(errors) > 1:
             message += f" (and {len(errors) - 1} more error{'s' if len(errors) > 2 else ''})"
         raise _error_at(loaded, filename, message, loc) from None
-    except ColdroomError as exc:  # raised from inside a validator (e.g. an unknown product name)
-        raise ProjectFileError(str(exc), file=filename) from None
+    except ColdroomError as exc:  # pragma: no cover - pydantic wraps ValueErrors; kept as a guard
+        raise _error_at(loaded, filename, str(exc), ()) from None
     finally:
         _SYSTEM.reset(token)
     from coldroom.checks import check_project
 
     check_project(model, lambda message, path: _error_at(loaded, filename, message, path))
     return model
+
+
+def _refined_location(error: dict[str, Any]) -> tuple:
+    """The error's location, narrowed to the offending key where the model says only the object.
+
+    A model validator that rejects a name (unknown product, material or
+    refrigerant) is reported by pydantic at the object; point at the key whose
+    text the message quotes instead, so the position is that key's line.
+    """
+    loc = tuple(error.get("loc", ()))
+    value = error.get("input")
+    cause = (error.get("ctx") or {}).get("error")
+    if isinstance(cause, ColdroomError) and isinstance(value, dict):
+        text = str(cause)
+        for key, item in value.items():
+            if isinstance(key, str) and isinstance(item, str) and repr(item) in text:
+                return loc + (key,)
+    return loc
 
 
 def _error_at(loaded: Any, filename: str, message: str, path: tuple) -> ProjectFileError:
