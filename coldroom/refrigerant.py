@@ -460,9 +460,9 @@ class Fluid:
                 phase = CP.iphase_gas
             elif temperature < bub.t:
                 phase = CP.iphase_liquid
-            elif temperature == dew.t:
-                return dew
-            elif temperature == bub.t:
+            elif temperature == dew.t and self.info.zeotropic:
+                return dew  # a zeotrope's dew point is a unique state
+            elif temperature == bub.t and self.info.zeotropic:
                 return bub
             elif not self.info.zeotropic or self.info.model != "mixture":
                 raise self._fail(

@@ -1,0 +1,274 @@
+"""Refrigerant catalogue and property layer against outside references.
+
+References:
+- NIST Chemistry WebBook / the reference equations of state (via published
+  saturation tables) for a few saturation points, recalled values marked
+  "from memory".
+- CoolProp 8.0 itself as the reference library for the fast mixture states:
+  the fast path (imposed-phase P–T Newton / quality iteration) must agree with
+  CoolProp's own P–H and P–S flashes to 0.05 K and 0.1 % in enthalpy over the
+  working envelope (evaporating −45…+10 °C, condensing 20…60 °C).
+  Reference flashes for mixtures cost 0.1–0.8 s each, so only a handful of
+  points are checked here (about 10 flashes, < 10 s in all).
+"""
+
+from __future__ import annotations
+
+import math
+
+import pytest
+
+from coldroom.data.refrigerants import CATALOGUE, lookup, names
+from coldroom.errors import LookupNameError, PropertyRangeError
+from coldroom.refrigerant import MIXTURE_CRITICAL_POINTS, coolprop_version, get_fluid
+
+# ----------------------------------------------------------------- catalogue
+
+REQUIRED = [
+    "R-134a", "R-404A", "R-507A", "R-407A", "R-407C", "R-407F", "R-448A", "R-449A", "R-452A",
+    "R-513A", "R-454C", "R-455A", "R-290", "R-600a", "R-717", "R-744", "R-1234yf", "R-1234ze(E)",
+]
+
+
+def test_catalogue_holds_the_required_refrigerants():
+    assert set(REQUIRED) <= set(names())
+
+
+@pytest.mark.parametrize(
+    "spelling, expected",
+    [
+        ("R448A", "R-448A"), ("R-448A", "R-448A"), ("r448a", "R-448A"),
+        ("R-1234ze(E)", "R-1234ze(E)"), ("R1234ZE", "R-1234ze(E)"), ("R1234zeE", "R-1234ze(E)"),
+        ("r 134a", "R-134a"), ("NH3", "R-717"), ("co2", "R-744"), ("propane", "R-290"),
+    ],
+)
+def test_lookup_spellings(spelling, expected):
+    assert lookup(spelling).name == expected
+
+
+@pytest.mark.parametrize("bad", ["R999", "R-448", "R1234ZF", "", "water"])
+def test_lookup_unknown_raises_with_closest_names(bad):
+    with pytest.raises(LookupNameError, match="unknown refrigerant"):
+        lookup(bad)
+
+
+def test_unknown_lists_close_names():
+    with pytest.raises(LookupNameError) as info:
+        lookup("R448")
+    assert "R-448A" in str(info.value)
+
+
+# ISO 817 / ASHRAE 34 safety groups, from memory (REFERENCES.md "Refrigerant safety").
+SAFETY = {
+    "R-134a": "A1", "R-404A": "A1", "R-507A": "A1", "R-407A": "A1", "R-407C": "A1", "R-407F": "A1",
+    "R-448A": "A1", "R-449A": "A1", "R-452A": "A1", "R-513A": "A1", "R-744": "A1",
+    "R-454C": "A2L", "R-455A": "A2L", "R-1234yf": "A2L", "R-1234ze(E)": "A2L",
+    "R-290": "A3", "R-600a": "A3", "R-717": "B2L",
+}
+
+
+@pytest.mark.parametrize("name, cls", sorted(SAFETY.items()))
+def test_safety_classes(name, cls):
+    info = lookup(name)
+    assert info.safety_class == cls
+    # a flammable class carries an LFL, a class-1 fluid none
+    assert (info.lfl_kg_m3 is not None) == info.flammable
+
+
+def test_every_value_has_a_source_key():
+    for info in CATALOGUE:
+        for attr in ("coolprop_name", "safety_class", "gwp_ar4", "gwp_ar5", "lfl_kg_m3", "is_blend"):
+            assert info.sources.get(attr), (info.name, attr)
+        assert "[mem]" in info.sources["gwp_ar4"] and "AR4" in info.sources["gwp_ar4"]
+        assert "AR5" in info.sources["gwp_ar5"]
+
+
+def test_gwp_values_from_memory():
+    # IPCC AR4 100-year GWP, from memory: R-134a 1430, R-404A 3922, R-744 1 (by definition).
+    assert lookup("R-134a").gwp_ar4 == 1430
+    assert lookup("R-404A").gwp_ar4 == 3922
+    assert lookup("R-744").gwp_ar4 == 1 and lookup("R-744").gwp_ar5 == 1
+    # IPCC AR5, from memory: R-134a 1300.
+    assert lookup("R-134a").gwp_ar5 == 1300
+
+
+def test_blend_flags_follow_ashrae34_numbering():
+    # 400-series zeotropic, 500-series azeotropic (ASHRAE 34 numbering rules).
+    assert lookup("R-448A").zeotropic and lookup("R-448A").is_blend
+    assert lookup("R-513A").is_blend and not lookup("R-513A").zeotropic
+    assert not lookup("R-290").is_blend and not lookup("R-1234ze(E)").is_blend
+
+
+def test_every_catalogue_entry_loads_in_coolprop():
+    assert coolprop_version().startswith("8.")
+    for info in CATALOGUE:
+        fluid = get_fluid(info.name)
+        assert fluid.info is info
+        assert fluid.critical_temperature > 25.0  # all have T_c above room temperature
+
+
+# ------------------------------------------------------ saturation references
+
+
+def test_r134a_saturation_pressure_at_0c():
+    # R-134a at 0 °C: 292.8 kPa (ASHRAE Handbook—Fundamentals refrigerant tables /
+    # NIST REFPROP, from memory). Tolerance 0.2 %.
+    assert get_fluid("R-134a").dew_pressure(0.0) == pytest.approx(292.8e3, rel=2e-3)
+
+
+def test_r134a_saturation_temperature_at_1mpa():
+    # Çengel & Boles, Thermodynamics, 7th ed., table A-12: T_sat(1 MPa) = 39.37 °C
+    # (from memory). Tolerance 0.05 K (table edition differences).
+    assert get_fluid("R-134a").bubble_temperature(1.0e6) == pytest.approx(39.37, abs=0.05)
+
+
+def test_ammonia_normal_boiling_point():
+    # NH3 normal boiling point −33.33 °C at 101.325 kPa (NIST WebBook, from memory).
+    assert get_fluid("R-717").dew_temperature(101325.0) == pytest.approx(-33.33, abs=0.05)
+
+
+def test_co2_triple_and_critical_point():
+    # CO2: triple point −56.56 °C / 517.95 kPa, critical point 30.98 °C / 7.3773 MPa
+    # (Span & Wagner 1996 EOS, as tabulated in the NIST WebBook; from memory).
+    fluid = get_fluid("R-744")
+    assert fluid.triple_temperature == pytest.approx(-56.56, abs=0.01)
+    assert fluid.minimum_pressure == pytest.approx(517.95e3, rel=1e-3)
+    assert fluid.critical_temperature == pytest.approx(30.98, abs=0.01)
+    assert fluid.critical_pressure == pytest.approx(7.3773e6, rel=1e-4)
+
+
+def test_pseudo_pure_models_agree_with_full_mixture_model():
+    # The catalogue prefers CoolProp's pseudo-pure R-404A/R-407C/R-507A; check them
+    # against CoolProp's own multi-fluid mixture model (the reference library):
+    # dew pressure at −10 °C within 0.05 %, bubble temperature at the 40 °C dew
+    # pressure within 0.05 K, and the latent part of the refrigerating effect within 0.2 %.
+    from CoolProp.CoolProp import AbstractState
+    import CoolProp.CoolProp as CP
+
+    for pseudo, mix in [("R-404A", "R404A.mix"), ("R-407C", "R407C.mix"), ("R-507A", "R507A.mix")]:
+        fluid = get_fluid(pseudo)
+        ref = AbstractState("HEOS", mix)
+        ref.update(CP.QT_INPUTS, 1.0, 263.15)
+        assert fluid.dew_pressure(-10.0) == pytest.approx(ref.p(), rel=5e-4)
+        h_dew = ref.hmass()
+        ref.update(CP.QT_INPUTS, 1.0, 313.15)
+        pc = ref.p()
+        ref.update(CP.PQ_INPUTS, pc, 0.0)
+        assert fluid.bubble_temperature(fluid.dew_pressure(40.0)) == pytest.approx(ref.T() - 273.15, abs=0.05)
+        effect_ref = h_dew - ref.hmass()
+        effect = fluid.saturated_vapour(temperature=-10.0).h - fluid.saturated_liquid(pressure=fluid.dew_pressure(40.0)).h
+        assert effect == pytest.approx(effect_ref, rel=2e-3)
+
+
+def test_stored_mixture_critical_point_matches_coolprop():
+    # The stored table must be what CoolProp 8.0 computes (R452A.mix is the
+    # quickest to recompute, ~0.5 s; the others take up to 7 s each).
+    from CoolProp.CoolProp import AbstractState
+
+    points = [(c.T, c.p) for c in AbstractState("HEOS", "R452A.mix").all_critical_points() if c.p > 0]
+    t, p = max(points)
+    assert MIXTURE_CRITICAL_POINTS["R452A.mix"] == pytest.approx((t, p), rel=1e-9)
+
+
+def test_r448a_glide_about_six_kelvin():
+    # R-448A glide at evaporating conditions ≈ 6 K (manufacturer literature, from
+    # memory; commonly quoted 6.2 K at −10 °C dew). Tolerance 0.7 K.
+    fluid = get_fluid("R-448A")
+    assert fluid.glide(fluid.dew_pressure(-10.0)) == pytest.approx(6.2, abs=0.7)
+
+
+# ------------------------------------------------------------------- guards
+
+
+def test_co2_below_triple_pressure_is_refused():
+    # PropsSI('T','P',2e5,'Q',1,'R744') returns ≈197 K (below the triple point) without
+    # error in CoolProp 8.0: our layer must refuse instead.
+    with pytest.raises(PropertyRangeError, match="below the triple"):
+        get_fluid("R-744").dew_temperature(2e5)
+
+
+def test_below_triple_temperature_is_refused():
+    with pytest.raises(PropertyRangeError, match="below the triple"):
+        get_fluid("R-744").dew_pressure(-60.0)
+
+
+@pytest.mark.parametrize("name, t", [("R-744", 31.5), ("R-134a", 102.0), ("R-448A", 82.0)])
+def test_saturation_above_critical_is_refused(name, t):
+    with pytest.raises(PropertyRangeError, match="critical"):
+        get_fluid(name).dew_pressure(t)
+
+
+def test_saturation_pressure_above_critical_is_refused():
+    with pytest.raises(PropertyRangeError, match="critical"):
+        get_fluid("R-744").bubble_temperature(8e6)
+
+
+def test_pure_fluid_pt_at_saturation_is_refused():
+    # p and T of a pure fluid on its saturation line do not fix the state.
+    fluid = get_fluid("R-134a")
+    p = fluid.dew_pressure(0.0)
+    with pytest.raises(PropertyRangeError, match="two-phase"):
+        fluid.state_pt(p, fluid.dew_temperature(p))
+
+
+def test_pseudo_pure_pt_inside_glide_is_refused():
+    fluid = get_fluid("R-407C")
+    p = fluid.dew_pressure(0.0)
+    t_mid = 0.5 * (fluid.bubble_temperature(p) + fluid.dew_temperature(p))
+    with pytest.raises(PropertyRangeError, match="two-phase"):
+        fluid.state_pt(p, t_mid)
+
+
+def test_non_finite_input_is_refused():
+    with pytest.raises(PropertyRangeError):
+        get_fluid("R-134a").dew_pressure(math.nan)
+    with pytest.raises(PropertyRangeError):
+        get_fluid("R-134a").state_ph(-5.0, 300e3)
+
+
+# ------------------------------------------- fast mixture states vs CoolProp
+
+# (refrigerant, evaporating dew °C, condensing dew °C, which state): a handful of
+# points spread over the envelope; each needs one slow reference flash.
+ENVELOPE = [
+    ("R-448A", -45.0, 20.0, "2s"),
+    ("R-448A", -10.0, 40.0, "2"),
+    ("R-448A", 10.0, 60.0, "4"),
+    ("R-448A", -30.0, 60.0, "3"),
+    ("R-454C", -45.0, 60.0, "2s"),
+    ("R-454C", 5.0, 25.0, "4"),
+    ("R-407F", -25.0, 50.0, "2"),
+    ("R-455A", -35.0, 45.0, "4"),
+    ("R-449A", 0.0, 55.0, "3"),
+]
+
+
+def _fast_and_reference(fluid, te, tc, which):
+    """The state the cycle needs, by the fast path and by CoolProp's own flash."""
+    pe, pc = fluid.dew_pressure(te), fluid.dew_pressure(tc)
+    suction = fluid.state_pt(pe, te + 8.0)
+    if which in ("2s", "2"):
+        h2s = fluid.state_ps(pc, suction.s).h
+        if which == "2s":
+            return fluid.state_ps(pc, suction.s), fluid.state_ps(pc, suction.s, method="flash")
+        h2 = suction.h + (h2s - suction.h) / 0.65
+        return fluid.state_ph(pc, h2), fluid.state_ph(pc, h2, method="flash")
+    liquid = fluid.state_pt(pc, fluid.bubble_temperature(pc) - 3.0)
+    if which == "3":
+        return fluid.state_ph(pc, liquid.h), fluid.state_ph(pc, liquid.h, method="flash")
+    return fluid.state_ph(pe, liquid.h), fluid.state_ph(pe, liquid.h, method="flash")
+
+
+@pytest.mark.parametrize("name, te, tc, which", ENVELOPE)
+def test_fast_mixture_states_match_coolprop_flash(name, te, tc, which):
+    fluid = get_fluid(name)
+    assert fluid.info.model == "mixture"
+    fast, ref = _fast_and_reference(fluid, te, tc, which)
+    assert fast.t == pytest.approx(ref.t, abs=0.05)
+    assert fast.h == pytest.approx(ref.h, rel=1e-3)
+    assert fast.s == pytest.approx(ref.s, rel=1e-3)
+    assert fast.density == pytest.approx(ref.density, rel=1e-3)
+    if which == "4":
+        assert fast.quality == pytest.approx(ref.quality, abs=1e-4)
+    else:
+        assert fast.quality is None
