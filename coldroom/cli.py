@@ -423,6 +423,110 @@ def cycle_command(
     guarded(run)
 
 
+# --- check (existing unit at the room's new conditions) ----------------------------
+
+
+def _check_text(model, checks) -> str:  # type: ignore[no-untyped-def]
+    """The verdict per room in the project's unit system (our own layout)."""
+    from coldroom.units import display
+
+    system = model.project.units
+
+    def t(x):  # type: ignore[no-untyped-def]
+        return "-" if x is None else display(x, "temperature", system)
+
+    def q(x):  # type: ignore[no-untyped-def]
+        return "-" if x is None else display(x, "power_large", system)
+
+    lines = [f"{model.project.name}: existing-unit check"]
+    for loads, check in checks:
+        lines.append("")
+        lines.append(f"Room: {loads.name}")
+        if check is None:
+            lines.append("  no existing unit given")
+            continue
+        c = check
+        lines.append(f"  unit: {c.name} ({c.refrigerant}, {c.model} model)")
+        lines.append(f"  verdict: {c.verdict}")
+        lines.append(f"  room {t(c.room_temperature)}, condenser air {t(c.ambient_temperature)}")
+        lines.append(f"  balance: evaporating {t(c.balance_evaporating)} / condensing {t(c.balance_condensing)} (dew)")
+        lines.append(f"  capacity at balance   {q(c.capacity_at_balance)}")
+        lines.append(
+            f"  required capacity     {q(c.required_capacity)}  "
+            f"((1 + {c.safety_factor:.0%}) × daily load / {c.run_hours_available:.1f} h)"
+        )
+        if c.run_hours_needed is not None:
+            lines.append(
+                f"  run time needed       {c.run_hours_needed:.1f} h/day of {c.run_hours_available:.1f} h allowed; "
+                f"margin {c.margin_percent:+.0f} %"
+            )
+        if c.power_at_balance is not None:
+            t2 = "-" if c.discharge_temperature is None else t(c.discharge_temperature)
+            lines.append(
+                f"  power {q(c.power_at_balance)}, heat rejection {q(c.heat_rejection_at_balance)}, "
+                f"discharge about {t2}, pressure ratio {c.pressure_ratio:.1f}"
+            )
+        if c.max_ambient_status == "found":
+            lines.append(f"  holds up to a condenser air of {t(c.max_ambient)}")
+        elif c.max_ambient_status == "holds_above_range":
+            lines.append("  holds over the whole ambient range searched (10…55 °C)")
+        elif c.max_ambient_status == "fails_below_range":
+            lines.append("  does not hold at any ambient in the range searched (10…55 °C)")
+        lines.append(f"  evaporator: {c.evaporator_basis}")
+        lines.append(f"  condenser: {c.condenser_basis}")
+        for note in c.compressor_basis:
+            lines.append(f"  compressor: {note}")
+        for warning in c.warnings:
+            lines.append(f"  WARNING: {warning}")
+    return "\n".join(lines)
+
+
+@app.command("check")
+def check_command(
+    project: str = typer.Argument(..., help="Project file (YAML)."),
+    json_out: Optional[str] = typer.Option(
+        None, "--json", help="Also write the result as JSON to FILE ('-' for stdout).", metavar="FILE"
+    ),
+    force: bool = typer.Option(False, "--force", help="Overwrite an existing JSON file."),
+) -> None:
+    """Check each room's existing unit at the room's new conditions (capacity at balance vs load)."""
+
+    def run() -> None:
+        import json
+
+        from coldroom.output import write_atomic
+        from coldroom.projectfile import load_project
+
+        model = load_project(project)
+        from coldroom.equipment import check_project  # CoolProp, lazily
+
+        checks = check_project(model)
+        to_stdout = json_out == "-"
+        console = sys.stderr if to_stdout else sys.stdout
+        print(_check_text(model, checks), file=console)
+        if json_out:
+            data = {
+                "project": {"name": model.project.name, "unit_system": model.project.units, "input_file": project},
+                "rooms": [
+                    {
+                        "name": loads.name,
+                        "required_capacity_w": loads.required_capacity,
+                        "existing_unit": None if check is None else check.to_json(),
+                    }
+                    for loads, check in checks
+                ],
+            }
+            text = json.dumps(data, indent=2, ensure_ascii=False) + "\n"
+            if to_stdout:
+                sys.stdout.write(text)
+                sys.stdout.flush()
+            else:
+                write_atomic(json_out, text, force=force, inputs=[project])
+                print(f"wrote {json_out}", file=console)
+
+    guarded(run)
+
+
 def main() -> None:
     """Console-script entry point.
 
