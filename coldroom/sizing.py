@@ -275,7 +275,8 @@ def _basis(model: "ProjectModel", room: "Room", loads: "RoomLoads", temps: Desig
         u_of[key] = construction_u(construction, surface.facing)
         desc[key] = construction.description or name
     for key, sides in used.items():
-        add((f"Construction: {desc[key]}", f"U {show(u_of[key], 'u_value', system)} ({', '.join(sides)})"))
+        u_text = show(u_of[key], "u_value", system, 3 if system == "SI" else 4)
+        add((f"Construction: {desc[key]}", f"U {u_text} ({', '.join(sides)})"))
     for door in room.doors:
         w = show(door.width, "length", system)
         h = show(door.height, "length", system)
@@ -294,7 +295,7 @@ def _basis(model: "ProjectModel", room: "Room", loads: "RoomLoads", temps: Desig
             assert product.entering_temperature is not None and product.final_temperature is not None
             text = (
                 f"{show(product.daily_intake, 'mass', system)}/day, "
-                f"{show(product.entering_temperature, 'temperature', system)} → "
+                f"{show(product.entering_temperature, 'temperature', system)} to "
                 f"{show(product.final_temperature, 'temperature', system)} in {product.pulldown_time / 3600:g} h"
             )
         else:

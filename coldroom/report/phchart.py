@@ -286,12 +286,22 @@ class PHChart(Flowable):
         # isotherm labels (inside the clip, at the low-pressure end)
         c.setFont("Helvetica", 6.5)
         c.setFillColor(colors.HexColor("#5E7A6C"))
+        placed: list[tuple[float, float, float, float]] = []
         for temperature, points in self.data.isotherms:
-            x, y = pt(*points[-1])
-            x = min(max(x, x0 + 2.0), x0 + pw - 30.0)
-            y = max(y, y0 + 3.0)
-            label = _units.display(temperature, "temperature", self.system, 0)
-            c.drawString(x + 2.0, y + 2.0, clean(label))
+            # label at the highest point of the isotherm inside the plot, right of the line
+            inside = [xy for xy in (pt(h, p) for h, p in points) if y0 <= xy[1] <= y0 + ph and x0 <= xy[0] <= x0 + pw]
+            if not inside:
+                continue
+            x, y = max(inside, key=lambda xy: xy[1])
+            label = clean(_units.display(temperature, "temperature", self.system, 0))
+            width = c.stringWidth(label, "Helvetica", 6.5)
+            x = min(x + 3.0, x0 + pw - width - 2.0)
+            y = min(y - 9.0, y0 + ph - 9.0)
+            box = (x - 1.0, y - 1.0, x + width + 1.0, y + 7.0)
+            if any(not (box[2] < b[0] or b[2] < box[0] or box[3] < b[1] or b[3] < box[1]) for b in placed):
+                continue  # would overlap another label: leave this isotherm unlabelled
+            placed.append(box)
+            c.drawString(x, y, label)
         c.restoreState()
         # numbered state markers (kept inside the plot area)
         offsets = ((6.0, -11.0), (5.0, 4.0), (-11.0, 4.0), (-11.0, -11.0))
@@ -308,6 +318,11 @@ class PHChart(Flowable):
         # legend
         c.setFont("Helvetica", 6.8)
         lx, ly = x0 + 6.0, y0 + ph - 10.0
+        rows = 3 if self.data.isotherms else 2
+        c.setFillColor(colors.white)
+        c.setStrokeColor(RULE)
+        c.setLineWidth(0.4)
+        c.rect(lx - 3.0, ly - 10.0 * (rows - 1) - 3.5, 108.0, 10.0 * rows + 2.0, stroke=1, fill=1)
         c.setStrokeColor(DOME)
         c.setLineWidth(1.1)
         c.line(lx, ly + 2.5, lx + 14.0, ly + 2.5)

@@ -528,11 +528,10 @@ def _ph_chart(ctx: SheetContext, index: int, cyc: dict) -> Any:
     from coldroom.errors import ColdroomError
     from coldroom.report.phchart import PHChart, diagram_data
 
-    room = ctx.result.rooms[index]
     states = cyc["states"]
     pressures = [st["p_pa"] for st in states]
     p_low, p_high = min(pressures) / 2.2, max(pressures) * 2.0
-    isotherms = _isotherm_temperatures(room, states)
+    isotherms = _isotherm_temperatures(ctx.system, states)
     try:
         data = diagram_data(cyc["refrigerant"], p_low, p_high, isotherms)
     except ColdroomError:
@@ -541,16 +540,18 @@ def _ph_chart(ctx: SheetContext, index: int, cyc: dict) -> Any:
     return PHChart(states, data, ctx.system, ctx.width, 250.0, title=title)
 
 
-def _isotherm_temperatures(room: Any, states: Sequence[dict]) -> list[float]:
-    """Round temperatures in the vapour region between suction and discharge (drawing choice)."""
-    low = states[0]["t_c"]
-    high = states[1]["t_c"]
-    step = 20.0 if high - low > 50 else 10.0
-    first = (int(low // step) + 1) * step
+def _isotherm_temperatures(system: str, states: Sequence[dict]) -> list[float]:
+    """Round temperatures (in the display unit) between suction and discharge [°C] (a drawing choice)."""
+    from coldroom import units as _units
+
+    unit = _units.DISPLAY_UNITS[system]["temperature"]
+    low = _units.to_unit(states[0]["t_c"], "temperature", unit)
+    high = _units.to_unit(states[1]["t_c"], "temperature", unit)
+    step = (20.0 if high - low > 50 else 10.0) if system == "SI" else (40.0 if high - low > 90 else 20.0)
+    t = (int(low // step) + 1) * step
     temps = []
-    t = first
     while t < high + step and len(temps) < 6:
-        temps.append(t)
+        temps.append(_units.parse_quantity(f"{t} {unit}", "temperature"))
         t += step
     return temps
 
