@@ -401,7 +401,7 @@ def solve_cycle(
     if not transcritical:
         if condensing_temperature is None:
             raise CalculationError("condensing temperature is required")
-        _check("condensing temperature", condensing_temperature, -60.0, 100.0, "°C")
+        _check("condensing temperature", condensing_temperature, -60.0, 150.0, "°C")
         if condensing_temperature - evaporating_temperature < 1.0:
             raise CalculationError(
                 f"condensing temperature {condensing_temperature} °C must be at least 1 K above "
