@@ -423,12 +423,12 @@ def solve_cycle(
     p_evap = evap_dew.p
     p_suction = fluid.dew_pressure(te - suction_pressure_drop) if suction_pressure_drop > 0 else p_evap
     # evaporator outlet: dew + useful superheat (REFERENCES.md "Cycle": superheat from dew)
-    evap_out = evap_dew if superheat == 0 else fluid.state_pt(p_evap, te + superheat)
+    evap_out = evap_dew if superheat == 0 else fluid.state_pt(p_evap, te + superheat, phase="gas")
     # compressor suction: dew + superheat + suction-line superheat, at the suction pressure
     if suction_line_superheat == 0 and suction_pressure_drop == 0:
         state1 = evap_out
     else:
-        state1 = fluid.state_pt(p_suction, te + superheat + suction_line_superheat)
+        state1 = fluid.state_pt(p_suction, te + superheat + suction_line_superheat, phase="gas")
     glide_evap = te - fluid.bubble_temperature(p_evap) if info.is_blend else 0.0
 
     # --- high side --------------------------------------------------------
@@ -451,7 +451,7 @@ def solve_cycle(
         tc = condensing_temperature
         p_high = fluid.dew_pressure(tc)
         bubble = fluid.saturated_liquid(pressure=p_high)
-        liquid = bubble if subcooling == 0 else fluid.state_pt(p_high, bubble.t - subcooling)
+        liquid = bubble if subcooling == 0 else fluid.state_pt(p_high, bubble.t - subcooling, phase="liquid")
         s2s, state2, state3 = _high_side(fluid, state1, p_high, isentropic_efficiency, liquid, None)
         glide_cond = tc - bubble.t if info.is_blend else 0.0
         t_reject = tc

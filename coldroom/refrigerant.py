@@ -436,12 +436,17 @@ class Fluid:
         finally:
             st.unspecify_phase()
 
-    def state_pt(self, pressure: float, temperature: float) -> StatePoint:
+    def state_pt(self, pressure: float, temperature: float, phase: str | None = None) -> StatePoint:
         """State from pressure [Pa] and temperature [°C].
 
         Inside the two-phase region of a pure fluid the pair does not define a
         state (PropertyRangeError); inside the glide of a blend the state is
         found by iterating on quality.
+
+        *phase* (``"gas"`` or ``"liquid"``) states which side of the saturation
+        line is meant; it lets a state a hair off saturation (e.g. 1e-9 K of
+        subcooling) be computed as that phase. A temperature on the wrong side
+        by more than 1e-6 K is refused.
 
         Examples
         --------
@@ -452,11 +457,22 @@ class Fluid:
         self._check_pressure(pressure)
         self._check_temperature(temperature)
         t_k = temperature + KELVIN
+        if phase not in (None, "gas", "liquid"):
+            raise ValueError(f"phase must be None, 'gas' or 'liquid', not {phase!r}")
+        hint = phase
         phase: int | None = None
         if self._subcritical(pressure):
             dew = self.saturated_state(1.0, pressure=pressure)
             bub = dew if not self.info.zeotropic else self.saturated_state(0.0, pressure=pressure)
-            if temperature > dew.t:
+            if hint == "gas" and temperature >= dew.t - 1e-6:
+                phase = CP.iphase_gas
+            elif hint == "liquid" and temperature <= bub.t + 1e-6:
+                phase = CP.iphase_liquid
+            elif hint is not None:
+                raise self._fail(
+                    f"{temperature:.4f} °C at {pressure:.6g} Pa is not {hint}: dew {dew.t:.4f} °C, bubble {bub.t:.4f} °C"
+                )
+            elif temperature > dew.t:
                 phase = CP.iphase_gas
             elif temperature < bub.t:
                 phase = CP.iphase_liquid
