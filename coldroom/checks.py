@@ -24,6 +24,41 @@ WALL_U_WARNING = 1.0  # W/(m²·K): a cold-room wall or ceiling worse than this 
 PASSAGES_PER_HOUR_WARNING = 120.0  # more than two a minute, every hour of the day
 SAFETY_FACTOR_WARNING = 0.5
 DOOR_EDGE_ALLOWANCE = 0.0  # m; a door may fill its wall but not exceed it
+CRITICAL_MARGIN_WARNING = 5.0  # K: condensing this close below the critical point is poor practice
+MIN_ROOM_VOLUME = 1.0  # m³: below this it is a cabinet, not a walk-in room (common practice, no source)
+
+#: Temperature limits of each refrigerant's property model [°C]: the lowest
+#: saturated evaporating temperature (triple point of a pure fluid; the lower
+#: limit of CoolProp's pseudo-pure or mixture model for a blend) and the
+#: critical temperature (for a blend, the mixture critical point of the
+#: nominal composition). Values read from CoolProp 8.0 here
+#: (``PropsSI('Ttriple'|'Tcrit', fluid)``; for the ``.mix`` blends
+#: ``AbstractState('HEOS', fluid).all_critical_points()``, the highest one)
+#: [pub: CoolProp 8.0 / NIST REFPROP values]. Kept as plain numbers so that
+#: ``coldroom validate`` never imports CoolProp.
+REFRIGERANT_LIMITS_SOURCE = "CoolProp 8.0 Ttriple/Tmin and Tcrit (mixture critical point) [pub]"
+REFRIGERANT_LIMITS: dict[str, tuple[float, float]] = {
+    # name: (lowest evaporating temperature [°C], critical temperature [°C])
+    "R-134a": (-103.30, 101.06),
+    "R-404A": (-73.15, 72.12),  # pseudo-pure model's lower limit
+    "R-507A": (-73.15, 70.62),  # pseudo-pure model's lower limit
+    "R-407A": (-114.11, 82.25),
+    "R-407C": (-73.15, 86.20),  # pseudo-pure model's lower limit
+    "R-407F": (-118.61, 82.60),
+    "R-448A": (-124.62, 82.79),
+    "R-449A": (-125.81, 82.49),
+    "R-452A": (-122.41, 74.22),  # CoolProp finds 75.10, 74.25 and 74.22: the lowest is kept
+    "R-513A": (-128.99, 95.41),
+    "R-454C": (-146.02, 87.64),
+    "R-455A": (-140.56, 85.63),
+    "R-290": (-187.62, 96.74),
+    "R-600a": (-159.42, 134.66),
+    "R-717": (-77.65, 132.41),
+    "R-744": (-56.56, 30.98),
+    "R-1234yf": (-151.55, 94.70),
+    "R-1234ze(E)": (-104.53, 109.36),
+    "R-22": (-157.42, 96.15),
+}
 
 
 def check_project(model: "ProjectModel", error: ErrorFactory) -> None:
@@ -31,8 +66,10 @@ def check_project(model: "ProjectModel", error: ErrorFactory) -> None:
     from coldroom.data import refrigerants
 
     design = model.design
+    _check_design(model, error)
     for i, room in enumerate(model.rooms):
         at = ("rooms", i)
+        _check_geometry(room, at, error)
         for side in ("north", "east", "south", "west", "ceiling", "floor"):
             surface = room.envelope.side(side)
             own = getattr(room.envelope, side) is not None
@@ -57,10 +94,12 @@ def check_project(model: "ProjectModel", error: ErrorFactory) -> None:
                 at + ("refrigeration", "condenser_air_temperature"),
             )
         try:
-            refrigerants.lookup(room.refrigeration.refrigerant)
+            info = refrigerants.lookup(room.refrigeration.refrigerant)
         except ColdroomError as exc:
             raise error(str(exc), at + ("refrigeration", "refrigerant")) from None
+        _check_refrigerant_range(model, room, info.name, at, error)
         _check_doors(room, at, error)
+        _check_defrost(room, at, error)
         for j, product in enumerate(room.products):
             p_at = at + ("products", j)
             if product.daily_intake > 0 and product.final_temperature is not None:
@@ -77,6 +116,127 @@ def check_project(model: "ProjectModel", error: ErrorFactory) -> None:
                         f"{room.temperature:g} °C; product cannot be cooled below the room air",
                         p_at + ("final_temperature",),
                     )
+
+
+def _check_design(model: "ProjectModel", error: ErrorFactory) -> None:
+    """Outdoor humidity given as a wet bulb must be a possible reading."""
+    from coldroom import psychrometrics
+    from coldroom.errors import CalculationError
+    from coldroom.loads import site_pressure
+
+    design = model.design
+    if design.outdoor_wet_bulb is None:
+        return
+    where = ("design", "outdoor_wet_bulb")
+    if design.outdoor_wet_bulb > design.outdoor_temperature:
+        raise error(
+            f"wet-bulb temperature {design.outdoor_wet_bulb:g} °C is above the dry-bulb temperature "
+            f"{design.outdoor_temperature:g} °C; a wet bulb is never warmer than the dry bulb",
+            where,
+        )
+    try:  # ASHRAE Handbook—Fundamentals, "Psychrometrics" (via coldroom.psychrometrics) [pub]
+        psychrometrics.relative_humidity_from_wet_bulb(
+            design.outdoor_temperature, design.outdoor_wet_bulb, site_pressure(design)
+        )
+    except CalculationError as exc:
+        raise error(f"wet-bulb temperature {design.outdoor_wet_bulb:g} °C: {exc}", where) from None
+
+
+def _check_geometry(room: "Room", at: tuple, error: ErrorFactory) -> None:
+    """A room must have a usable inside volume (the bounds only ask for > 0)."""
+    volume = room.inside_volume
+    if volume < MIN_ROOM_VOLUME:
+        key = at + (("volume",) if room.volume is not None else ("dimensions",))
+        raise error(
+            f"inside volume {volume:.3g} m³ is less than {MIN_ROOM_VOLUME:g} m³; "
+            "that is a cabinet, not a walk-in room (check the dimensions and their units)",
+            key,
+        )
+
+
+def design_saturation_temperatures(model: "ProjectModel", room: "Room") -> tuple[float, float] | None:
+    """Evaporating and condensing dew temperatures the sizing will use [°C], or None.
+
+    Evaporating = room − evaporator TD; condensing = condenser air (default the
+    outdoor dry bulb) + condenser TD; the default TDs come from
+    :mod:`coldroom.sizing` (trade tables there). None when that module is not
+    available and a TD is not given.
+    """
+    refrigeration = room.refrigeration
+    td_e = refrigeration.evaporator_td
+    td_c = refrigeration.condenser_td
+    if td_e is None or td_c is None:
+        try:
+            from coldroom import sizing
+        except ImportError:  # pragma: no cover - sizing is part of the package
+            return None
+        if td_e is None:
+            td_e = sizing.evaporator_td_for(room.temperature, room.rh)[0]
+        if td_c is None:
+            td_c = sizing.DEFAULT_CONDENSER_TD
+    air = refrigeration.condenser_air_temperature
+    if air is None:
+        air = model.design.outdoor_temperature
+    return room.temperature - td_e, air + td_c
+
+
+def _check_refrigerant_range(
+    model: "ProjectModel", room: "Room", refrigerant: str, at: tuple, error: ErrorFactory
+) -> None:
+    temperatures = design_saturation_temperatures(model, room)
+    if temperatures is None:  # pragma: no cover
+        return
+    evaporating, condensing = temperatures
+    r_at = at + ("refrigeration",)
+    air = room.refrigeration.condenser_air_temperature
+    if air is None:
+        air = model.design.outdoor_temperature
+    # The field bounds (TDs > 0) already make these impossible; kept as a guard.
+    if evaporating >= room.temperature:
+        raise error(
+            f"evaporating temperature {evaporating:g} °C is not below the room temperature {room.temperature:g} °C",
+            r_at + ("evaporator_td",),
+        )
+    if condensing <= air:
+        raise error(
+            f"condensing temperature {condensing:g} °C is not above the condenser air {air:g} °C",
+            r_at + ("condenser_td",),
+        )
+    limits = REFRIGERANT_LIMITS.get(refrigerant)
+    if limits is None:
+        return
+    lowest, critical = limits
+    if evaporating < lowest:
+        raise error(
+            f"evaporating temperature {evaporating:g} °C (room {room.temperature:g} °C − TD "
+            f"{room.temperature - evaporating:g} K) is below {lowest:g} °C, the lowest temperature of "
+            f"{refrigerant} ({'triple point' if refrigerant in ('R-744', 'R-717') else 'lower limit of its property model'}); "
+            "choose another refrigerant or a smaller evaporator_td",
+            r_at + ("evaporator_td" if room.refrigeration.evaporator_td is not None else "refrigerant",),
+        )
+    if condensing >= critical:
+        hint = (
+            "; transcritical R-744 (gas cooler) is not modelled: choose another refrigerant "
+            "or a condenser air temperature below about 20 °C"
+            if refrigerant == "R-744"
+            else "; choose a smaller condenser_td or another refrigerant"
+        )
+        raise error(
+            f"condensing temperature {condensing:g} °C (condenser air {air:g} °C + TD {condensing - air:g} K) "
+            f"is at or above the critical temperature of {refrigerant}, {critical:g} °C{hint}",
+            r_at + ("refrigerant",),
+        )
+
+
+def _check_defrost(room: "Room", at: tuple, error: ErrorFactory) -> None:
+    defrost = room.defrost
+    total = defrost.per_day * defrost.duration
+    if total > 86400.0:
+        raise error(
+            f"{defrost.per_day:g} defrosts a day of {defrost.duration / 60:g} min each take "
+            f"{total / 3600:.3g} h, more than 24 h",
+            at + ("defrost", "duration"),
+        )
 
 
 def _check_doors(room: "Room", at: tuple, error: ErrorFactory) -> None:
@@ -100,6 +260,15 @@ def _check_doors(room: "Room", at: tuple, error: ErrorFactory) -> None:
             if door.width * door.height > wall_area:
                 raise error(
                     f"door area {door.width * door.height:.3g} m² is larger than the {door.wall} wall ({wall_area:.3g} m²)",
+                    d_at + ("width",),
+                )
+        if door.wall is not None:
+            on_wall = [d for d in room.doors[: j + 1] if d.wall == door.wall]
+            total = sum(d.width * d.height for d in on_wall)
+            if len(on_wall) > 1 and total > room.surface_area(door.wall):
+                raise error(
+                    f"the {len(on_wall)} doors in the {door.wall} wall have {total:.3g} m² together, more than "
+                    f"the wall's {room.surface_area(door.wall):.3g} m²",
                     d_at + ("width",),
                 )
         open_per_day = door.passages_per_day * door.passage_time + door.open_time
@@ -137,6 +306,19 @@ def project_warnings(model: "ProjectModel") -> list[tuple[str, str]]:
                         f"{PASSAGES_PER_HOUR_WARNING:g} an hour around the clock; check the traffic",
                     )
                 )
+        temperatures = design_saturation_temperatures(model, room)
+        limits = _limits_of(room.refrigeration.refrigerant)
+        if temperatures is not None and limits is not None:
+            name, (_, critical) = limits
+            condensing = temperatures[1]
+            if critical - CRITICAL_MARGIN_WARNING <= condensing < critical:
+                out.append(
+                    (
+                        f"{key}.refrigeration",
+                        f"{room.name}: condensing at {condensing:.1f} °C is within {CRITICAL_MARGIN_WARNING:g} K of "
+                        f"the critical temperature of {name} ({critical:g} °C); capacity and efficiency fall steeply",
+                    )
+                )
         if room.safety_factor > SAFETY_FACTOR_WARNING:
             out.append(
                 (
@@ -154,3 +336,14 @@ def project_warnings(model: "ProjectModel") -> list[tuple[str, str]]:
                 )
             )
     return out
+
+
+def _limits_of(refrigerant: str) -> tuple[str, tuple[float, float]] | None:
+    from coldroom.data import refrigerants
+
+    try:
+        name = refrigerants.lookup(refrigerant).name
+    except ColdroomError:
+        return None
+    limits = REFRIGERANT_LIMITS.get(name)
+    return None if limits is None else (name, limits)

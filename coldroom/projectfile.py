@@ -206,7 +206,7 @@ class ProjectInfo(Strict):
             return _dt.date.fromisoformat(str(value)).isoformat()
         except ValueError:
             raise PydanticCustomError(
-                "coldroom_date", "{value!r} is not a date; write YYYY-MM-DD", {"value": value}
+                "coldroom_date", "{value} is not a date; write YYYY-MM-DD", {"value": repr(value)}
             ) from None
 
 
@@ -739,12 +739,34 @@ def _message(error: dict[str, Any]) -> str:
         return "required key is missing"
     if kind == "literal_error":
         return f"{error.get('input')!r} is not one of the valid choices: {msg.split('Input should be ', 1)[-1]}"
+    if kind in ("model_type", "dict_type", "model_attributes_type"):
+        return f"expected a mapping (key: value pairs), got {_kind_of(error.get('input'))}"
+    if kind == "list_type":
+        return f"expected a list (lines starting with '- '), got {_kind_of(error.get('input'))}"
+    if kind == "string_type":
+        return f"expected text, got {_kind_of(error.get('input'))} {error.get('input')!r} (quote it)"
+    if kind == "too_short":
+        return f"needs at least {(error.get('ctx') or {}).get('min_length', 1)} item(s); found none"
     if kind in ("float_parsing", "float_type", "int_parsing"):
         return f"{error.get('input')!r} is not a number"
     if kind in ("greater_than_equal", "less_than_equal", "greater_than", "less_than"):
         ctx = error.get("ctx", {})
         return f"{error.get('input')!r} is outside the valid range ({msg.replace('Input should be ', '')}; {ctx})"
     return msg
+
+
+def _kind_of(value: Any) -> str:
+    if isinstance(value, dict):
+        return "a mapping"
+    if isinstance(value, (list, tuple)):
+        return "a list"
+    if value is None:
+        return "nothing (null)"
+    if isinstance(value, bool):
+        return "true/false"
+    if isinstance(value, (int, float)):
+        return "a number"
+    return "text"
 
 
 def parse_project_data(data: Any, filename: str = "<input>", loaded: Any = None) -> ProjectModel:

@@ -1,0 +1,159 @@
+"""Hostile and mistaken project files: one clear line, exit 65, fast, nothing written.
+
+The corpus is tests/data/hostile/*.yaml (made by _generate.py there); the error
+each file must produce is in tests/data/hostile/expected.yaml. The contract
+checked is the project's own (DESIGN.md "Contracts": exit 65 for an invalid
+project file, one line on stderr ``file:line:col: dotted.key: message``, or
+``file: message`` for a whole-file problem). The time bounds are ours: a
+project file is parsed in well under a second (in-process), and a run of the
+command, including the interpreter start, ends within a few seconds.
+"""
+
+from __future__ import annotations
+
+import re
+import shutil
+import subprocess
+import sys
+import time
+from pathlib import Path
+
+import pytest
+import yaml
+
+from coldroom.errors import ProjectFileError
+from coldroom.projectfile import load_project
+
+CORPUS = Path(__file__).resolve().parents[1] / "data" / "hostile"
+EXPECTED: dict[str, dict] = yaml.safe_load((CORPUS / "expected.yaml").read_text(encoding="utf-8"))
+FILES = sorted(p.name for p in CORPUS.glob("*.yaml") if p.name != "expected.yaml")
+
+#: ``file:line:col: rest`` or ``file: rest``; rest is ``key: message`` when a key is known.
+LINE = re.compile(r"^(?P<file>.+?)(?::(?P<line>\d+):(?P<col>\d+))?: (?P<rest>.+)$")
+
+IN_PROCESS_LIMIT = 1.0  # s, parse and validate one file in-process
+SUBPROCESS_LIMIT = 8.0  # s, one `python -m coldroom validate` run, interpreter start included (shared CI box)
+
+
+def run(*args: str, cwd: Path) -> tuple[subprocess.CompletedProcess[str], float]:
+    start = time.perf_counter()
+    result = subprocess.run(
+        [sys.executable, "-m", "coldroom", *args], capture_output=True, text=True, cwd=cwd, timeout=60
+    )
+    return result, time.perf_counter() - start
+
+
+def check_line(stderr: str, path: str, expected: dict) -> None:
+    lines = stderr.strip().splitlines()
+    assert len(lines) == 1, stderr
+    assert "Traceback" not in stderr
+    match = LINE.match(lines[0])
+    assert match, lines[0]
+    assert match["file"] == path
+    if expected["line"] is None:
+        assert match["line"] is None, lines[0]
+    else:
+        assert (int(match["line"]), int(match["col"])) == (expected["line"], expected["column"]), lines[0]
+    if expected["key"] is not None:
+        assert match["rest"].startswith(expected["key"] + ": "), lines[0]
+    assert expected["message"] in match["rest"], lines[0]
+
+
+def test_corpus_is_complete() -> None:
+    assert len(FILES) >= 40
+    assert set(FILES) == set(EXPECTED), set(FILES) ^ set(EXPECTED)
+
+
+@pytest.mark.parametrize("name", FILES)
+def test_validate_reports_one_line_and_exit_65(name: str, tmp_path: Path) -> None:
+    path = str(CORPUS / name)
+    result, elapsed = run("validate", path, cwd=tmp_path)
+    assert result.returncode == 65, result.stderr
+    check_line(result.stderr, path, EXPECTED[name])
+    assert result.stdout == ""
+    assert elapsed < SUBPROCESS_LIMIT
+    assert list(tmp_path.iterdir()) == []  # no tag ran code, nothing was written
+
+
+@pytest.mark.parametrize("name", FILES)
+def test_in_process_parse_is_fast_and_raises_project_file_error(name: str) -> None:
+    start = time.perf_counter()
+    with pytest.raises(ProjectFileError) as info:
+        load_project(CORPUS / name)
+    elapsed = time.perf_counter() - start
+    assert elapsed < IN_PROCESS_LIMIT, f"{name}: {elapsed:.3f} s"
+    assert EXPECTED[name]["message"] in str(info.value)
+    assert info.value.exit_code == 65
+
+
+@pytest.mark.parametrize("name", FILES)
+def test_load_writes_no_output(name: str, tmp_path: Path) -> None:
+    """`coldroom load FILE --json out.json` on a bad file: exit 65, only the input in its folder.
+
+    Run in-process (typer's CliRunner) to keep 70 interpreter starts out of the suite;
+    the subprocess path is covered by the validate test above and the `size` test below.
+    """
+    from typer.testing import CliRunner
+
+    from coldroom.cli import app
+
+    copy = tmp_path / name
+    shutil.copyfile(CORPUS / name, copy)
+    before = copy.read_bytes()
+    out = tmp_path / "out.json"
+    result = CliRunner().invoke(app, ["load", str(copy), "--json", str(out)])
+    assert result.exit_code == 65, result.output
+    assert sorted(p.name for p in tmp_path.iterdir()) == [name]
+    assert copy.read_bytes() == before
+
+
+def test_oversize_file_is_refused_fast(tmp_path: Path) -> None:
+    """A file over the 1 MiB limit (coldroom.safeyaml.MAX_BYTES) is refused before it is parsed."""
+    from coldroom.safeyaml import MAX_BYTES
+
+    big = tmp_path / "big.yaml"
+    line = "# padding padding padding padding padding padding padding padding\n"
+    big.write_text("project: {name: big}\n" + line * (MAX_BYTES // len(line) + 10), encoding="utf-8")
+    assert big.stat().st_size > MAX_BYTES
+    start = time.perf_counter()
+    with pytest.raises(ProjectFileError, match="larger than the limit"):
+        load_project(big)
+    assert time.perf_counter() - start < IN_PROCESS_LIMIT
+    result, elapsed = run("validate", str(big), cwd=tmp_path)
+    assert result.returncode == 65
+    check_line(result.stderr, str(big), {"line": None, "key": None, "message": "larger than the limit"})
+    assert elapsed < SUBPROCESS_LIMIT
+
+
+def test_a_directory_and_a_missing_file_are_whole_file_errors(tmp_path: Path) -> None:
+    result, _ = run("validate", str(tmp_path), cwd=tmp_path)
+    assert result.returncode == 65
+    check_line(result.stderr, str(tmp_path), {"line": None, "key": None, "message": "is a directory"})
+    missing = str(tmp_path / "nope.yaml")
+    result, _ = run("validate", missing, cwd=tmp_path)
+    assert result.returncode == 65
+    check_line(result.stderr, missing, {"line": None, "key": None, "message": "no such file"})
+
+
+SIZE_SAMPLE = [
+    "billion_laughs.yaml",
+    "python_tag_apply.yaml",
+    "co2_transcritical.yaml",
+    "unknown_refrigerant.yaml",
+    "door_wider_than_wall.yaml",
+]
+
+
+@pytest.mark.parametrize("name", SIZE_SAMPLE)
+def test_size_writes_no_output(name: str, tmp_path: Path) -> None:
+    """`coldroom size FILE` (PDF beside the input) and `--json`: exit 65, nothing written."""
+    probe, _ = run("size", "--help", cwd=tmp_path)
+    if probe.returncode != 0:
+        pytest.skip(f"`coldroom size` is not available yet (exit {probe.returncode}: {probe.stderr.strip()[:80]})")
+    copy = tmp_path / name
+    shutil.copyfile(CORPUS / name, copy)
+    result, elapsed = run("size", str(copy), "--json", str(tmp_path / "out.json"), cwd=tmp_path)
+    assert result.returncode == 65, result.stderr
+    check_line(result.stderr, str(copy), EXPECTED[name])
+    assert sorted(p.name for p in tmp_path.iterdir()) == [name]
+    assert elapsed < SUBPROCESS_LIMIT
