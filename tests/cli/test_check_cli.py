@@ -1,0 +1,111 @@
+"""`coldroom check`: verdict per room, JSON output, exit codes, refusals."""
+
+from __future__ import annotations
+
+import json
+import subprocess
+import sys
+from pathlib import Path
+
+REPO = Path(__file__).resolve().parents[2]
+DEMO = REPO / "project_files" / "cooler_to_freezer.yaml"
+COOLER = REPO / "project_files" / "produce_cooler.yaml"
+
+
+def run(*args: str) -> subprocess.CompletedProcess[str]:
+    return subprocess.run([sys.executable, "-m", "coldroom", *args], capture_output=True, text=True, timeout=120)
+
+
+def test_check_demo_prints_the_verdict() -> None:
+    result = run("check", str(DEMO))
+    assert result.returncode == 0, result.stderr
+    out = result.stdout
+    assert "Room: Freezer (ex produce cooler)" in out
+    assert "verdict: HOLDS" in out
+    assert "capacity at balance" in out and "kW" in out
+    assert "run time needed" in out and "h/day" in out
+    assert "holds up to a condenser air of" in out
+    assert "WARNING:" in out and "application class" in out
+
+
+def test_check_json_to_stdout() -> None:
+    result = run("check", str(DEMO), "--json", "-")
+    assert result.returncode == 0, result.stderr
+    data = json.loads(result.stdout)  # stdout holds only the JSON; the text goes to stderr
+    assert "verdict" in result.stderr
+    room = data["rooms"][0]
+    unit = room["existing_unit"]
+    assert unit["holds"] is True
+    for key in ("capacity_at_balance_w", "required_capacity_w", "run_hours_needed", "margin_percent", "max_ambient_c",
+                "balance_evaporating_c", "balance_condensing_c", "warnings"):
+        assert key in unit
+    assert len(unit["chart"]["ambient_c"]) == len(unit["chart"]["unit_capacity_w"]) == len(unit["chart"]["room_load_w"])
+
+
+def test_room_without_unit_is_listed() -> None:
+    result = run("check", str(COOLER))
+    assert result.returncode == 0, result.stderr
+    assert "no existing unit given" in result.stdout
+
+
+def test_json_file_is_not_overwritten_without_force(tmp_path: Path) -> None:
+    target = tmp_path / "check.json"
+    first = run("check", str(DEMO), "--json", str(target))
+    assert first.returncode == 0, first.stderr
+    assert json.loads(target.read_text(encoding="utf-8"))["rooms"][0]["existing_unit"]["model"] == "rated point"
+    second = run("check", str(DEMO), "--json", str(target))
+    assert second.returncode == 73
+    assert "--force" in second.stderr and len(second.stderr.strip().splitlines()) == 1
+    assert run("check", str(DEMO), "--json", str(target), "--force").returncode == 0
+
+
+def test_json_over_the_input_is_refused(tmp_path: Path) -> None:
+    copy = tmp_path / "p.yaml"
+    copy.write_text(DEMO.read_text(encoding="utf-8"), encoding="utf-8")
+    result = run("check", str(copy), "--json", str(copy), "--force")
+    assert result.returncode == 73
+    assert copy.read_text(encoding="utf-8") == DEMO.read_text(encoding="utf-8")
+
+
+def test_unit_with_two_compressor_descriptions_is_invalid(tmp_path: Path) -> None:
+    text = DEMO.read_text(encoding="utf-8")
+    old = "      unit_cooler: {capacity: 4.0 kW, dt1: 8 K}\n"
+    assert old in text
+    bad = text.replace(
+        old,
+        "      polynomial: {capacity: [1,0,0,0,0,0,0,0,0,0], power: [1,0,0,0,0,0,0,0,0,0], superheat: 10 K,\n"
+        "                   suction_min: -20, suction_max: 10, discharge_min: 25, discharge_max: 60}\n" + old,
+    )
+    path = tmp_path / "bad.yaml"
+    path.write_text(bad, encoding="utf-8")
+    result = run("check", str(path))
+    assert result.returncode == 65
+    line = result.stderr.strip()
+    assert len(line.splitlines()) == 1
+    assert "rooms[0].existing_unit" in line and "exactly one" in line
+
+
+def test_unknown_unit_refrigerant_names_close_names(tmp_path: Path) -> None:
+    text = DEMO.read_text(encoding="utf-8")
+    old = "      refrigerant: R-448A\n      rated_point:"
+    assert old in text
+    path = tmp_path / "bad.yaml"
+    path.write_text(text.replace(old, "      refrigerant: R-448\n      rated_point:"), encoding="utf-8")
+    result = run("check", str(path))
+    assert result.returncode == 65
+    assert "R-448A" in result.stderr
+
+
+def test_polynomial_with_wrong_number_of_coefficients_is_invalid(tmp_path: Path) -> None:
+    text = DEMO.read_text(encoding="utf-8")
+    start = text.index("      rated_point:")
+    end = text.index("      unit_cooler:")
+    poly = (
+        "      polynomial: {capacity: [1,0,0], power: [1,0,0,0,0,0,0,0,0,0], superheat: 10 K,\n"
+        "                   suction_min: -20, suction_max: 10, discharge_min: 25, discharge_max: 60}\n"
+    )
+    path = tmp_path / "bad.yaml"
+    path.write_text(text[:start] + poly + text[end:], encoding="utf-8")
+    result = run("check", str(path))
+    assert result.returncode == 65
+    assert "existing_unit.polynomial.capacity" in result.stderr

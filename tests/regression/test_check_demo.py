@@ -1,0 +1,63 @@
+"""Regression pins: the existing-unit check of the demo project cooler_to_freezer.yaml.
+
+Pins, not validation: they catch unintended changes in the compressor model, the
+balance-point search or the room loads. The physics behind them is checked in
+tests/validation/test_equipment.py and tests/invariants/test_equipment.py. When a
+change is intended, update the numbers here and say why in the commit message.
+"""
+
+from __future__ import annotations
+
+from pathlib import Path
+
+import pytest
+
+pytest.importorskip("CoolProp")
+
+REPO = Path(__file__).resolve().parents[2]
+DEMO = REPO / "project_files" / "cooler_to_freezer.yaml"
+
+PINS = {
+    "balance_evaporating_c": -23.00908,
+    "balance_condensing_c": 40.20783,
+    "capacity_at_balance_w": 2504.540,
+    "power_at_balance_w": 1525.610,
+    "heat_rejection_at_balance_w": 4103.915,
+    "discharge_temperature_c": 100.651,
+    "required_capacity_w": 2302.539,
+    "run_hours_needed": 16.54823,
+    "margin_percent": 8.77296,
+}
+
+
+@pytest.fixture(scope="module")
+def check():  # type: ignore[no-untyped-def]
+    from coldroom.equipment import check_project
+    from coldroom.projectfile import load_project
+
+    ((loads, result),) = check_project(load_project(DEMO))
+    return result
+
+
+def test_demo_verdict_is_pinned(check) -> None:  # type: ignore[no-untyped-def]
+    data = check.to_json()
+    for key, value in PINS.items():
+        assert data[key] == pytest.approx(value, rel=1e-4, abs=1e-4), key
+    assert data["holds"] is True
+    assert data["within_envelope"] is True
+    assert data["model"] == "rated point"
+    assert data["max_ambient_status"] == "found"
+    assert data["max_ambient_c"] == pytest.approx(35.395, abs=0.06)  # search resolution 0.05 K
+    assert any("application class" in w for w in data["warnings"])
+
+
+def test_demo_chart_is_pinned(check) -> None:  # type: ignore[no-untyped-def]
+    chart = check.chart()
+    assert chart["ambient_c"] == [20.0 + 2.5 * i for i in range(11)]
+    assert chart["unit_capacity_w"][0] == pytest.approx(2939.58, rel=1e-4)
+    assert chart["unit_capacity_w"][-1] == pytest.approx(2003.03, rel=1e-4)
+    assert chart["room_load_w"][0] == pytest.approx(2094.38, rel=1e-4)
+    assert chart["room_load_w"][-1] == pytest.approx(2638.48, rel=1e-4)
+    # the capacity line crosses the load line between 35 and 37.5 °C (max ambient 35.4 °C)
+    crossing = [a for a, c, l in zip(chart["ambient_c"], chart["unit_capacity_w"], chart["room_load_w"]) if c < l]
+    assert crossing[0] == 37.5
