@@ -208,3 +208,94 @@ def test_check_result_json_keys_name_units() -> None:
     assert caps[0] > caps[1] > caps[2]  # capacity falls as the ambient rises
     # run hours × capacity = (1 + SF)·E
     assert result.run_hours_needed * 3600.0 * result.capacity_at_balance == pytest.approx(1.1 * 200e6)  # type: ignore[operator]
+
+
+MINI = """
+project: {{name: Demo, units: {units}}}
+design: {{outdoor_temperature: {outdoor}, outdoor_rh: 50 %, ground_temperature: {ground}}}
+constructions:
+  panel: {{layers: [{{material: pur_panel, thickness: 100 mm}}]}}
+rooms:
+  - name: Freezer
+    temperature: {room}
+    rh: 90 %
+    dimensions: {{length: 4 m, width: 3 m, height: 2.6 m}}
+    envelope:
+      walls: {{construction: panel, facing: space, temperature: 20 °C}}
+      ceiling: {{construction: panel, facing: space, temperature: 25 °C}}
+      floor: {{construction: panel, facing: heated_slab, temperature: 10 °C}}
+    existing_unit:
+      refrigerant: R-448A
+{unit}
+"""
+
+RATED_SI = """      rated_point: {capacity: 4500, evaporating_temperature: -10, condensing_temperature: 45, superheat: 10,
+                    power: 2200}"""
+# the same figures in IP: 4500 W = 15354.6 Btu/h; −10 °C = 14 °F; 45 °C = 113 °F; 10 K = 18 °F; W for power
+RATED_IP = """      rated_point: {capacity: 15354.6, evaporating_temperature: 14, condensing_temperature: 113, superheat: 18,
+                    power: 2200 W}"""
+POLY = """      polynomial:
+        units: SI
+        capacity: [{cap}]
+        power: [{pow}]
+        superheat: 10 K
+        suction_min: {smin}
+        suction_max: {smax}
+        discharge_min: {dmin}
+        discharge_max: {dmax}"""
+
+
+def _parse(units: str, unit: str):  # type: ignore[no-untyped-def]
+    from coldroom.projectfile import parse_project_text
+
+    si = units == "SI"
+    return parse_project_text(
+        MINI.format(
+            units=units,
+            outdoor="32" if si else "89.6",
+            ground="12" if si else "53.6",
+            room="-18" if si else "-0.4",
+            unit=unit,
+        )
+    )
+
+
+def test_existing_unit_reads_the_same_in_si_and_ip() -> None:
+    """Unit round trip: a rated point in IP bare numbers (°F, Btu/h, °F difference) equals SI."""
+    from coldroom.equipment import build_compressor
+
+    si = _parse("SI", RATED_SI).rooms[0]
+    ip = _parse("IP", RATED_IP).rooms[0]
+    a = build_compressor(si.existing_unit, si.refrigeration)
+    b = build_compressor(ip.existing_unit, ip.refrigeration)
+    assert b.rated_capacity == pytest.approx(a.rated_capacity, rel=1e-5)
+    assert b.swept_volume == pytest.approx(a.swept_volume, rel=1e-4)
+    assert b.isentropic_efficiency == pytest.approx(a.isentropic_efficiency, rel=1e-4)
+
+
+def test_polynomial_envelope_in_an_ip_project_is_read_in_fahrenheit() -> None:
+    from coldroom.equipment import build_compressor
+
+    text = POLY.format(
+        cap=", ".join(map(str, MT_CAPACITY)), pow=", ".join(map(str, MT_POWER)), smin=-4, smax=50, dmin=77, dmax=140
+    )
+    room = _parse("IP", text).rooms[0]
+    comp = build_compressor(room.existing_unit, room.refrigeration)
+    assert comp.envelope.suction_min == pytest.approx(-20.0)
+    assert comp.envelope.discharge_max == pytest.approx(60.0)
+    assert comp.temperature_unit == "C"  # the coefficients keep their own units (SI here)
+
+
+def test_project_freezer_with_mt_polynomial_is_not_rated() -> None:
+    """End to end: a −18 °C room and a medium-temperature polynomial (S ≥ −20 °C) → refused, flagged."""
+    from coldroom.equipment import check_room
+
+    text = POLY.format(
+        cap=", ".join(map(str, MT_CAPACITY)), pow=", ".join(map(str, MT_POWER)), smin=-20, smax=10, dmin=25, dmax=60
+    )
+    model = _parse("SI", text)
+    result = check_room(model, model.rooms[0], chart=False)
+    assert result is not None
+    assert result.evaporator_basis.startswith("no unit-cooler data")
+    assert result.balance_evaporating == pytest.approx(-18.0 - 5.5)  # freezer TD 5–6 K [trade] via sizing
+    assert result.capacity_at_balance is None and not result.within_envelope and not result.holds
