@@ -74,6 +74,12 @@ def check_project(model: "ProjectModel", error: ErrorFactory) -> None:
             surface = room.envelope.side(side)
             own = getattr(room.envelope, side) is not None
             where = at + ("envelope", side if own else "walls")
+            if surface.facing == "ground" and surface.temperature is not None:
+                raise error(
+                    "a surface facing ground takes design.ground_temperature; remove temperature here "
+                    "(or use facing: heated_slab for a heated plane held at a temperature)",
+                    where + ("temperature",),
+                )
             if isinstance(surface.construction, str) and surface.construction not in model.constructions:
                 names = ", ".join(sorted(model.constructions)) or "none defined"
                 raise error(

@@ -165,6 +165,8 @@ CASES: dict[str, str | bytes] = {
     "defrost_longer_than_a_day.yaml": variant(("      per_day: 4\n      duration: 30 min\n", "      per_day: 20\n      duration: 90 min\n")),
     "colour_on_inside_wall.yaml": variant(("      walls: {construction: panel, facing: space, temperature: 20 °C}\n",
                                            "      walls: {construction: panel, facing: space, temperature: 20 °C, colour: dark}\n")),
+    "ground_with_temperature.yaml": variant(("      floor: {construction: panel, facing: ground}\n",
+                                             "      floor: {construction: panel, facing: ground, temperature: 15 °C}\n")),
     "wall_without_temperature.yaml": variant(("      walls: {construction: panel, facing: space, temperature: 20 °C}\n",
                                               "      walls: {construction: panel, facing: space}\n")),
 }
