@@ -38,11 +38,18 @@ def fail(error: ColdroomError) -> "typer.Exit":
 
 
 def guarded(func: Callable[[], None]) -> None:
-    """Run *func*, turning any ColdroomError into a one-line message and exit code."""
+    """Run *func*, turning any ColdroomError into a one-line message and exit code.
+
+    Ctrl-C is reported here too (typer would otherwise exit 130 silently):
+    :func:`coldroom.output.write_atomic` has removed its temporary file by then.
+    """
     try:
         func()
     except ColdroomError as error:
         raise fail(error) from None
+    except KeyboardInterrupt:
+        print("coldroom: interrupted; no output was written", file=sys.stderr)
+        raise typer.Exit(code=130) from None
 
 
 def version_callback(value: bool) -> None:

@@ -1,0 +1,220 @@
+"""Nothing lost: no half-written output after an interruption, never over the input, --force to overwrite.
+
+The contract is the project's own (DESIGN.md: exit 73 "cannot write output";
+coldroom/output.py: atomic replace, inputs and existing files refused).
+"""
+
+from __future__ import annotations
+
+import json
+import os
+import shutil
+import signal
+import subprocess
+import sys
+import tempfile
+import time
+from pathlib import Path
+
+import pytest
+
+from coldroom.errors import OutputError
+from coldroom.output import write_atomic
+
+REPO = Path(__file__).resolve().parents[2]
+DEMO = REPO / "project_files" / "produce_cooler.yaml"
+
+
+def run(*args: str, cwd: Path) -> subprocess.CompletedProcess[str]:
+    return subprocess.run(
+        [sys.executable, "-m", "coldroom", *args], capture_output=True, text=True, cwd=cwd, timeout=120
+    )
+
+
+@pytest.fixture()
+def project(tmp_path: Path) -> Path:
+    path = tmp_path / "room.yaml"
+    shutil.copyfile(DEMO, path)
+    return path
+
+
+# --- interruption ------------------------------------------------------------------------------
+
+
+class _HalfThenInterrupt:
+    """Wraps the temporary file: writes half the payload, then Ctrl-C arrives."""
+
+    def __init__(self, handle):
+        self._handle = handle
+        self.name = handle.name
+
+    def write(self, data: bytes) -> int:
+        self._handle.write(data[: len(data) // 2])
+        self._handle.flush()
+        raise KeyboardInterrupt
+
+    def __enter__(self):
+        return self
+
+    def __exit__(self, *exc):
+        return self._handle.__exit__(*exc)
+
+    def __getattr__(self, name):
+        return getattr(self._handle, name)
+
+
+@pytest.mark.parametrize("existing", [False, True], ids=["new-file", "over-existing-with-force"])
+def test_interrupt_mid_write_leaves_no_partial_file(
+    tmp_path: Path, monkeypatch: pytest.MonkeyPatch, existing: bool
+) -> None:
+    target = tmp_path / "result.json"
+    if existing:
+        target.write_text("precious old result\n")
+    real = tempfile.NamedTemporaryFile
+    monkeypatch.setattr(
+        "coldroom.output.tempfile.NamedTemporaryFile", lambda *a, **k: _HalfThenInterrupt(real(*a, **k))
+    )
+    with pytest.raises(KeyboardInterrupt):
+        write_atomic(target, "x" * 100_000, force=existing)
+    left = sorted(p.name for p in tmp_path.iterdir())
+    assert left == (["result.json"] if existing else [])
+    if existing:
+        assert target.read_text() == "precious old result\n"
+
+
+CHILD = r"""
+import sys, tempfile, time
+import coldroom.output as output
+
+real = tempfile.NamedTemporaryFile
+
+
+class Slow:
+    def __init__(self, handle):
+        self.handle = handle
+        self.name = handle.name
+
+    def write(self, data):
+        self.handle.write(data[: len(data) // 2])
+        self.handle.flush()
+        print("HALF-WRITTEN", flush=True)
+        time.sleep(60)
+        return self.handle.write(data[len(data) // 2 :])
+
+    def __enter__(self):
+        return self
+
+    def __exit__(self, *exc):
+        return self.handle.__exit__(*exc)
+
+    def __getattr__(self, name):
+        return getattr(self.handle, name)
+
+
+output.tempfile.NamedTemporaryFile = lambda *a, **k: Slow(real(*a, **k))
+sys.argv = ["coldroom", "load", sys.argv[1], "--json", sys.argv[2]]
+from coldroom.cli import main
+
+main()
+"""
+
+
+@pytest.mark.skipif(sys.platform == "win32", reason="SIGINT to a child process is POSIX")
+def test_sigint_during_write_leaves_only_the_input(project: Path) -> None:
+    """A real Ctrl-C (SIGINT) to `coldroom load --json` while half the JSON is on disk."""
+    folder = project.parent
+    child = subprocess.Popen(
+        [sys.executable, "-c", CHILD, str(project), str(folder / "room.json")],
+        stdout=subprocess.PIPE,
+        stderr=subprocess.PIPE,
+        text=True,
+        cwd=folder,
+    )
+    try:
+        deadline = time.monotonic() + 60
+        assert child.stdout is not None
+        for line in child.stdout:
+            if line.strip() == "HALF-WRITTEN":
+                break
+            assert time.monotonic() < deadline
+        else:
+            pytest.fail(f"child ended before writing: {child.stderr.read() if child.stderr else ''}")
+        temporaries = [p.name for p in folder.iterdir() if p.name != "room.yaml"]
+        assert len(temporaries) == 1 and temporaries[0].endswith(".tmp")  # the half-written file exists now
+        child.send_signal(signal.SIGINT)
+        _, stderr = child.communicate(timeout=30)
+    finally:
+        if child.poll() is None:
+            child.kill()
+            child.wait()
+    assert child.returncode == 130, stderr
+    assert "interrupted; no output was written" in stderr
+    assert sorted(p.name for p in folder.iterdir()) == ["room.yaml"]
+    assert project.read_bytes() == DEMO.read_bytes()
+
+
+# --- never over the input ------------------------------------------------------------------------
+
+
+def test_json_over_the_input_is_refused(project: Path) -> None:
+    before = project.read_bytes()
+    for extra in ([], ["--force"]):
+        result = run("load", str(project), "--json", str(project), *extra, cwd=project.parent)
+        assert result.returncode == 73, result.stderr
+        assert "refusing to write over the input file" in result.stderr
+        assert len(result.stderr.strip().splitlines()) == 1
+        assert project.read_bytes() == before
+    assert sorted(p.name for p in project.parent.iterdir()) == ["room.yaml"]
+
+
+def test_json_over_the_input_through_another_name_is_refused(project: Path) -> None:
+    before = project.read_bytes()
+    (project.parent / "alias.json").symlink_to(project)
+    os.link(project, project.parent / "hardlink.json")
+    for name in ("alias.json", "hardlink.json"):
+        result = run("load", str(project), "--json", name, "--force", cwd=project.parent)
+        assert result.returncode == 73, result.stderr
+        assert "refusing to write over the input file" in result.stderr
+        assert project.read_bytes() == before
+    relative = run("load", "room.yaml", "--json", "./room.yaml", "--force", cwd=project.parent)
+    assert relative.returncode == 73
+    assert project.read_bytes() == before
+
+
+def test_size_out_over_the_input_is_refused(project: Path) -> None:
+    probe = run("size", "--help", cwd=project.parent)
+    if probe.returncode != 0:
+        pytest.skip("`coldroom size` is not available")
+    before = project.read_bytes()
+    for args in (["--out", str(project)], ["--json", str(project)], ["--out", str(project), "--force"]):
+        result = run("size", str(project), *args, cwd=project.parent)
+        assert result.returncode == 73, result.stderr
+        assert "refusing to write over the input file" in result.stderr
+        assert project.read_bytes() == before
+    assert sorted(p.name for p in project.parent.iterdir()) == ["room.yaml"]
+
+
+# --- existing files need --force -------------------------------------------------------------------
+
+
+def test_existing_output_needs_force(project: Path) -> None:
+    out = project.parent / "room.json"
+    out.write_text("precious\n")
+    refused = run("load", str(project), "--json", str(out), cwd=project.parent)
+    assert refused.returncode == 73, refused.stderr
+    assert "already exists; pass --force to overwrite it" in refused.stderr
+    assert out.read_text() == "precious\n"
+    forced = run("load", str(project), "--json", str(out), "--force", cwd=project.parent)
+    assert forced.returncode == 0, forced.stderr
+    data = json.loads(out.read_text())
+    assert data["rooms"][0]["required_capacity_w"] > 0
+    assert sorted(p.name for p in project.parent.iterdir()) == ["room.json", "room.yaml"]
+
+
+def test_write_atomic_refuses_existing_without_force(tmp_path: Path) -> None:
+    target = tmp_path / "a.json"
+    target.write_text("keep")
+    with pytest.raises(OutputError, match="--force"):
+        write_atomic(target, "new", force=False)
+    assert target.read_text() == "keep"
+    assert sorted(p.name for p in tmp_path.iterdir()) == ["a.json"]
