@@ -68,14 +68,22 @@ def diagram_data(refrigerant: str, pressure_low: float, pressure_high: float, is
     from coldroom.refrigerant import get_fluid
 
     fluid = get_fluid(refrigerant)
-    try:
-        t_low = fluid.dew_temperature(max(pressure_low * 0.8, fluid.minimum_pressure * 1.01))
-    except ColdroomError:
-        t_low = None
-    try:
-        pressures, liquid, vapour = fluid.saturation_dome(48, minimum_temperature=t_low)
-    except (ColdroomError, ValueError):
-        pressures, liquid, vapour = [], [], []
+    # the dome only where the window needs it: 30 pressure levels, geometric
+    top_fraction = 0.94 if fluid.info.model == "mixture" else 0.99  # as Fluid.saturation_dome
+    p_a = max(pressure_low * 0.8, fluid.minimum_pressure * 1.01)
+    p_b = min(pressure_high * 1.3, top_fraction * fluid.critical_pressure)
+    pressures, liquid, vapour = [], [], []
+    levels = 30
+    for i in range(levels):
+        p = p_a * (p_b / p_a) ** (i / (levels - 1))
+        try:
+            hl = fluid.saturated_state(0.0, pressure=p).h
+            hv = fluid.saturated_state(1.0, pressure=p).h
+        except ColdroomError:
+            continue
+        pressures.append(p)
+        liquid.append(hl)
+        vapour.append(hv)
     isotherms = []
     for temperature in isotherm_temperatures:
         try:
@@ -83,8 +91,8 @@ def diagram_data(refrigerant: str, pressure_low: float, pressure_high: float, is
         except ColdroomError:
             continue
         top = min(p_dew * 0.999, pressure_high * 1.2)
-        levels = [top * (pressure_low * 0.8 / top) ** (i / 11.0) for i in range(12)]
-        points = [(s.h, s.p) for s in fluid.isotherm(temperature, levels) if s.quality is None]
+        steps = [top * (pressure_low * 0.8 / top) ** (i / 8.0) for i in range(9)]
+        points = [(s.h, s.p) for s in fluid.isotherm(temperature, steps) if s.quality is None]
         if p_dew < pressure_high * 1.2:
             try:
                 dew = fluid.saturated_state(1.0, temperature=temperature)

@@ -281,7 +281,7 @@ def summary_section(ctx: SheetContext) -> list:
             ]
         )
     w = ctx.width
-    widths = [0.17 * w, 0.14 * w, 0.15 * w, 0.1 * w, 0.16 * w, 0.14 * w, 0.14 * w]
+    widths = [0.15 * w, 0.17 * w, 0.13 * w, 0.11 * w, 0.17 * w, 0.135 * w, 0.135 * w]
     return [heading("Summary", H3), grid(rows, widths, align_right=(2, 5, 6)), Spacer(1, 4)]
 
 
@@ -537,7 +537,7 @@ def _ph_chart(ctx: SheetContext, index: int, cyc: dict) -> Any:
     except ColdroomError:
         return note("The pressure–enthalpy diagram could not be drawn for this refrigerant.", SMALL)
     title = f"Pressure–enthalpy diagram, {cyc['refrigerant']}"
-    return PHChart(states, data, ctx.system, ctx.width, 250.0, title=title)
+    return PHChart(states, data, ctx.system, ctx.width, 235.0, title=title)
 
 
 def _isotherm_temperatures(system: str, states: Sequence[dict]) -> list[float]:
@@ -547,10 +547,11 @@ def _isotherm_temperatures(system: str, states: Sequence[dict]) -> list[float]:
     unit = _units.DISPLAY_UNITS[system]["temperature"]
     low = _units.to_unit(states[0]["t_c"], "temperature", unit)
     high = _units.to_unit(states[1]["t_c"], "temperature", unit)
-    step = (20.0 if high - low > 50 else 10.0) if system == "SI" else (40.0 if high - low > 90 else 20.0)
+    candidates = (10.0, 20.0, 25.0, 50.0) if system == "SI" else (20.0, 40.0, 50.0, 100.0)
+    step = next((c for c in candidates if (high - low) / c <= 4.0), candidates[-1])
     t = (int(low // step) + 1) * step
     temps = []
-    while t < high + step and len(temps) < 6:
+    while t < high + step and len(temps) < 5:
         temps.append(_units.parse_quantity(f"{t} {unit}", "temperature"))
         t += step
     return temps
