@@ -377,6 +377,8 @@ class Fluid:
         if len(self._sat_cache) > 4096:
             self._sat_cache.clear()
         self._sat_cache[key] = state
+        # the same state answers the pressure-keyed question (the cycle asks both)
+        self._sat_cache[("P", state.p, float(quality))] = state
         return state
 
     def saturated_vapour(self, temperature: float | None = None, pressure: float | None = None) -> StatePoint:
