@@ -61,7 +61,7 @@ The ten-coefficient form evaluated by hand (only C1, C2, C3 non-zero):
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass, field
+from dataclasses import dataclass, replace
 from typing import TYPE_CHECKING, Any, Callable, Optional, Sequence
 
 from coldroom.errors import CalculationError, PropertyRangeError
@@ -410,6 +410,12 @@ class RatedPointCompressor:
             notes.append(
                 f"swept volume {swept_volume * 3600:.2f} m³/h given: volumetric efficiency {efficiency:.3f} at rating, "
                 f"effective clearance {clearance:.3f}"
+                + (
+                    " (above the 0.03–0.06 of reciprocating compressors [mem]: leakage or a worn compressor "
+                    "lumped into it; check the swept volume)"
+                    if clearance > 0.1
+                    else ""
+                )
             )
         else:
             efficiency = clearance_volumetric_efficiency(clearance, suction.density, isentropic.density)
@@ -1373,6 +1379,7 @@ def check_room(
     unit = room.existing_unit
     if unit is None:
         return None
+    from coldroom.data import refrigerants
     from coldroom.loads import room_loads
     from coldroom.sizing import design_temperatures
 
@@ -1437,6 +1444,16 @@ def check_room(
         search_max_ambient=chart,
         name=unit.name,
     )
+    if compressor.refrigerant != refrigerants.lookup(r.refrigerant).name:
+        result = replace(
+            result,
+            warnings=result.warnings
+            + (
+                f"the existing unit is given with {compressor.refrigerant} but the room's refrigeration block names "
+                f"{refrigerants.lookup(r.refrigerant).name}; the check uses {compressor.refrigerant} (a retrofit to "
+                "another refrigerant changes capacity: give the unit's data for the refrigerant it will run on)",
+            ),
+        )
     return result
 
 

@@ -299,3 +299,14 @@ def test_project_freezer_with_mt_polynomial_is_not_rated() -> None:
     assert result.evaporator_basis.startswith("no unit-cooler data")
     assert result.balance_evaporating == pytest.approx(-18.0 - 5.5)  # freezer TD 5–6 K [trade] via sizing
     assert result.capacity_at_balance is None and not result.within_envelope and not result.holds
+
+
+def test_unit_refrigerant_other_than_the_rooms_is_warned() -> None:
+    from coldroom.equipment import check_room
+    from coldroom.projectfile import parse_project_text
+
+    text = MINI.format(units="SI", outdoor="32", ground="12", room="-18", unit=RATED_SI)
+    model = parse_project_text(text.replace("      refrigerant: R-448A\n", "      refrigerant: R-404A\n"))
+    result = check_room(model, model.rooms[0], chart=False)
+    assert result is not None and result.refrigerant == "R-404A"
+    assert any("R-404A" in w and "R-448A" in w for w in result.warnings)
