@@ -157,3 +157,54 @@ def test_size_writes_no_output(name: str, tmp_path: Path) -> None:
     check_line(result.stderr, str(copy), EXPECTED[name])
     assert sorted(p.name for p in tmp_path.iterdir()) == [name]
     assert elapsed < SUBPROCESS_LIMIT
+
+
+# --- legal but implausible: warnings, exit 0 ------------------------------------------------------
+
+IMPLAUSIBLE = {
+    # (text in the base file, replacement, dotted key of the warning, fragment)
+    "u_value": (
+        "    layers:\n      - material: pur_panel\n        thickness: 100 mm\n",
+        "    u_value: 1.5 W/m²K\n",
+        "rooms[0].envelope.north",
+        "U = 1.50 W/(m²·K) is high for a cold room",
+    ),
+    "door_traffic": (
+        "        passages_per_day: 40\n",
+        "        passages_per_day: 4000\n",
+        "rooms[0].doors[0].passages_per_day",
+        "4000 passages a day is more than 120 an hour",
+    ),
+    "safety_factor": (
+        "    refrigeration:\n",
+        "    safety_factor: 60 %\n    refrigeration:\n",
+        "rooms[0].safety_factor",
+        "safety factor 60% is above 50 %",
+    ),
+    "near_critical": (
+        "      refrigerant: R-448A\n",
+        "      refrigerant: R-404A\n      condenser_air_temperature: 45 °C\n      condenser_td: 23 K\n",
+        "rooms[0].refrigeration",
+        "within 5 K of the critical temperature of R-404A",
+    ),
+}
+
+
+@pytest.mark.parametrize("case", sorted(IMPLAUSIBLE))
+def test_implausible_values_are_warnings_with_exit_0(case: str, tmp_path: Path) -> None:
+    """Thresholds are coldroom.checks' (common practice, no source): warn, do not refuse."""
+    import importlib.util
+
+    spec = importlib.util.spec_from_file_location("hostile_generate", CORPUS / "_generate.py")
+    assert spec and spec.loader
+    generate = importlib.util.module_from_spec(spec)
+    spec.loader.exec_module(generate)
+    old, new, key, fragment = IMPLAUSIBLE[case]
+    path = tmp_path / f"{case}.yaml"
+    path.write_text(generate.variant((old, new)), encoding="utf-8")
+    result, _ = run("validate", str(path), cwd=tmp_path)
+    assert result.returncode == 0, result.stderr
+    assert "valid" in result.stdout
+    warnings = [line for line in result.stderr.splitlines() if line.startswith(f"{path}: warning: {key}: ")]
+    assert any(fragment in line for line in warnings), result.stderr
+    assert all(": warning: " in line for line in result.stderr.splitlines()), result.stderr
