@@ -72,8 +72,8 @@ def q(value_si: float | None, kind: str, system: str, digits: int | None = None)
 
     Examples
     --------
-    >>> q(2.0, "temperature", "SI")
-    '2.00 °C'
+    >>> q(0.1, "thickness", "SI")
+    '100 mm'
     >>> q(None, "power", "SI")
     '–'
     """
