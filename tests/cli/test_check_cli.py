@@ -109,3 +109,19 @@ def test_polynomial_with_wrong_number_of_coefficients_is_invalid(tmp_path: Path)
     result = run("check", str(path))
     assert result.returncode == 65
     assert "existing_unit.polynomial.capacity" in result.stderr
+
+
+def test_check_help_and_rooms_without_unit_do_not_import_coolprop() -> None:
+    """CoolProp is imported only when a room has an existing unit to evaluate."""
+    probe = (
+        "import sys\n"
+        "from coldroom.cli import app\n"
+        "try:\n"
+        "    app(sys.argv[1:], standalone_mode=False)\n"
+        "except SystemExit:\n"
+        "    pass\n"
+        "print('HEAVY:' + ','.join(sorted(m for m in sys.modules if m.split('.')[0] in ('CoolProp', 'reportlab'))))\n"
+    )
+    for args in (["check", "--help"], ["check", str(COOLER)]):
+        result = subprocess.run([sys.executable, "-c", probe, *args], capture_output=True, text=True, timeout=120)
+        assert result.stdout.strip().splitlines()[-1] == "HEAVY:", (args, result.stdout, result.stderr)
