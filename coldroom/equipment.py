@@ -46,6 +46,15 @@ Conventions and choices (documented here once):
   S = t_room − TD_evap, D = t_ambient + TD_cond. The evaporator is then
   assumed able to take whatever the compressor pumps at that TD — an
   optimistic assumption stated in the result's ``evaporator_basis``.
+* **Verdict.** ``holds`` when the capacity at balance covers the room's
+  required capacity (1 + SF)·E/run time (ASHRAE Handbook—Refrigeration,
+  "Refrigerated-Facility Loads" [pub]); equivalently when the run hours
+  needed, (1 + SF)·E/capacity, fit in the room's run time. A capacity below
+  the peak-hour load is a warning, not a failure.
+* **Ambient.** "Ambient" is the air on the condenser. For the chart and the
+  highest-ambient search the outdoor design air moves with it (same shift,
+  outdoor RH held; surfaces facing other spaces keep their temperatures) and
+  the room load is recomputed at each ambient (:func:`check_room`).
 
 Examples
 --------
