@@ -108,7 +108,6 @@ CHART_AMBIENTS: tuple[float, ...] = tuple(20.0 + 2.5 * i for i in range(11))
 #: Range searched for the highest ambient at which the unit holds [°C].
 MAX_AMBIENT_RANGE = (10.0, 55.0)
 
-KELVIN = 273.15  # K at 0 °C (exact)
 _POUND = 0.45359237  # kg, exact (1959 agreement)
 _BTU_PER_HOUR = 1055.05585262 / 3600.0  # W per Btu/h, International Table Btu (NIST SP 811)
 
