@@ -4,7 +4,36 @@ The pydantic models check each field on its own (type, unit, range); this
 module checks what needs several fields at once. Errors are raised through a
 callback so the caller can attach the file position of the offending key.
 
+Errors (exit 65), each naming the key, the value and why:
+
+- a construction name not defined; a ground-facing surface given its own
+  temperature (it would be ignored: the ground takes
+  ``design.ground_temperature``);
+- outdoor wet bulb above the dry bulb, or below the dry-air wet bulb;
+- a room not colder than outdoors; an inside volume under
+  :data:`MIN_ROOM_VOLUME`;
+- condenser air not warmer than the room; an unknown refrigerant; the
+  evaporating temperature (room − evaporator TD) below the refrigerant's
+  triple point or model limit, or the condensing temperature (condenser air
+  + condenser TD) at or above its critical temperature (transcritical R-744
+  is not modelled) — see :data:`REFRIGERANT_LIMITS`;
+- a door taller than the room, wider than or larger than its wall, doors
+  together larger than their wall, a door standing open more than 24 h;
+- defrosts taking more than 24 h a day;
+- product leaving warmer than it entered, or colder than the room.
+
+Warnings (:func:`project_warnings`, exit 0) for legal but implausible input.
 Thresholds for warnings are common practice, no source, unless noted.
+
+Examples
+--------
+>>> from coldroom.projectfile import parse_project_text
+>>> from importlib.resources import files
+>>> text = files("coldroom.data").joinpath("starter.yaml").read_text(encoding="utf-8")
+>>> model = parse_project_text(text)
+>>> evaporating, condensing = design_saturation_temperatures(model, model.rooms[0])
+>>> evaporating < model.rooms[0].temperature < model.design.outdoor_temperature < condensing
+True
 """
 
 from __future__ import annotations
@@ -33,7 +62,8 @@ MIN_ROOM_VOLUME = 1.0  # m³: below this it is a cabinet, not a walk-in room (co
 #: critical temperature (for a blend, the mixture critical point of the
 #: nominal composition). Values read from CoolProp 8.0 here
 #: (``PropsSI('Ttriple'|'Tcrit', fluid)``; for the ``.mix`` blends
-#: ``AbstractState('HEOS', fluid).all_critical_points()``, the highest one)
+#: ``AbstractState('HEOS', fluid).all_critical_points()``: the physical one near the top
+#: of the two-phase region, the lowest where several lie within 2 K, R-452A)
 #: [pub: CoolProp 8.0 / NIST REFPROP values]. Kept as plain numbers so that
 #: ``coldroom validate`` never imports CoolProp.
 REFRIGERANT_LIMITS_SOURCE = "CoolProp 8.0 Ttriple/Tmin and Tcrit (mixture critical point) [pub]"
@@ -62,7 +92,16 @@ REFRIGERANT_LIMITS: dict[str, tuple[float, float]] = {
 
 
 def check_project(model: "ProjectModel", error: ErrorFactory) -> None:
-    """Raise (via *error*) the first impossible combination in *model*."""
+    """Raise (via *error*) the first impossible combination in *model*.
+
+    Parameters
+    ----------
+    model : ProjectModel
+        A project whose fields have passed their own validation.
+    error : callable
+        ``error(message, key_path)`` returns the exception to raise; the
+        project-file loader attaches file, line and column of *key_path*.
+    """
     from coldroom.data import refrigerants
 
     design = model.design
@@ -162,6 +201,13 @@ def _check_geometry(room: "Room", at: tuple, error: ErrorFactory) -> None:
 
 def design_saturation_temperatures(model: "ProjectModel", room: "Room") -> tuple[float, float] | None:
     """Evaporating and condensing dew temperatures the sizing will use [°C], or None.
+
+    Parameters
+    ----------
+    model : ProjectModel
+        The project (design outdoor temperature [°C]).
+    room : Room
+        The room (temperature [°C], RH [-], refrigeration choices).
 
     Evaporating = room − evaporator TD; condensing = condenser air (default the
     outdoor dry bulb) + condenser TD; the default TDs come from

@@ -1,0 +1,46 @@
+"""The refrigerant temperature limits used by `coldroom validate` (coldroom.checks.REFRIGERANT_LIMITS).
+
+checks.py keeps plain numbers so that validation never imports CoolProp; here
+they are compared with CoolProp 8.0 itself (the reference library, which
+implements the NIST REFPROP-grade equations of state): the triple point /
+model lower limit (``Ttriple``) and the critical temperature (``Tcrit``; for the
+predefined ``.mix`` blends, the critical points found by
+``AbstractState.all_critical_points``). Tolerance 0.01 K: the table holds
+CoolProp's values rounded to 0.01 K. Textbook values for orientation (from
+memory): CO₂ triple point −56.6 °C, critical 31.0 °C; ammonia triple point
+−77.7 °C, critical 132.3–132.4 °C.
+"""
+
+from __future__ import annotations
+
+import pytest
+
+from coldroom.checks import REFRIGERANT_LIMITS
+from coldroom.data.refrigerants import CATALOGUE
+
+CP = pytest.importorskip("CoolProp.CoolProp")
+K = 273.15
+
+
+def test_every_catalogue_refrigerant_has_limits() -> None:
+    assert set(REFRIGERANT_LIMITS) == {info.name for info in CATALOGUE}
+
+
+@pytest.mark.parametrize("info", CATALOGUE, ids=lambda i: i.name)
+def test_limits_match_coolprop(info) -> None:
+    lowest, critical = REFRIGERANT_LIMITS[info.name]
+    assert CP.PropsSI("Ttriple", info.coolprop_name) - K == pytest.approx(lowest, abs=0.01)
+    if info.model == "mixture":
+        points = [p.T - K for p in CP.AbstractState("HEOS", info.coolprop_name).all_critical_points()]
+        # the table keeps the lowest of the critical points near the top of the two-phase region
+        near_top = [t for t in points if t > max(points) - 2.0]
+        assert critical == pytest.approx(min(near_top), abs=0.01)
+    else:
+        assert CP.PropsSI("Tcrit", info.coolprop_name) - K == pytest.approx(critical, abs=0.01)
+
+
+def test_textbook_values_from_memory() -> None:
+    """CO₂ and ammonia limits agree with the textbook values (from memory) to 0.2 K."""
+    assert REFRIGERANT_LIMITS["R-744"] == pytest.approx((-56.6, 31.0), abs=0.1)
+    assert REFRIGERANT_LIMITS["R-717"][0] == pytest.approx(-77.7, abs=0.1)
+    assert REFRIGERANT_LIMITS["R-717"][1] == pytest.approx(132.3, abs=0.2)
