@@ -76,9 +76,9 @@ CELL = ParagraphStyle("cell", parent=BODY, fontSize=8, leading=10)
 CELL_SMALL = ParagraphStyle("cellsmall", parent=BODY, fontSize=7.2, leading=9)
 H1 = ParagraphStyle("h1", parent=BODY, fontName="Helvetica-Bold", fontSize=16, leading=20, textColor=INK)
 H2 = ParagraphStyle("h2", parent=BODY, fontName="Helvetica-Bold", fontSize=12.5, leading=16, textColor=ACCENT,
-                    spaceBefore=2, spaceAfter=4)
+                    spaceBefore=2, spaceAfter=4, keepWithNext=1)
 H3 = ParagraphStyle("h3", parent=BODY, fontName="Helvetica-Bold", fontSize=9.5, leading=12, textColor=INK,
-                    spaceBefore=8, spaceAfter=3)
+                    spaceBefore=8, spaceAfter=3, keepWithNext=1)
 FIGURE = ParagraphStyle("figure", parent=BODY, fontName="Helvetica-Bold", fontSize=12, leading=14, textColor=INK)
 LABEL = ParagraphStyle("label", parent=BODY, fontSize=7, leading=8.5, textColor=MUTED)
 
@@ -440,7 +440,8 @@ def load_lines_section(ctx: SheetContext, index: int) -> list:
     w = ctx.width
     return [
         heading("Load lines"),
-        note("Each line as calculated; the working column shows the inputs in SI units.", TINY),
+        note("Each line as calculated; the working column shows the inputs in SI units.",
+             ParagraphStyle("tinynext", parent=TINY, keepWithNext=1)),
         Spacer(1, 2),
         grid(rows, [0.13 * w, 0.25 * w, 0.12 * w, 0.50 * w], align_right=(2,), style=CELL_SMALL),
     ]
