@@ -161,6 +161,7 @@ class RoomResult:
         out["evaporating_temperature_c"] = self.evaporating_temperature
         out["condensing_temperature_c"] = self.condensing_temperature
         out["condenser_air_temperature_c"] = self.condenser_air_temperature
+        out["sizing_basis"] = [{"item": what, "value": value} for what, value in self.sizing_basis]
         out["cycle"] = self.cycle.to_json() if self.cycle is not None else None
         if self.check is not None:
             out["existing_unit"] = self.check.to_json()

@@ -209,7 +209,9 @@ def load_products() -> dict[str, Product]:
     import yaml
 
     text = resources.files("coldroom").joinpath("data/products.yaml").read_text(encoding="utf-8")
-    raw = yaml.safe_load(text)
+    # The C loader (libyaml) when available: about ten times faster on this trusted package data.
+    loader = getattr(yaml, "CSafeLoader", yaml.SafeLoader)
+    raw = yaml.load(text, Loader=loader)  # noqa: S506 - a safe loader either way
     sources = raw["sources"]
     products: dict[str, Product] = {}
     for key, entry in raw["products"].items():
