@@ -565,7 +565,8 @@ def _warnings(info, discharge_temperature: float, pressure_ratio: float, suction
         )
     if pressure_ratio > PRESSURE_RATIO_ADVISORY:
         out.append(
-            f"pressure ratio {pressure_ratio:.1f} is beyond the ≈8–10 usual for single-stage compression [trade]"
+            f"pressure ratio {pressure_ratio:.1f} is at or past the ≈8–10 where single-stage compression stops "
+            "being sensible: choose a low-temperature compressor rated for it, or two stages [trade]"
         )
     if suction_pressure < STANDARD_ATMOSPHERE:
         out.append(
