@@ -349,6 +349,7 @@ def size_room(model: "ProjectModel", room: "Room") -> "RoomResult":
     """
     from coldroom.cycle import solve_cycle
     from coldroom.data import refrigerants
+    from coldroom.equipment import check_room
     from coldroom.loads import room_loads
     from coldroom.results import RoomResult
 
@@ -394,7 +395,7 @@ def size_room(model: "ProjectModel", room: "Room") -> "RoomResult":
         condenser_air_temperature=temps.condenser_air_temperature,
         sizing_basis=_basis(model, room, loads, temps),
         cycle=cycle,
-        check=None,
+        check=check_room(model, room, loads),
         warnings=tuple(warnings),
     )
 

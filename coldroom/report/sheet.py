@@ -44,6 +44,7 @@ from reportlab.platypus import (
 )
 
 from coldroom.report.charts import INK, MUTED, RULE, BarChart
+from coldroom.report.check_section import existing_unit_section
 from coldroom.report.text import capacity, clean, esc, q, temperature
 
 ACCENT = colors.HexColor("#4F6D8A")
@@ -656,6 +657,7 @@ ROOM_SECTIONS: list[Callable[[SheetContext, int], list]] = [
     loads_section,
     duties_section,
     cycle_section,
+    existing_unit_section,
     room_warnings_section,
     cautions_section,
     load_lines_section,
