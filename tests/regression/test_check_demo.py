@@ -61,3 +61,21 @@ def test_demo_chart_is_pinned(check) -> None:  # type: ignore[no-untyped-def]
     # the capacity line crosses the load line between 35 and 37.5 °C (max ambient 35.4 °C)
     crossing = [a for a, c, l in zip(chart["ambient_c"], chart["unit_capacity_w"], chart["room_load_w"]) if c < l]
     assert crossing[0] == 37.5
+
+
+def test_size_carries_the_check_into_json_and_sheet() -> None:
+    """`size` runs the same check (one call, coldroom.equipment.check_room) and prints its section."""
+    import io
+
+    from coldroom.projectfile import load_project
+    from coldroom.report.sheet import render_sheet
+    from coldroom.sizing import size_project
+
+    pypdf = pytest.importorskip("pypdf")
+    model = load_project(DEMO)
+    result = size_project(model, str(DEMO), DEMO.read_bytes())
+    unit = result.to_json()["rooms"][0]["existing_unit"]
+    assert unit["capacity_at_balance_w"] == pytest.approx(PINS["capacity_at_balance_w"], rel=1e-4)
+    text = "".join(page.extract_text() for page in pypdf.PdfReader(io.BytesIO(render_sheet(result, model))).pages)
+    assert "Existing unit check" in text
+    assert "capacity at balance and room load vs condenser air" in text
