@@ -225,6 +225,15 @@ def _size_summary(result, model) -> str:  # type: ignore[no-untyped-def]
                 f"  heat of rejection {capacity(c['condenser_duty_w'], s)}   COP {c['cop']:.2f}   "
                 f"discharge {temperature(c['discharge_temperature_c'], s)}"
             )
+        if room.check is not None:
+            k = room.check
+            held = "holds" if k.holds else "does NOT hold"
+            at_balance = capacity(k.capacity_at_balance, s) if k.capacity_at_balance is not None else "n/a"
+            margin = f", margin {k.margin_percent:+.0f} %" if k.margin_percent is not None else ""
+            lines.append(
+                f"  existing unit: {held} the room ({at_balance} at balance vs "
+                f"{capacity(k.required_capacity, s)} required{margin}); see `coldroom check`"
+            )
         for message in list(loads.warnings) + list(room.warnings):
             lines.append(f"  warning: {message}")
     for message in result.warnings:
