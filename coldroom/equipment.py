@@ -103,7 +103,7 @@ DISCHARGE_LIMIT = 135.0  # °C, ~135 °C hard limit [trade]
 PRESSURE_RATIO_WARNING = 10.0  # single stage sensible to ≈ 8–10 [trade]
 
 #: Ambient temperatures of the capacity/load chart [°C].
-CHART_AMBIENTS: tuple[float, ...] = tuple(20.0 + 2.5 * i for i in range(11))
+CHART_AMBIENTS: tuple[float, ...] = tuple(20.0 + 5.0 * i for i in range(6))  # smooth curves: 5 K steps suffice
 
 #: Range searched for the highest ambient at which the unit holds [°C].
 MAX_AMBIENT_RANGE = (10.0, 55.0)

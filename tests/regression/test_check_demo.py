@@ -53,7 +53,7 @@ def test_demo_verdict_is_pinned(check) -> None:  # type: ignore[no-untyped-def]
 
 def test_demo_chart_is_pinned(check) -> None:  # type: ignore[no-untyped-def]
     chart = check.chart()
-    assert chart["ambient_c"] == [20.0 + 2.5 * i for i in range(11)]
+    assert chart["ambient_c"] == [20.0 + 5.0 * i for i in range(6)]
     assert chart["unit_capacity_w"][0] == pytest.approx(2939.58, rel=1e-4)
     assert chart["unit_capacity_w"][-1] == pytest.approx(2003.03, rel=1e-4)
     assert chart["room_load_w"][0] == pytest.approx(2094.38, rel=1e-4)
