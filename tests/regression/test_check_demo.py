@@ -58,9 +58,9 @@ def test_demo_chart_is_pinned(check) -> None:  # type: ignore[no-untyped-def]
     assert chart["unit_capacity_w"][-1] == pytest.approx(2003.03, rel=1e-4)
     assert chart["room_load_w"][0] == pytest.approx(2094.38, rel=1e-4)
     assert chart["room_load_w"][-1] == pytest.approx(2638.48, rel=1e-4)
-    # the capacity line crosses the load line between 35 and 37.5 °C (max ambient 35.4 °C)
+    # the capacity line crosses the load line between 35 and 40 °C (max ambient 35.4 °C)
     crossing = [a for a, c, l in zip(chart["ambient_c"], chart["unit_capacity_w"], chart["room_load_w"]) if c < l]
-    assert crossing[0] == 37.5
+    assert crossing[0] == 40.0
 
 
 def test_size_carries_the_check_into_json_and_sheet() -> None:
