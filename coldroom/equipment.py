@@ -1389,19 +1389,12 @@ def check_room(
         return None
     from coldroom.data import refrigerants
     from coldroom.loads import room_loads
-    from coldroom.sizing import design_temperatures
+    from coldroom.sizing import room_design_temperatures
 
     if loads is None:
         loads = room_loads(model, room)
     r = room.refrigeration
-    temps = design_temperatures(
-        room.temperature,
-        room.rh,
-        model.design.outdoor_temperature,
-        evaporator_td=r.evaporator_td,
-        condenser_td=r.condenser_td,
-        condenser_air_temperature=r.condenser_air_temperature,
-    )
+    temps = room_design_temperatures(model, room)
     try:
         compressor = build_compressor(unit, r)
     except CalculationError as exc:

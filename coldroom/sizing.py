@@ -196,6 +196,19 @@ def design_temperatures(
     )
 
 
+
+def room_design_temperatures(model: "ProjectModel", room: "Room") -> DesignTemperatures:
+    """:func:`design_temperatures` for one room of a project, with its refrigeration overrides."""
+    r = room.refrigeration
+    return design_temperatures(
+        room.temperature,
+        room.rh,
+        model.design.outdoor_temperature,
+        evaporator_td=r.evaporator_td,
+        condenser_td=r.condenser_td,
+        condenser_air_temperature=r.condenser_air_temperature,
+    )
+
 def sheet_date(project_date: Optional[str], environ: Optional[dict] = None) -> str:
     """The date printed on the sheet: the project's, else SOURCE_DATE_EPOCH (UTC), else today.
 
@@ -355,14 +368,7 @@ def size_room(model: "ProjectModel", room: "Room") -> "RoomResult":
 
     loads = room_loads(model, room)
     r = room.refrigeration
-    temps = design_temperatures(
-        room.temperature,
-        room.rh,
-        model.design.outdoor_temperature,
-        evaporator_td=r.evaporator_td,
-        condenser_td=r.condenser_td,
-        condenser_air_temperature=r.condenser_air_temperature,
-    )
+    temps = room_design_temperatures(model, room)
     info = refrigerants.lookup(r.refrigerant)
     condensing: Optional[float] = temps.condensing_temperature
     gas_cooler: Optional[float] = None
