@@ -105,8 +105,28 @@ def closest_names(name: str, valid: list[str] | tuple[str, ...], n: int = 5) -> 
     return [lowered[h] for h in hits]
 
 
+#: Commands that list a whole table, by the kind of name looked up.
+LISTING_COMMANDS = {"refrigerant": "coldroom refrigerants", "product": "coldroom products"}
+
+
 def unknown_name(kind: str, name: str, valid: list[str] | tuple[str, ...]) -> LookupNameError:
-    """Build the standard "unknown X" error with the closest valid names."""
+    """Build the standard "unknown X" error with the closest valid names.
+
+    Short tables are listed whole; long ones name the command that lists them.
+
+    Examples
+    --------
+    >>> print(unknown_name("door protection", "curtain", ["none", "strip_curtain", "air_curtain"]))
+    unknown door protection 'curtain'; closest: air_curtain, strip_curtain; valid: none, strip_curtain, air_curtain
+    >>> print(unknown_name("refrigerant", "R448", ["R-448A", "R-449A"]))
+    unknown refrigerant 'R448'; closest: R-448A, R-449A; `coldroom refrigerants` lists them all
+    """
     near = closest_names(name, valid)
-    hint = f"; closest: {', '.join(near)}" if near else ""
-    return LookupNameError(f"unknown {kind} {name!r}{hint} (see the full list with `coldroom` listing commands)")
+    text = f"unknown {kind} {name!r}"
+    if near:
+        text += f"; closest: {', '.join(near)}"
+    if kind in LISTING_COMMANDS:
+        text += f"; `{LISTING_COMMANDS[kind]}` lists them all"
+    elif len(valid) <= 20:
+        text += f"; valid: {', '.join(valid)}"
+    return LookupNameError(text)
