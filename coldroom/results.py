@@ -8,10 +8,40 @@ from __future__ import annotations
 from dataclasses import dataclass, field
 from typing import Any, Optional
 
+from coldroom.units import format_terms
+
 #: The load components, in the order of the ASHRAE Handbook—Refrigeration
 #: chapter "Refrigerated-Facility Loads": transmission, product, infiltration,
 #: internal, equipment.
 COMPONENTS: tuple[str, ...] = ("transmission", "product", "infiltration", "internal", "equipment")
+
+
+@dataclass(frozen=True)
+class Term:
+    """One number in the working of a load line, kept in SI so each report shows it in its own units.
+
+    Attributes
+    ----------
+    value : float
+        The number in SI (°C for temperatures, s for durations).
+    kind : str
+        A quantity kind of :mod:`coldroom.units` (``u_value``, ``area``,
+        ``temperature_difference``, ``power``, ``mass``, ``volume``,
+        ``energy_density`` …), or ``number``, ``percent``, ``hours``, ``minutes``.
+    prefix, suffix : str
+        Words around the number (``"Dt "``, ``"/day"``).
+    sep : str
+        What stands before the term when it is not the first (``" × "`` by default).
+    """
+
+    value: float
+    kind: str
+    prefix: str = ""
+    suffix: str = ""
+    sep: str = " × "
+
+    def to_json(self) -> dict[str, Any]:
+        return {"value_si": self.value, "kind": self.kind, "prefix": self.prefix, "suffix": self.suffix, "sep": self.sep}
 
 
 @dataclass(frozen=True)
@@ -26,14 +56,15 @@ class LoadLine:
         What the line is ("north wall", "door: shop door", "strawberries: latent").
     daily_energy : float
         Heat gained over 24 h [J].
-    basis : str
-        How the figure was found, for the sheet ("U 0.22 W/(m²·K) × 13.5 m² × 22 K").
+    basis : tuple of Term
+        How the figure was found (U × A × ΔT, …), in SI; reports format it
+        with :func:`coldroom.units.format_terms` in their unit system.
     """
 
     component: str
     item: str
     daily_energy: float
-    basis: str = ""
+    basis: tuple[Term, ...] = ()
 
     @property
     def average_power(self) -> float:
@@ -131,7 +162,8 @@ class RoomLoads:
                     "item": line.item,
                     "daily_energy_kwh": line.daily_energy / 3.6e6,
                     "average_w": line.average_power,
-                    "basis": line.basis,
+                    "basis_si": format_terms(line.basis, "SI"),
+                    "basis_terms": [term.to_json() for term in line.basis],
                 }
                 for line in self.lines
             ],

@@ -52,6 +52,7 @@ from __future__ import annotations
 import math
 import re
 from dataclasses import dataclass
+from typing import Sequence
 
 from coldroom.errors import UnitError
 
@@ -207,6 +208,10 @@ _add("power_per_area", ("W/ft²", "W/ft2", "W/sqft"), _u("W/ft²", 1.0 / FOOT**2
 # density
 _add("density", ("kg/m³", "kg/m3"), _u("kg/m³", 1.0))
 _add("density", ("lb/ft³", "lb/ft3", "pcf"), _u("lb/ft³", POUND / FOOT**3))
+# energy per volume (heat carried by a cubic metre of infiltrating air)
+_add("energy_density", ("J/m³", "J/m3"), _u("J/m³", 1.0))
+_add("energy_density", ("kJ/m³", "kJ/m3"), _u("kJ/m³", 1e3))
+_add("energy_density", ("Btu/ft³", "Btu/ft3"), _u("Btu/ft³", BTU / FOOT**3))
 # volume flow
 _add("volume_flow", ("m³/s", "m3/s"), _u("m³/s", 1.0))
 _add("volume_flow", ("m³/h", "m3/h", "cmh"), _u("m³/h", 1.0 / 3600.0))
@@ -239,6 +244,7 @@ DEFAULT_UNITS: dict[str, dict[str, str]] = {
         "power_per_area": "W/m²",
         "density": "kg/m³",
         "volume_flow": "m³/h",
+        "energy_density": "kJ/m³",
         "fraction": "-",
     },
     "IP": {
@@ -259,6 +265,7 @@ DEFAULT_UNITS: dict[str, dict[str, str]] = {
         "power_per_area": "W/ft²",
         "density": "lb/ft³",
         "volume_flow": "cfm",
+        "energy_density": "Btu/ft³",
         "fraction": "-",
     },
 }
@@ -383,6 +390,7 @@ def _example(kind: str) -> str:
         "power_per_area": "6 W/m²",
         "density": "1.2 kg/m³",
         "volume_flow": "500 m³/h",
+        "energy_density": "40 kJ/m³",
         "fraction": "85 %",
     }
     return examples.get(kind, "1")
@@ -422,6 +430,7 @@ DISPLAY_UNITS: dict[str, dict[str, str]] = {
         "power_per_area": "W/m²",
         "density": "kg/m³",
         "volume_flow": "m³/h",
+        "energy_density": "kJ/m³",
         "mass_flow": "kg/s",
     },
     "IP": {
@@ -443,6 +452,7 @@ DISPLAY_UNITS: dict[str, dict[str, str]] = {
         "power_per_area": "W/ft²",
         "density": "lb/ft³",
         "volume_flow": "cfm",
+        "energy_density": "Btu/ft³",
         "mass_flow": "lb/h",
     },
 }
@@ -500,3 +510,38 @@ def format_number(value: float, digits: int | None = None) -> str:
     if magnitude >= 1:
         return f"{value:,.2f}"
     return f"{value:.3g}"
+
+
+def format_terms(terms: "Sequence[object]", system: str = "SI") -> str:
+    """Write the working of a load line (:class:`coldroom.results.Term` s) in *system*.
+
+    Examples
+    --------
+    >>> from coldroom.results import Term
+    >>> working = (Term(0.2, "u_value", "U "), Term(13.5, "area"), Term(22.0, "temperature_difference"))
+    >>> format_terms(working, "SI")
+    'U 0.200 W/(m²·K) × 13.5 m² × 22.0 K'
+    >>> format_terms(working, "IP")
+    'U 0.0352 Btu/(h·ft²·°F) × 145 ft² × 39.6 °F'
+    """
+    parts: list[str] = []
+    for i, term in enumerate(terms):
+        value, kind = term.value, term.kind  # type: ignore[attr-defined]
+        if kind == "number":
+            text = f"{value:g}" if float(value).is_integer() else format_number(value)
+        elif kind == "power" and system == "SI" and abs(value) >= 1000.0:
+            text = display(value, "power_large", system)
+        elif kind == "percent":
+            text = f"{100.0 * value:.0f} %"
+        elif kind == "hours":
+            text = f"{value / 3600.0:g} h"
+        elif kind == "minutes":
+            text = f"{value / 60.0:g} min"
+        elif kind == "u_value":
+            unit = DISPLAY_UNITS[system][kind]
+            text = f"{to_unit(value, kind, unit):.3g} {unit}" if system == "IP" else f"{value:.3f} {unit}"
+        else:
+            text = display(value, kind, system)
+        sep = term.sep if i else ""  # type: ignore[attr-defined]
+        parts.append(f"{sep}{term.prefix}{text}{term.suffix}")  # type: ignore[attr-defined]
+    return "".join(parts)

@@ -17,10 +17,11 @@ from __future__ import annotations
 
 from typing import TYPE_CHECKING, Callable
 
-from coldroom.results import LoadLine, RoomLoads
+from coldroom.results import LoadLine, RoomLoads, Term
+from coldroom.results import Term as T
 
 if TYPE_CHECKING:  # pragma: no cover
-    from coldroom.projectfile import Construction, DesignConditions, ProjectModel, Room, Surface
+    from coldroom.projectfile import Construction, DesignConditions, ProjectModel, Room
 
 DAY = 86400.0  # s
 
@@ -112,13 +113,15 @@ def transmission_lines(model: "ProjectModel", room: "Room") -> list[LoadLine]:
             q = transmission.surface_heat_gain(area, u, outside, room.temperature)
             beyond = "roof void" if surface.facing == "roof_void" else "adjacent space"
         dt = outside + sun - room.temperature
-        sun_text = f" incl. sun {sun:.1f} K" if sun else ""
+        working = (T(u, "u_value", "U "), T(area, "area"), T(dt, "temperature_difference"))
+        if sun:
+            working += (T(sun, "temperature_difference", "incl. sun ", sep=" "),)
         lines.append(
             LoadLine(
                 "transmission",
                 f"{side} ({beyond})",
                 q * DAY,
-                f"U {u:.3f} W/(m²·K) × {area:.2f} m² × {dt:.1f} K{sun_text}",
+                working,
             )
         )
     return lines
@@ -147,8 +150,11 @@ def infiltration_lines(model: "ProjectModel", room: "Room") -> list[LoadLine]:
                 "infiltration",
                 "air changes",
                 result.daily_energy,
-                f"{result.air_changes_per_day:.2f} changes/day × {room.inside_volume:.1f} m³ "
-                f"× {result.heat_per_volume / 1e3:.1f} kJ/m³",
+                (
+                    T(result.air_changes_per_day, "number", suffix=" changes/day"),
+                    T(room.inside_volume, "volume"),
+                    T(result.heat_per_volume, "energy_density"),
+                ),
             )
         ]
     lines = []
@@ -174,8 +180,12 @@ def infiltration_lines(model: "ProjectModel", room: "Room") -> list[LoadLine]:
                 "infiltration",
                 f"door: {door.name}",
                 result.daily_energy,
-                f"{result.full_open_power / 1e3:.2f} kW open × Dt {result.open_time_factor:.3f} "
-                f"× Df {result.flow_factor:.2f} × (1 − E {result.effectiveness:.2f})",
+                (
+                    T(result.full_open_power, "power", suffix=" fully open"),
+                    T(result.open_time_factor, "number", "Dt "),
+                    T(result.flow_factor, "number", "Df "),
+                    T(result.effectiveness, "number", "(1 − E ", ")"),
+                ),
             )
         )
     return lines
@@ -223,16 +233,23 @@ def product_lines(model: "ProjectModel", room: "Room") -> list[LoadLine]:
     """Product pull-down (sensible, latent, sensible below freezing), packaging and respiration."""
     lines = []
     for item, load in zip(room.products, _product_loads(room)):
-        basis = ""
+        basis: tuple[Term, ...] = ()
         if item.daily_intake > 0:
             basis = (
-                f"{item.daily_intake:.0f} kg/day, {item.entering_temperature:.1f} → {item.final_temperature:.1f} °C"
-                f" in {item.pulldown_time / 3600:g} h"
+                T(item.daily_intake, "mass", suffix="/day"),
+                T(item.entering_temperature, "temperature", sep=", "),  # type: ignore[arg-type]
+                T(item.final_temperature, "temperature", sep=" → "),  # type: ignore[arg-type]
+                T(item.pulldown_time, "hours", "in ", sep=" "),
             )
         for what, energy in load.lines():
             extra = basis
+            if what.endswith("packaging") and item.packaging is not None:
+                extra = (T(item.packaging.mass, "mass", suffix="/day"),) + basis[1:]
             if what.endswith("respiration"):
-                extra = f"{item.stored_mass:.0f} kg stored at {room.temperature:.1f} °C"
+                extra = (
+                    T(item.stored_mass, "mass", suffix=" stored"),
+                    T(room.temperature, "temperature", "at ", sep=" "),
+                )
             lines.append(LoadLine("product", what, energy, extra))
     return lines
 
@@ -269,7 +286,7 @@ def internal_lines(model: "ProjectModel", room: "Room") -> list[LoadLine]:
                 "internal",
                 "people",
                 internal.people_energy(room.people.count, hours, t),
-                f"{room.people.count:g} × {rate:.0f} W × {hours:g} h",
+                (T(room.people.count, "number"), T(rate, "power"), T(room.people.hours, "hours")),
             )
         )
     if room.lighting is not None and room.lighting.hours > 0:
@@ -277,9 +294,9 @@ def internal_lines(model: "ProjectModel", room: "Room") -> list[LoadLine]:
         power = light.power if light.power is not None else light.power_density * room.floor_area  # type: ignore[operator]
         hours = light.hours / 3600.0
         basis = (
-            f"{light.power_density:g} W/m² × {room.floor_area:.1f} m² × {hours:g} h"
+            (T(light.power_density, "power_per_area"), T(room.floor_area, "area"), T(light.hours, "hours"))
             if light.power_density is not None
-            else f"{power:.0f} W × {hours:g} h"
+            else (T(power, "power"), T(light.hours, "hours"))
         )
         lines.append(LoadLine("internal", "lighting", internal.lighting_energy(power, hours), basis))
     for appliance in room.appliances:
@@ -294,9 +311,9 @@ def internal_lines(model: "ProjectModel", room: "Room") -> list[LoadLine]:
         else:
             energy = internal.equipment_energy(power, hours)
             component = "internal"
-        count = f"{appliance.count:g} × " if appliance.count != 1 else ""
+        count = (T(appliance.count, "number"),) if appliance.count != 1 else ()
         lines.append(
-            LoadLine(component, appliance.name, energy, f"{count}{appliance.power:.0f} W × {hours:g} h")
+            LoadLine(component, appliance.name, energy, count + (T(appliance.power, "power"), T(appliance.hours, "hours")))
         )
     if room.fans is not None and room.fans.power > 0 and room.fans.hours > 0:
         fans = room.fans
@@ -308,8 +325,8 @@ def internal_lines(model: "ProjectModel", room: "Room") -> list[LoadLine]:
                 "equipment",
                 "evaporator fans",
                 energy,
-                f"{fans.count:g} × {fans.power:.0f} W × {hours:g} h"
-                + ("" if fans.in_air_stream else f" × η {fans.motor_efficiency:.2f}"),
+                (T(fans.count, "number"), T(fans.power, "power"), T(fans.hours, "hours"))
+                + (() if fans.in_air_stream else (T(fans.motor_efficiency, "number", "η "),)),
             )
         )
     d = room.defrost
@@ -320,7 +337,12 @@ def internal_lines(model: "ProjectModel", room: "Room") -> list[LoadLine]:
                 "equipment",
                 f"defrost ({d.type.replace('_', ' ')})",
                 energy,
-                f"{d.heater_power / 1e3:.2f} kW × {d.per_day:g}/day × {d.duration / 60:g} min × {d.share_to_room:.0%}",
+                (
+                    T(d.heater_power, "power"),
+                    T(d.per_day, "number", suffix="/day"),
+                    T(d.duration, "minutes"),
+                    T(d.share_to_room, "percent", suffix=" to the room"),
+                ),
             )
         )
     return lines

@@ -46,6 +46,7 @@ from reportlab.platypus import (
 from coldroom.report.charts import INK, MUTED, RULE, BarChart
 from coldroom.report.check_section import existing_unit_section
 from coldroom.report.text import capacity, clean, esc, q, temperature
+from coldroom.units import format_terms
 
 ACCENT = colors.HexColor("#4F6D8A")
 BAND = colors.HexColor("#EEF2F5")
@@ -428,20 +429,20 @@ def load_lines_section(ctx: SheetContext, index: int) -> list:
     room = ctx.result.rooms[index]
     s = ctx.system
     power_unit = "W" if s == "SI" else "Btu/h"
-    rows = [["Component", "Item", f"Average, {power_unit}", "Working (SI)"]]
+    rows = [["Component", "Item", f"Average, {power_unit}", "Working"]]
     for line in room.loads.lines:
         rows.append(
             [
                 line.component,
                 line.item,
                 q(line.average_power, "power", s, 0).rsplit(" ", 1)[0],
-                line.basis or "",
+                format_terms(line.basis, s),
             ]
         )
     w = ctx.width
     return [
         heading("Load lines"),
-        note("Each line as calculated; the working column shows the inputs in SI units.",
+        note("Each line as calculated, with the inputs behind it.",
              ParagraphStyle("tinynext", parent=TINY, keepWithNext=1)),
         Spacer(1, 2),
         grid(rows, [0.13 * w, 0.25 * w, 0.12 * w, 0.50 * w], align_right=(2,), style=CELL_SMALL),
