@@ -444,7 +444,7 @@ def cycle_command(
 
 def _check_text(model, checks) -> str:  # type: ignore[no-untyped-def]
     """The verdict per room in the project's unit system (our own layout)."""
-    from coldroom.units import display
+    from coldroom.units import display, format_terms
 
     system = model.project.units
 
@@ -452,7 +452,14 @@ def _check_text(model, checks) -> str:  # type: ignore[no-untyped-def]
         return "-" if x is None else display(x, "temperature", system)
 
     def q(x):  # type: ignore[no-untyped-def]
-        return "-" if x is None else display(x, "power_large", system)
+        if x is None:
+            return "-"
+        if system == "IP":  # Btu/h with tons beside it, as IP contractors read capacities
+            return f"{display(x, 'power', system)} ({display(x, 'power_large', system)})"
+        return display(x, "power_large", system)
+
+    def electric(x):  # type: ignore[no-untyped-def]
+        return "-" if x is None else display(x, "power_large", "SI")  # electrical input in kW in both systems
 
     lines = [f"{model.project.name}: existing-unit check"]
     for loads, check in checks:
@@ -479,7 +486,7 @@ def _check_text(model, checks) -> str:  # type: ignore[no-untyped-def]
         if c.power_at_balance is not None:
             t2 = "-" if c.discharge_temperature is None else t(c.discharge_temperature)
             lines.append(
-                f"  power {q(c.power_at_balance)}, heat rejection {q(c.heat_rejection_at_balance)}, "
+                f"  power {electric(c.power_at_balance)}, heat rejection {q(c.heat_rejection_at_balance)}, "
                 f"discharge about {t2}, pressure ratio {c.pressure_ratio:.1f}"
             )
         if c.max_ambient_status == "found":
@@ -488,10 +495,10 @@ def _check_text(model, checks) -> str:  # type: ignore[no-untyped-def]
             lines.append("  holds over the whole ambient range searched (10…55 °C)")
         elif c.max_ambient_status == "fails_below_range":
             lines.append("  does not hold at any ambient in the range searched (10…55 °C)")
-        lines.append(f"  evaporator: {c.evaporator_basis}")
-        lines.append(f"  condenser: {c.condenser_basis}")
+        lines.append(f"  evaporator: {format_terms(c.evaporator_basis, system)}")
+        lines.append(f"  condenser: {format_terms(c.condenser_basis, system)}")
         for note in c.compressor_basis:
-            lines.append(f"  compressor: {note}")
+            lines.append(f"  compressor: {format_terms(note, system)}")
         for warning in c.warnings:
             lines.append(f"  WARNING: {warning}")
     return "\n".join(lines)

@@ -74,6 +74,17 @@ from dataclasses import dataclass, replace
 from typing import TYPE_CHECKING, Any, Callable, Optional, Sequence
 
 from coldroom.errors import CalculationError, PropertyRangeError
+from coldroom.results import Term
+from coldroom.units import format_terms
+
+#: Text mixed with SI numbers (:class:`coldroom.results.Term`); reports show it
+#: in their own unit system with :func:`coldroom.units.format_terms`.
+Phrase = tuple  # tuple[str | Term, ...]
+
+
+def _n(value: float, kind: str) -> Term:
+    """One number inside a phrase (no separator of its own)."""
+    return Term(value, kind, sep="")
 
 if TYPE_CHECKING:  # pragma: no cover
     from coldroom.projectfile import ExistingUnit, ProjectModel, Refrigeration, Room
@@ -190,6 +201,13 @@ class Envelope:
         """The envelope as text, e.g. ``"S −20…10 °C, D 25…60 °C"``."""
         return (
             f"S {self.suction_min:g}…{self.suction_max:g} °C, D {self.discharge_min:g}…{self.discharge_max:g} °C"
+        )
+
+    def phrase(self) -> Phrase:
+        """The envelope as a phrase, shown in the report's unit system."""
+        return (
+            "S ", _n(self.suction_min, "temperature"), " … ", _n(self.suction_max, "temperature"),
+            ", D ", _n(self.discharge_min, "temperature"), " … ", _n(self.discharge_max, "temperature"),
         )
 
 
@@ -328,7 +346,7 @@ class RatedPointCompressor:
     rated_capacity : float
         [W] at rating superheat and subcooling.
     operating : OperatingConditions
-    notes : tuple of str
+    notes : tuple of Phrase
         How the rated point was read (for the report).
     """
 
@@ -340,7 +358,7 @@ class RatedPointCompressor:
     rating_discharge: float
     rated_capacity: float
     operating: OperatingConditions
-    notes: tuple[str, ...] = ()
+    notes: tuple[Phrase, ...] = ()
     model: str = "rated point"
     envelope: Optional[Envelope] = None
 
@@ -402,10 +420,16 @@ class RatedPointCompressor:
         volume_flow = mass_flow / suction.density
         isentropic = fluid.state_ps(p_c, suction.s)
         ratio = isentropic.density / suction.density
-        notes = [
-            f"rated {capacity:.0f} W at S {evaporating_temperature:g} °C / D {condensing_temperature:g} °C, "
-            f"superheat {superheat:g} K, subcooling {subcooling:g} K",
-            f"rated mass flow {mass_flow * 3600:.1f} kg/h, suction volume flow {volume_flow * 3600:.2f} m³/h",
+        notes: list[Phrase] = [
+            (
+                "rated ", _n(capacity, "power"), " at S ", _n(evaporating_temperature, "temperature"),
+                " / D ", _n(condensing_temperature, "temperature"), ", superheat ",
+                _n(superheat, "temperature_difference"), ", subcooling ", _n(subcooling, "temperature_difference"),
+            ),
+            (
+                "rated mass flow ", _n(mass_flow, "mass_flow"), ", suction volume flow ",
+                _n(volume_flow, "volume_flow"),
+            ),
         ]
         if swept_volume is not None:
             efficiency = volume_flow / swept_volume
@@ -416,13 +440,15 @@ class RatedPointCompressor:
                 )
             clearance = (1.0 - efficiency) / (ratio - 1.0)
             notes.append(
-                f"swept volume {swept_volume * 3600:.2f} m³/h given: volumetric efficiency {efficiency:.3f} at rating, "
-                f"effective clearance {clearance:.3f}"
-                + (
-                    " (above the 0.03–0.06 of reciprocating compressors [mem]: leakage or a worn compressor "
-                    "lumped into it; check the swept volume)"
-                    if clearance > 0.1
-                    else ""
+                (
+                    "swept volume ", _n(swept_volume, "volume_flow"), " given: volumetric efficiency ",
+                    _n(efficiency, "number"), " at rating, effective clearance ", _n(clearance, "number"),
+                    (
+                        " (above the 0.03–0.06 of reciprocating compressors [mem]: leakage or a worn compressor "
+                        "lumped into it; check the swept volume)"
+                        if clearance > 0.1
+                        else ""
+                    ),
                 )
             )
         else:
@@ -433,19 +459,23 @@ class RatedPointCompressor:
                 )
             swept_volume = volume_flow / efficiency
             notes.append(
-                f"swept volume inferred {swept_volume * 3600:.2f} m³/h (clearance {clearance:g}, "
-                f"volumetric efficiency {efficiency:.3f} at rating)"
+                (
+                    "swept volume inferred ", _n(swept_volume, "volume_flow"), " (clearance ", _n(clearance, "number"),
+                    ", volumetric efficiency ", _n(efficiency, "number"), " at rating)",
+                )
             )
         if power is not None:
             isentropic_efficiency = mass_flow * (isentropic.h - suction.h) / power
-            notes.append(f"rated power {power:.0f} W: overall isentropic efficiency {isentropic_efficiency:.3f}")
+            notes.append(
+                ("rated power ", _n(power, "power"), ": overall isentropic efficiency ", _n(isentropic_efficiency, "number"))
+            )
             if not 0.2 < isentropic_efficiency <= 1.0:
                 raise CalculationError(
                     f"rated power {power:.0f} W gives an isentropic efficiency {isentropic_efficiency:.2f}, "
                     "outside 0.2…1: check the rating data"
                 )
         else:
-            notes.append(f"no rated power: isentropic efficiency {isentropic_efficiency:g} assumed")
+            notes.append(("no rated power: isentropic efficiency ", _n(isentropic_efficiency, "number"), " assumed"))
         return cls(
             refrigerant=refrigerant,
             swept_volume=swept_volume,
@@ -554,18 +584,20 @@ class PolynomialCompressor:
     model: str = "polynomial"
 
     @property
-    def notes(self) -> tuple[str, ...]:
+    def notes(self) -> tuple[Phrase, ...]:
         """How the polynomial is read (for the report)."""
-        rating = (
-            f"rating superheat {self.rating_superheat:g} K"
+        rating: Phrase = (
+            ("rating superheat ", _n(self.rating_superheat, "temperature_difference"))  # type: ignore[arg-type]
             if self.return_gas_temperature is None
-            else f"rating return gas {self.return_gas_temperature:g} °C"
+            else ("rating return gas ", _n(self.return_gas_temperature, "temperature"))
         )
         return (
-            f"AHRI 540 / EN 12900 polynomials in °{self.temperature_unit}; {rating}, "
-            f"subcooling {self.rating_subcooling:g} K",
-            f"envelope {self.envelope.describe()} (refused beyond {ENVELOPE_TOLERANCE:g} K)",
-            f"suction-density correction F = {self.density_correction_factor:g}",
+            (f"AHRI 540 / EN 12900 polynomials in °{self.temperature_unit}; ",)
+            + rating
+            + (", subcooling ", _n(self.rating_subcooling, "temperature_difference")),
+            ("envelope ",) + self.envelope.phrase()
+            + (" (refused beyond ", _n(ENVELOPE_TOLERANCE, "temperature_difference"), ")"),
+            ("suction-density correction F = ", _n(self.density_correction_factor, "number")),
         )
 
     def _map_temperature(self, celsius: float) -> float:
@@ -670,7 +702,7 @@ class HeatExchanger:
 
     conductance: Optional[float] = None
     temperature_difference: Optional[float] = None
-    basis: str = ""
+    basis: Phrase = ()
 
     @classmethod
     def from_rating(cls, capacity: float, temperature_difference: float, what: str = "heat exchanger") -> "HeatExchanger":
@@ -680,11 +712,14 @@ class HeatExchanger:
         k = capacity / temperature_difference
         return cls(
             conductance=k,
-            basis=f"{what} rated {capacity:.0f} W at ΔT {temperature_difference:g} K: K = {k:.1f} W/K",
+            basis=(
+                f"{what} rated ", _n(capacity, "power"), " at ΔT ", _n(temperature_difference, "temperature_difference"),
+                ": K = ", _n(k, "conductance"),
+            ),
         )
 
     @classmethod
-    def fixed(cls, temperature_difference: float, basis: str) -> "HeatExchanger":
+    def fixed(cls, temperature_difference: float, basis: Phrase) -> "HeatExchanger":
         """No rating: the saturation temperature sits a fixed TD [K] from the air."""
         return cls(temperature_difference=temperature_difference, basis=basis)
 
@@ -922,9 +957,9 @@ class CheckResult:
     max_ambient_status : str
         ``"found"``, ``"holds_above_range"``, ``"fails_below_range"`` or
         ``"not_searched"``.
-    evaporator_basis, condenser_basis : str
+    evaporator_basis, condenser_basis : Phrase
         How the evaporator and condenser were modelled.
-    compressor_basis : tuple of str
+    compressor_basis : tuple of Phrase
         How the compressor was modelled.
     warnings : tuple of str
     chart_ambient : tuple of float
@@ -959,9 +994,9 @@ class CheckResult:
     within_envelope: bool
     max_ambient: Optional[float]
     max_ambient_status: str
-    evaporator_basis: str
-    condenser_basis: str
-    compressor_basis: tuple[str, ...] = ()
+    evaporator_basis: Phrase
+    condenser_basis: Phrase
+    compressor_basis: tuple[Phrase, ...] = ()
     warnings: tuple[str, ...] = ()
     chart_ambient: tuple[float, ...] = ()
     chart_capacity: tuple[Optional[float], ...] = ()
@@ -1014,9 +1049,9 @@ class CheckResult:
             "margin_percent": self.margin_percent,
             "max_ambient_c": self.max_ambient,
             "max_ambient_status": self.max_ambient_status,
-            "evaporator_basis": self.evaporator_basis,
-            "condenser_basis": self.condenser_basis,
-            "compressor_basis": list(self.compressor_basis),
+            "evaporator_basis": format_terms(self.evaporator_basis, "SI"),
+            "condenser_basis": format_terms(self.condenser_basis, "SI"),
+            "compressor_basis": [format_terms(note, "SI") for note in self.compressor_basis],
             "warnings": list(self.warnings),
             "chart": self.chart(),
         }
@@ -1404,8 +1439,11 @@ def check_room(
     else:
         evaporator = HeatExchanger.fixed(
             temps.evaporator_td,
-            f"no unit-cooler data: evaporating temperature fixed at room − {temps.evaporator_td:g} K "
-            f"({temps.evaporator_td_source}); assumes the coil takes whatever the compressor pumps",
+            (
+                "no unit-cooler data: evaporating temperature fixed at room − ",
+                _n(temps.evaporator_td, "temperature_difference"),
+                f" ({temps.evaporator_td_source}); assumes the coil takes whatever the compressor pumps",
+            ),
         )
     if unit.condenser is not None:
         condenser = HeatExchanger.from_rating(
@@ -1414,8 +1452,11 @@ def check_room(
     else:
         condenser = HeatExchanger.fixed(
             temps.condenser_td,
-            f"no condenser data: condensing temperature fixed at air + {temps.condenser_td:g} K "
-            f"({temps.condenser_td_source})",
+            (
+                "no condenser data: condensing temperature fixed at air + ",
+                _n(temps.condenser_td, "temperature_difference"),
+                f" ({temps.condenser_td_source})",
+            ),
         )
     ambient = temps.condenser_air_temperature
     cache: dict[float, float] = {}

@@ -212,6 +212,9 @@ _add("density", ("lb/ft³", "lb/ft3", "pcf"), _u("lb/ft³", POUND / FOOT**3))
 _add("energy_density", ("J/m³", "J/m3"), _u("J/m³", 1.0))
 _add("energy_density", ("kJ/m³", "kJ/m3"), _u("kJ/m³", 1e3))
 _add("energy_density", ("Btu/ft³", "Btu/ft3"), _u("Btu/ft³", BTU / FOOT**3))
+# thermal conductance of a heat exchanger (capacity per kelvin of TD)
+_add("conductance", ("W/K",), _u("W/K", 1.0))
+_add("conductance", ("Btu/(h·°F)", "btu/hf", "btu/h°f", "Btu/h/F"), _u("Btu/(h·°F)", BTU_PER_HOUR / (5.0 / 9.0)))
 # volume flow
 _add("volume_flow", ("m³/s", "m3/s"), _u("m³/s", 1.0))
 _add("volume_flow", ("m³/h", "m3/h", "cmh"), _u("m³/h", 1.0 / 3600.0))
@@ -245,6 +248,7 @@ DEFAULT_UNITS: dict[str, dict[str, str]] = {
         "density": "kg/m³",
         "volume_flow": "m³/h",
         "energy_density": "kJ/m³",
+        "conductance": "W/K",
         "fraction": "-",
     },
     "IP": {
@@ -266,6 +270,7 @@ DEFAULT_UNITS: dict[str, dict[str, str]] = {
         "density": "lb/ft³",
         "volume_flow": "cfm",
         "energy_density": "Btu/ft³",
+        "conductance": "Btu/(h·°F)",
         "fraction": "-",
     },
 }
@@ -391,6 +396,7 @@ def _example(kind: str) -> str:
         "density": "1.2 kg/m³",
         "volume_flow": "500 m³/h",
         "energy_density": "40 kJ/m³",
+        "conductance": "500 W/K",
         "fraction": "85 %",
     }
     return examples.get(kind, "1")
@@ -431,6 +437,7 @@ DISPLAY_UNITS: dict[str, dict[str, str]] = {
         "density": "kg/m³",
         "volume_flow": "m³/h",
         "energy_density": "kJ/m³",
+        "conductance": "W/K",
         "mass_flow": "kg/s",
     },
     "IP": {
@@ -453,6 +460,7 @@ DISPLAY_UNITS: dict[str, dict[str, str]] = {
         "density": "lb/ft³",
         "volume_flow": "cfm",
         "energy_density": "Btu/ft³",
+        "conductance": "Btu/(h·°F)",
         "mass_flow": "lb/h",
     },
 }
@@ -515,6 +523,9 @@ def format_number(value: float, digits: int | None = None) -> str:
 def format_terms(terms: "Sequence[object]", system: str = "SI") -> str:
     """Write the working of a load line (:class:`coldroom.results.Term` s) in *system*.
 
+    A plain string among the terms is a phrase's text and is copied as it is,
+    so a note can mix words and numbers: ``("rated ", Term(4500, "power", sep=""))``.
+
     Examples
     --------
     >>> from coldroom.results import Term
@@ -523,9 +534,16 @@ def format_terms(terms: "Sequence[object]", system: str = "SI") -> str:
     'U 0.200 W/(m²·K) × 13.5 m² × 22.0 K'
     >>> format_terms(working, "IP")
     'U 0.0352 Btu/(h·ft²·°F) × 145 ft² × 39.6 °F'
+    >>> format_terms(("K = ", Term(500.0, "conductance", sep="")), "IP")
+    'K = 948 Btu/(h·°F)'
     """
+    if isinstance(terms, str):
+        return terms
     parts: list[str] = []
     for i, term in enumerate(terms):
+        if isinstance(term, str):
+            parts.append(term)
+            continue
         value, kind = term.value, term.kind  # type: ignore[attr-defined]
         if kind == "number":
             text = f"{value:g}" if float(value).is_integer() else format_number(value)

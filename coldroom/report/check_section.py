@@ -21,6 +21,7 @@ from reportlab.platypus import Flowable
 from coldroom import units as _units
 from coldroom.report.charts import INK, MUTED, PALETTE, RULE
 from coldroom.report.text import capacity, clean, temperature
+from coldroom.units import format_terms
 
 CAPACITY_COLOUR = PALETTE[0]  # slate: what the unit can do
 LOAD_COLOUR = PALETTE[3]  # dusty rose: what the room needs
@@ -250,10 +251,10 @@ def existing_unit_section(ctx: Any, index: int) -> list:
     if check.pressure_ratio is not None:
         rows.append(["Pressure ratio", f"{check.pressure_ratio:.1f}"])
     rows += [
-        ["Evaporator", check.evaporator_basis],
-        ["Condenser", check.condenser_basis],
+        ["Evaporator", format_terms(check.evaporator_basis, s)],
+        ["Condenser", format_terms(check.condenser_basis, s)],
     ]
-    rows += [["Compressor", text] for text in check.compressor_basis]
+    rows += [["Compressor", format_terms(note, s)] for note in check.compressor_basis]
     out: list = [
         KeepTogether(
             [
