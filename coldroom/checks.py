@@ -41,6 +41,7 @@ from __future__ import annotations
 from typing import TYPE_CHECKING, Callable
 
 from coldroom.errors import ColdroomError
+from coldroom.results import Note
 
 if TYPE_CHECKING:  # pragma: no cover
     from coldroom.projectfile import ProjectModel, Room
@@ -127,8 +128,12 @@ def check_project(model: "ProjectModel", error: ErrorFactory) -> None:
                 )
         if room.temperature >= design.outdoor_temperature:
             raise error(
-                f"inside temperature {room.temperature:g} °C is not below the outdoor design temperature "
-                f"{design.outdoor_temperature:g} °C; a cold room must be colder than outdoors",
+                Note.fill(
+                    "inside temperature {t} is not below the outdoor design temperature {o}; "
+                    "a cold room must be colder than outdoors",
+                    t=(room.temperature, "temperature"),
+                    o=(design.outdoor_temperature, "temperature"),
+                ),
                 at + ("temperature",),
             )
         if room.refrigeration.condenser_air_temperature is not None and (
@@ -151,14 +156,22 @@ def check_project(model: "ProjectModel", error: ErrorFactory) -> None:
                 assert product.entering_temperature is not None
                 if product.final_temperature > product.entering_temperature:
                     raise error(
-                        f"final temperature {product.final_temperature:g} °C is above the entering temperature "
-                        f"{product.entering_temperature:g} °C; the room cools product, it does not warm it",
+                        Note.fill(
+                            "final temperature {f} is above the entering temperature {e}; "
+                            "the room cools product, it does not warm it",
+                            f=(product.final_temperature, "temperature"),
+                            e=(product.entering_temperature, "temperature"),
+                        ),
                         p_at + ("final_temperature",),
                     )
                 if product.final_temperature < room.temperature - 0.5:
                     raise error(
-                        f"final temperature {product.final_temperature:g} °C is below the room temperature "
-                        f"{room.temperature:g} °C; product cannot be cooled below the room air",
+                        Note.fill(
+                            "final temperature {f} is below the room temperature {r}; "
+                            "product cannot be cooled below the room air",
+                            f=(product.final_temperature, "temperature"),
+                            r=(room.temperature, "temperature"),
+                        ),
                         p_at + ("final_temperature",),
                     )
 
@@ -175,8 +188,12 @@ def _check_design(model: "ProjectModel", error: ErrorFactory) -> None:
     where = ("design", "outdoor_wet_bulb")
     if design.outdoor_wet_bulb > design.outdoor_temperature:
         raise error(
-            f"wet-bulb temperature {design.outdoor_wet_bulb:g} °C is above the dry-bulb temperature "
-            f"{design.outdoor_temperature:g} °C; a wet bulb is never warmer than the dry bulb",
+            Note.fill(
+                "wet-bulb temperature {w} is above the dry-bulb temperature {d}; "
+                "a wet bulb is never warmer than the dry bulb",
+                w=(design.outdoor_wet_bulb, "temperature"),
+                d=(design.outdoor_temperature, "temperature"),
+            ),
             where,
         )
     try:  # ASHRAE Handbook—Fundamentals, "Psychrometrics" (via coldroom.psychrometrics) [pub]
@@ -184,7 +201,10 @@ def _check_design(model: "ProjectModel", error: ErrorFactory) -> None:
             design.outdoor_temperature, design.outdoor_wet_bulb, site_pressure(design)
         )
     except CalculationError as exc:
-        raise error(f"wet-bulb temperature {design.outdoor_wet_bulb:g} °C: {exc}", where) from None
+        raise error(
+            Note.fill("wet-bulb temperature {w}: " + str(exc).replace("{", "(").replace("}", ")"), w=(design.outdoor_wet_bulb, "temperature")),
+            where,
+        ) from None
 
 
 def _check_geometry(room: "Room", at: tuple, error: ErrorFactory) -> None:
@@ -193,8 +213,12 @@ def _check_geometry(room: "Room", at: tuple, error: ErrorFactory) -> None:
     if volume < MIN_ROOM_VOLUME:
         key = at + (("volume",) if room.volume is not None else ("dimensions",))
         raise error(
-            f"inside volume {volume:.3g} m³ is less than {MIN_ROOM_VOLUME:g} m³; "
-            "that is a cabinet, not a walk-in room (check the dimensions and their units)",
+            Note.fill(
+                "inside volume {v} is less than {m}; that is a cabinet, not a walk-in room "
+                "(check the dimensions and their units)",
+                v=(volume, "volume"),
+                m=(MIN_ROOM_VOLUME, "volume"),
+            ),
             key,
         )
 
@@ -246,12 +270,20 @@ def _check_refrigerant_range(
     # The field bounds (TDs > 0) already make these impossible; kept as a guard.
     if evaporating >= room.temperature:
         raise error(
-            f"evaporating temperature {evaporating:g} °C is not below the room temperature {room.temperature:g} °C",
+            Note.fill(
+                "evaporating temperature {e} is not below the room temperature {r}",
+                e=(evaporating, "temperature"),
+                r=(room.temperature, "temperature"),
+            ),
             r_at + ("evaporator_td",),
         )
     if condensing <= air:
         raise error(
-            f"condensing temperature {condensing:g} °C is not above the condenser air {air:g} °C",
+            Note.fill(
+                "condensing temperature {c} is not above the condenser air {a}",
+                c=(condensing, "temperature"),
+                a=(air, "temperature"),
+            ),
             r_at + ("condenser_td",),
         )
     limits = REFRIGERANT_LIMITS.get(refrigerant)
@@ -260,22 +292,33 @@ def _check_refrigerant_range(
     lowest, critical = limits
     if evaporating < lowest:
         raise error(
-            f"evaporating temperature {evaporating:g} °C (room {room.temperature:g} °C − TD "
-            f"{room.temperature - evaporating:g} K) is below {lowest:g} °C, the lowest temperature of "
-            f"{refrigerant} ({'triple point' if refrigerant in ('R-744', 'R-717') else 'lower limit of its property model'}); "
-            "choose another refrigerant or a smaller evaporator_td",
+            Note.fill(
+                "evaporating temperature {e} (room {r} − TD {td}) is below {low}, the lowest temperature of "
+                f"{refrigerant} ({'triple point' if refrigerant in ('R-744', 'R-717') else 'lower limit of its property model'}); "
+                "choose another refrigerant or a smaller evaporator_td",
+                e=(evaporating, "temperature"),
+                r=(room.temperature, "temperature"),
+                td=(room.temperature - evaporating, "temperature_difference"),
+                low=(lowest, "temperature"),
+            ),
             r_at + ("evaporator_td" if room.refrigeration.evaporator_td is not None else "refrigerant",),
         )
     if condensing >= critical:
         hint = (
             "; transcritical R-744 (gas cooler) is not modelled: choose another refrigerant "
-            "or a condenser air temperature below about 20 °C"
+            "or a lower condenser air temperature"
             if refrigerant == "R-744"
             else "; choose a smaller condenser_td or another refrigerant"
         )
         raise error(
-            f"condensing temperature {condensing:g} °C (condenser air {air:g} °C + TD {condensing - air:g} K) "
-            f"is at or above the critical temperature of {refrigerant}, {critical:g} °C{hint}",
+            Note.fill(
+                "condensing temperature {c} (condenser air {a} + TD {td}) is at or above the critical temperature "
+                f"of {refrigerant}, " + "{crit}" + hint,
+                c=(condensing, "temperature"),
+                a=(air, "temperature"),
+                td=(condensing - air, "temperature_difference"),
+                crit=(critical, "temperature"),
+            ),
             r_at + ("refrigerant",),
         )
 
@@ -297,7 +340,9 @@ def _check_doors(room: "Room", at: tuple, error: ErrorFactory) -> None:
         d_at = at + ("doors", j)
         if height is not None and door.height > height + DOOR_EDGE_ALLOWANCE:
             raise error(
-                f"door height {door.height:g} m is more than the room height {height:g} m",
+                Note.fill(
+                    "door height {d} is more than the room height {r}", d=(door.height, "length"), r=(height, "length")
+                ),
                 d_at + ("height",),
             )
         if door.wall is not None:
@@ -306,12 +351,20 @@ def _check_doors(room: "Room", at: tuple, error: ErrorFactory) -> None:
                 wall_width = room.dimensions.length if door.wall in ("north", "south") else room.dimensions.width
                 if door.width > wall_width + DOOR_EDGE_ALLOWANCE:
                     raise error(
-                        f"door width {door.width:g} m is more than the {door.wall} wall's {wall_width:g} m",
+                        Note.fill(
+                            f"door width {{d}} is more than the {door.wall} wall's {{w}}",
+                            d=(door.width, "length"),
+                            w=(wall_width, "length"),
+                        ),
                         d_at + ("width",),
                     )
             if door.width * door.height > wall_area:
                 raise error(
-                    f"door area {door.width * door.height:.3g} m² is larger than the {door.wall} wall ({wall_area:.3g} m²)",
+                    Note.fill(
+                        f"door area {{d}} is larger than the {door.wall} wall ({{w}})",
+                        d=(door.width * door.height, "area"),
+                        w=(wall_area, "area"),
+                    ),
                     d_at + ("width",),
                 )
         if door.wall is not None:
@@ -319,8 +372,11 @@ def _check_doors(room: "Room", at: tuple, error: ErrorFactory) -> None:
             total = sum(d.width * d.height for d in on_wall)
             if len(on_wall) > 1 and total > room.surface_area(door.wall):
                 raise error(
-                    f"the {len(on_wall)} doors in the {door.wall} wall have {total:.3g} m² together, more than "
-                    f"the wall's {room.surface_area(door.wall):.3g} m²",
+                    Note.fill(
+                        f"the {len(on_wall)} doors in the {door.wall} wall have {{t}} together, more than the wall's {{w}}",
+                        t=(total, "area"),
+                        w=(room.surface_area(door.wall), "area"),
+                    ),
                     d_at + ("width",),
                 )
         open_per_day = door.passages_per_day * door.passage_time + door.open_time
@@ -346,7 +402,11 @@ def project_warnings(model: "ProjectModel") -> list[tuple[str, str]]:
                 out.append(
                     (
                         f"{key}.envelope.{side}",
-                        f"{room.name}: {side} U = {u:.2f} W/(m²·K) is high for a cold room (usually below 0.3)",
+                        Note.fill(
+                            f"{room.name}: {side} U = {{u}} is high for a cold room (usually below {{typ}})",
+                            u=(u, "u_value"),
+                            typ=(0.3, "u_value"),
+                        ),
                     )
                 )
         for j, door in enumerate(room.doors):
@@ -367,8 +427,13 @@ def project_warnings(model: "ProjectModel") -> list[tuple[str, str]]:
                 out.append(
                     (
                         f"{key}.refrigeration",
-                        f"{room.name}: condensing at {condensing:.1f} °C is within {CRITICAL_MARGIN_WARNING:g} K of "
-                        f"the critical temperature of {name} ({critical:g} °C); capacity and efficiency fall steeply",
+                        Note.fill(
+                            f"{room.name}: condensing at {{c}} is within {{m}} of the critical temperature of {name} "
+                            "({crit}); capacity and efficiency fall steeply",
+                            c=(condensing, "temperature"),
+                            m=(CRITICAL_MARGIN_WARNING, "temperature_difference"),
+                            crit=(critical, "temperature"),
+                        ),
                     )
                 )
         if room.safety_factor > SAFETY_FACTOR_WARNING:
@@ -383,8 +448,11 @@ def project_warnings(model: "ProjectModel") -> list[tuple[str, str]]:
             out.append(
                 (
                     f"{key}.envelope.floor",
-                    f"{room.name}: a room below 0 °C on an unheated slab risks frost heave; "
-                    "design a heated slab (facing: heated_slab)",
+                    Note.fill(
+                        f"{room.name}: a room below {{z}} on an unheated slab risks frost heave; "
+                        "design a heated slab (facing: heated_slab)",
+                        z=(0.0, "temperature"),
+                    ),
                 )
             )
     return out

@@ -85,8 +85,10 @@ def validate_command(
         model = load_project(project)
         rooms = ", ".join(room.name for room in model.rooms)
         print(f"{project}: valid ({len(model.rooms)} room{'s' if len(model.rooms) != 1 else ''}: {rooms})")
+        from coldroom.units import format_terms
+
         for key, message in project_warnings(model):
-            print(f"{project}: warning: {key}: {message}", file=sys.stderr)
+            print(f"{project}: warning: {key}: {format_terms(message, model.project.units)}", file=sys.stderr)
 
     guarded(run)
 
@@ -109,6 +111,7 @@ def load_command(
         from coldroom.output import write_atomic
         from coldroom.projectfile import load_project
         from coldroom.textreport import loads_report
+        from coldroom.units import format_terms
 
         model = load_project(project)
         rooms = project_loads(model)
@@ -116,14 +119,14 @@ def load_command(
         payload = {
             "project": {"name": model.project.name, "unit_system": model.project.units},
             "rooms": [r.to_json() for r in rooms],
-            "warnings": warnings,
+            "warnings": [str(message) for message in warnings],  # SI wording, like every JSON figure
         }
         text = json.dumps(payload, indent=2, ensure_ascii=False) + "\n"
         to_stdout = json_out == "-"
         out = sys.stderr if to_stdout else sys.stdout
         print(loads_report(rooms, model.project.units, [r.temperature for r in model.rooms]), file=out)
         for message in warnings:
-            print(f"warning: {message}", file=out)
+            print(f"warning: {format_terms(message, model.project.units)}", file=out)
         if to_stdout:
             sys.stdout.write(text)
         elif json_out:
@@ -199,6 +202,7 @@ def products_command(
 def _size_summary(result, model) -> str:  # type: ignore[no-untyped-def]
     """The terminal summary of ``coldroom size`` (presents the result, computes nothing)."""
     from coldroom.report.text import capacity, q, temperature
+    from coldroom.units import format_terms
 
     s = result.unit_system
     lines = [f"{result.project_name}  ({result.date}, {s} units)"]
@@ -235,9 +239,9 @@ def _size_summary(result, model) -> str:  # type: ignore[no-untyped-def]
                 f"{capacity(k.required_capacity, s)} required{margin}); see `coldroom check`"
             )
         for message in list(loads.warnings) + list(room.warnings):
-            lines.append(f"  warning: {message}")
+            lines.append(f"  warning: {format_terms(message, s)}")
     for message in result.warnings:
-        lines.append(f"warning: {message}")
+        lines.append(f"warning: {format_terms(message, s)}")
     return "\n".join(lines)
 
 
@@ -500,7 +504,7 @@ def _check_text(model, checks) -> str:  # type: ignore[no-untyped-def]
         for note in c.compressor_basis:
             lines.append(f"  compressor: {format_terms(note, system)}")
         for warning in c.warnings:
-            lines.append(f"  WARNING: {warning}")
+            lines.append(f"  WARNING: {format_terms(warning, system)}")
     return "\n".join(lines)
 
 

@@ -40,6 +40,7 @@ import math
 from dataclasses import dataclass, replace
 
 from coldroom.errors import CalculationError
+from coldroom.results import Note, Term
 from coldroom.refrigerant import Fluid, StatePoint, coolprop_version, get_fluid, KELVIN
 
 #: Useful superheat at the evaporator outlet [K]; 4–7 K with a thermostatic
@@ -555,13 +556,20 @@ def _warnings(info, discharge_temperature: float, pressure_ratio: float, suction
     out = []
     if discharge_temperature > DISCHARGE_LIMIT:
         out.append(
-            f"discharge temperature {discharge_temperature:.0f} °C exceeds the {DISCHARGE_LIMIT:.0f} °C limit "
-            "commonly applied (oil breakdown): reduce superheat or pressure ratio, or use injection/two-stage [trade]"
+            Note(
+                "discharge temperature ", Term(discharge_temperature, "temperature"), " exceeds the ",
+                Term(DISCHARGE_LIMIT, "temperature"),
+                " limit commonly applied (oil breakdown): reduce superheat or pressure ratio, or use "
+                "injection/two-stage [trade]",
+            )
         )
     elif discharge_temperature > DISCHARGE_ADVISORY:
         out.append(
-            f"discharge temperature {discharge_temperature:.0f} °C is above the 110–120 °C usually advised "
-            "at the discharge line [trade]"
+            Note(
+                "discharge temperature ", Term(discharge_temperature, "temperature"), " is above the ",
+                Term(110.0, "temperature:bare"), "–", Term(120.0, "temperature"),
+                " usually advised at the discharge line [trade]",
+            )
         )
     if pressure_ratio > PRESSURE_RATIO_ADVISORY:
         out.append(
@@ -570,7 +578,10 @@ def _warnings(info, discharge_temperature: float, pressure_ratio: float, suction
         )
     if suction_pressure < STANDARD_ATMOSPHERE:
         out.append(
-            f"suction pressure {suction_pressure / 1e3:.0f} kPa is below atmospheric: a leak draws in air and moisture"
+            Note(
+                "suction pressure ", Term(suction_pressure, "pressure"),
+                " is below atmospheric: a leak draws in air and moisture",
+            )
         )
     if eta_v < 0.5:
         out.append(f"volumetric efficiency {eta_v:.2f} is low: the compressor is large for the duty")

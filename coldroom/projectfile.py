@@ -794,8 +794,11 @@ def parse_project_data(data: Any, filename: str = "<input>", loaded: Any = None)
     finally:
         _SYSTEM.reset(token)
     from coldroom.checks import check_project
+    from coldroom.units import format_terms
 
-    check_project(model, lambda message, path: _error_at(loaded, filename, message, path))
+    check_project(
+        model, lambda message, path: _error_at(loaded, filename, format_terms(message, model.project.units), path)
+    )
     return model
 
 

@@ -5,7 +5,7 @@ Reports (PDF, JSON, terminal) only read these; they compute nothing new.
 
 from __future__ import annotations
 
-from dataclasses import dataclass, field
+from dataclasses import dataclass, field, replace
 from typing import Any, Optional
 
 from coldroom.units import format_terms
@@ -42,6 +42,62 @@ class Term:
 
     def to_json(self) -> dict[str, Any]:
         return {"value_si": self.value, "kind": self.kind, "prefix": self.prefix, "suffix": self.suffix, "sep": self.sep}
+
+
+def _with_sep(part: object) -> object:
+    return replace(part, sep="") if isinstance(part, Term) and part.sep == " × " else part
+
+
+class Note(str):
+    """A message whose numbers stay in SI so each report can show them in its own units.
+
+    It *is* a string: its text is the SI wording, so it prints, compares and
+    serialises like any message. :func:`coldroom.units.format_terms` rewrites it
+    in another unit system from :attr:`phrase`.
+
+    Examples
+    --------
+    >>> n = Note("room ", Term(2.0, "temperature"), " is too warm")
+    >>> n
+    'room 2.0 °C is too warm'
+    >>> format_terms(n, "IP")
+    'room 35.6 °F is too warm'
+    """
+
+    phrase: tuple[Any, ...]
+
+    def __new__(cls, *parts: object) -> "Note":
+        phrase = tuple(_with_sep(part) for part in parts)
+        note = super().__new__(cls, format_terms(phrase, "SI"))
+        note.phrase = phrase
+        return note
+
+    def prefixed(self, text: str) -> "Note":
+        """The same note with *text* in front (e.g. the room's name)."""
+        return Note(text, *self.phrase)
+
+    @classmethod
+    def fill(cls, template: str, **values: tuple[float, str]) -> "Note":
+        """A note from a template whose ``{name}`` fields are ``(value_si, kind)`` pairs.
+
+        Examples
+        --------
+        >>> Note.fill("door {h} is taller than the room", h=(2.5, "length"))
+        'door 2.50 m is taller than the room'
+        """
+        import re
+
+        parts: list[object] = []
+        for i, piece in enumerate(re.split(r"\{(\w+)\}", template)):
+            if i % 2:
+                if piece not in values:  # braces in a name, not a field
+                    parts.append("{" + piece + "}")
+                    continue
+                value, kind = values[piece]
+                parts.append(Term(value, kind, sep=""))
+            elif piece:
+                parts.append(piece)
+        return cls(*parts)
 
 
 @dataclass(frozen=True)

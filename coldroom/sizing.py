@@ -364,7 +364,7 @@ def size_room(model: "ProjectModel", room: "Room") -> "RoomResult":
     from coldroom.data import refrigerants
     from coldroom.equipment import check_room
     from coldroom.loads import room_loads
-    from coldroom.results import RoomResult
+    from coldroom.results import Note, RoomResult
 
     loads = room_loads(model, room)
     r = room.refrigeration
@@ -393,7 +393,10 @@ def size_room(model: "ProjectModel", room: "Room") -> "RoomResult":
             f"room {room.name!r}: the {info.name} cycle at evaporating {temps.evaporating_temperature:.1f} °C / "
             f"condensing {temps.condensing_temperature:.1f} °C cannot be sized: {exc}"
         ) from None
-    warnings = [f"{room.name}: {w}" for w in getattr(cycle, "warnings", ()) or ()]
+    warnings = [
+        w.prefixed(f"{room.name}: ") if isinstance(w, Note) else f"{room.name}: {w}"
+        for w in getattr(cycle, "warnings", ()) or ()
+    ]
     return RoomResult(
         loads=loads,
         evaporating_temperature=temps.evaporating_temperature,

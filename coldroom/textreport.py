@@ -5,7 +5,7 @@ from __future__ import annotations
 from typing import Sequence
 
 from coldroom.results import COMPONENTS, RoomLoads
-from coldroom.units import display, format_number
+from coldroom.units import display, format_number, format_terms
 
 
 def table(headers: Sequence[str], rows: Sequence[Sequence[str]], align: str | None = None) -> str:
@@ -69,5 +69,5 @@ def loads_report(rooms: Sequence[RoomLoads], system: str, temperatures: Sequence
         title = f"{loads.name}  ({display(temperature, 'temperature', system)}, {display(loads.volume, 'volume', system)})"
         parts.append(title + "\n" + room_load_table(loads, system))
         for warning in loads.warnings:
-            parts.append(f"  warning: {warning}")
+            parts.append(f"  warning: {format_terms(warning, system)}")
     return "\n\n".join(parts)

@@ -536,15 +536,19 @@ def format_terms(terms: "Sequence[object]", system: str = "SI") -> str:
     'U 0.0352 Btu/(h·ft²·°F) × 145 ft² × 39.6 °F'
     >>> format_terms(("K = ", Term(500.0, "conductance", sep="")), "IP")
     'K = 948 Btu/(h·°F)'
+    >>> format_terms((Term(0.0, "temperature:bare", sep=""), " … ", Term(4.0, "temperature", sep="")), "IP")
+    '32.0 … 39.2 °F'
     """
     if isinstance(terms, str):
-        return terms
+        phrase = getattr(terms, "phrase", None)  # a coldroom.results.Note keeps its numbers in SI
+        return terms if phrase is None or system == "SI" else format_terms(phrase, system)
     parts: list[str] = []
     for i, term in enumerate(terms):
         if isinstance(term, str):
             parts.append(term)
             continue
         value, kind = term.value, term.kind  # type: ignore[attr-defined]
+        kind, _, flag = kind.partition(":")  # "temperature:bare" → the number alone (first end of a range)
         if kind == "number":
             text = f"{value:g}" if float(value).is_integer() else format_number(value)
         elif kind == "power" and system == "SI" and abs(value) >= 1000.0:
@@ -560,6 +564,8 @@ def format_terms(terms: "Sequence[object]", system: str = "SI") -> str:
             text = f"{to_unit(value, kind, unit):.3g} {unit}" if system == "IP" else f"{value:.3f} {unit}"
         else:
             text = display(value, kind, system)
+        if flag == "bare":
+            text = text.rsplit(" ", 1)[0]
         sep = term.sep if i else ""  # type: ignore[attr-defined]
         parts.append(f"{sep}{term.prefix}{text}{term.suffix}")  # type: ignore[attr-defined]
     return "".join(parts)

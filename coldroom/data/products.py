@@ -19,6 +19,7 @@ from functools import lru_cache
 from importlib import resources
 
 from coldroom.errors import CalculationError, ColdroomError, unknown_name
+from coldroom.results import Note, Term
 from coldroom.food import (
     Composition,
     CompositionModel,
@@ -300,6 +301,11 @@ def search_products(text: str | None = None) -> list[Product]:
 CHILLING_SENSITIVE_FROM = 7.0
 
 
+def _t(celsius: float, bare: bool = False) -> Term:
+    """A temperature inside a warning, shown in the report's unit system (*bare*: without its unit)."""
+    return Term(celsius, "temperature:bare" if bare else "temperature", sep="")
+
+
 def storage_warnings(
     product: Product, room_temperature: float, room_humidity: float | None = None
 ) -> list[str]:
@@ -327,7 +333,7 @@ def storage_warnings(
     Examples
     --------
     >>> storage_warnings(get_product("bananas"), 2.0)[0]
-    'Bananas (green, ripening): room 2 °C is below the recommended 13 … 14 °C — chilling injury risk'
+    'Bananas (green, ripening): room 2.0 °C is below the recommended 13.0 … 14.0 °C — chilling injury risk'
     >>> storage_warnings(get_product("apples"), 0.0, 92.0)
     []
     """
@@ -336,19 +342,23 @@ def storage_warnings(
     out: list[str] = []
     if product.is_fresh and t < product.freezing_point:
         out.append(
-            f"{product.name}: room {t:g} °C is below the product's initial freezing point "
-            f"{product.freezing_point:g} °C — freezing damage to a fresh product"
+            Note(
+                f"{product.name}: room ", _t(t), " is below the product's initial freezing point ",
+                _t(product.freezing_point), " — freezing damage to a fresh product",
+            )
         )
     elif t < low:
         why = ""
         if product.is_fresh and low >= CHILLING_SENSITIVE_FROM:
             why = " — chilling injury risk"
-        out.append(f"{product.name}: room {t:g} °C is below the recommended {low:g} … {high:g} °C{why}")
+        out.append(Note(f"{product.name}: room ", _t(t), " is below the recommended ", _t(low, True), " … ", _t(high), why))
     if t > high:
         why = " — the product will not stay frozen" if not product.is_fresh and t > product.freezing_point else ""
         out.append(
-            f"{product.name}: room {t:g} °C is above the recommended {low:g} … {high:g} °C — "
-            f"shorter storage life{why}"
+            Note(
+                f"{product.name}: room ", _t(t), " is above the recommended ", _t(low, True), " … ", _t(high),
+                f" — shorter storage life{why}",
+            )
         )
     if room_humidity is not None and product.storage_humidity is not None:
         rh_low, rh_high = product.storage_humidity

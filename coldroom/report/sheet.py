@@ -206,13 +206,6 @@ def _room_cycle(ctx: SheetContext, index: int) -> Optional[dict]:
     return ctx.cache[key]
 
 
-def _room_json(ctx: SheetContext, index: int) -> dict:
-    key = ("room", index)
-    if key not in ctx.cache:
-        ctx.cache[key] = ctx.result.rooms[index].to_json()
-    return ctx.cache[key]
-
-
 def _room_conditions(ctx: SheetContext, index: int) -> str:
     room = ctx.room_input(index)
     if room is None:
@@ -296,8 +289,13 @@ def project_warnings_section(ctx: SheetContext) -> list:
 
 def _warning_box(ctx: SheetContext, messages: Sequence[str]) -> list:
     style = ParagraphStyle("warn", parent=SMALL, textColor=WARN)
-    data = [[Paragraph("!", ParagraphStyle("bang", parent=style, fontName="Helvetica-Bold")), Paragraph(esc(m), style)]
-            for m in messages]
+    data = [
+        [
+            Paragraph("!", ParagraphStyle("bang", parent=style, fontName="Helvetica-Bold")),
+            Paragraph(esc(format_terms(m, ctx.system)), style),
+        ]
+        for m in messages
+    ]
     table = Table(data, colWidths=[16, ctx.width - 16], hAlign="LEFT")
     table.setStyle(
         TableStyle(
@@ -562,7 +560,8 @@ def _isotherm_temperatures(system: str, states: Sequence[dict]) -> list[float]:
 
 def room_warnings_section(ctx: SheetContext, index: int) -> list:
     """Warnings for this room (loads and cycle)."""
-    messages = _room_json(ctx, index).get("warnings", [])
+    room = ctx.result.rooms[index]
+    messages = list(room.loads.warnings) + list(room.warnings)
     if not messages:
         return []
     return [KeepTogether([heading("Warnings"), *_warning_box(ctx, messages)])]

@@ -167,7 +167,7 @@ IMPLAUSIBLE = {
         "    layers:\n      - material: pur_panel\n        thickness: 100 mm\n",
         "    u_value: 1.5 W/m²K\n",
         "rooms[0].envelope.north",
-        "U = 1.50 W/(m²·K) is high for a cold room",
+        "U = 1.500 W/(m²·K) is high for a cold room",
     ),
     "door_traffic": (
         "        passages_per_day: 40\n",
@@ -185,7 +185,7 @@ IMPLAUSIBLE = {
         "      refrigerant: R-448A\n",
         "      refrigerant: R-404A\n      condenser_air_temperature: 45 °C\n      condenser_td: 23 K\n",
         "rooms[0].refrigeration",
-        "within 5 K of the critical temperature of R-404A",
+        "within 5.0 K of the critical temperature of R-404A",
     ),
 }
 

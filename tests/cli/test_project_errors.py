@@ -127,3 +127,24 @@ def test_load_json_has_the_contract_keys(tmp_path: Path) -> None:
     assert room["daily_energy_kwh"] > 0
     assert room["required_capacity_w"] > 0
     assert "required capacity" in result.stderr
+
+
+def test_ip_project_messages_speak_ip(tmp_path: Path) -> None:
+    """An IP project's errors and warnings quote its own units, not the SI the tool computes in."""
+    ip = REPO / "project_files" / "meat_cooler_ip.yaml"
+    text = ip.read_text(encoding="utf-8")
+    bad = tmp_path / "ip_bad.yaml"
+    bad.write_text(text.replace("    temperature: 33\n", "    temperature: 40\n", 1), encoding="utf-8")
+    result = run("validate", str(bad))
+    assert result.returncode == 65
+    # final 35 °F is below the room's 40 °F (values as the user wrote them)
+    assert "final temperature 35.0 °F is below the room temperature 40.0 °F" in result.stderr
+    warm = tmp_path / "ip_warm.yaml"
+    warm.write_text(
+        text.replace("    temperature: 33\n", "    temperature: 36\n", 1).replace("final_temperature: 35", "final_temperature: 37"),
+        encoding="utf-8",
+    )
+    loaded = run("load", str(warm))
+    assert loaded.returncode == 0, loaded.stderr
+    assert "room 36.0 °F is above the recommended" in loaded.stdout
+    assert "°C" not in loaded.stdout
