@@ -74,7 +74,7 @@ from dataclasses import dataclass, replace
 from typing import TYPE_CHECKING, Any, Callable, Optional, Sequence
 
 from coldroom.errors import CalculationError, PropertyRangeError
-from coldroom.results import Term
+from coldroom.results import Note, Term
 from coldroom.units import format_terms
 
 #: Text mixed with SI numbers (:class:`coldroom.results.Term`); reports show it
@@ -528,10 +528,15 @@ class RatedPointCompressor:
         out = []
         if point.suction_dew < self.rating_suction - RATING_SUCTION_GAP:
             out.append(
-                f"the unit is rated at {self.rating_suction:g} °C suction but would run at {point.suction_dew:.1f} °C "
-                f"({self.rating_suction - point.suction_dew:.0f} K lower): a unit outside its application class "
-                "(e.g. medium-temperature unit at low-temperature suction); the figures are extrapolated from one "
-                "rated point — confirm the compressor's envelope, motor cooling and oil return with its maker"
+                Note.fill(
+                    "the unit is rated at {r} suction but would run at {s} ({gap} lower): a unit outside its "
+                    "application class (e.g. medium-temperature unit at low-temperature suction); the figures are "
+                    "extrapolated from one rated point — confirm the compressor's envelope, motor cooling and oil "
+                    "return with its maker",
+                    r=(self.rating_suction, "temperature"),
+                    s=(point.suction_dew, "temperature"),
+                    gap=(self.rating_suction - point.suction_dew, "temperature_difference"),
+                )
             )
         return out
 
@@ -673,9 +678,13 @@ class PolynomialCompressor:
         if point.within_envelope:
             return []
         return [
-            f"the balance point S {point.suction_dew:.1f} °C / D {point.discharge_dew:.1f} °C lies outside the "
-            f"compressor envelope {self.envelope.describe()} (tolerance {ENVELOPE_TOLERANCE:g} K): the polynomial "
-            "is not extrapolated and no capacity is given — the compressor is not rated for these conditions"
+            Note(
+                "the balance point S ", _n(point.suction_dew, "temperature"), " / D ",
+                _n(point.discharge_dew, "temperature"), " lies outside the compressor envelope ",
+                *self.envelope.phrase(), " (tolerance ", _n(ENVELOPE_TOLERANCE, "temperature_difference"),
+                "): the polynomial is not extrapolated and no capacity is given — the compressor is not rated "
+                "for these conditions",
+            )
         ]
 
 
@@ -1158,13 +1167,21 @@ def check_unit(
         t2 = point.discharge_temperature
         if t2 is not None and t2 > DISCHARGE_LIMIT:
             warnings.append(
-                f"discharge temperature about {t2:.0f} °C exceeds the ~{DISCHARGE_LIMIT:.0f} °C hard limit [trade]: "
-                "oil breakdown and valve damage; the unit must not run like this"
+                Note.fill(
+                    "discharge temperature about {t} exceeds the ~{lim} hard limit [trade]: "
+                    "oil breakdown and valve damage; the unit must not run like this",
+                    t=(t2, "temperature"),
+                    lim=(DISCHARGE_LIMIT, "temperature"),
+                )
             )
         elif t2 is not None and t2 > DISCHARGE_WARNING:
             warnings.append(
-                f"discharge temperature about {t2:.0f} °C is above {DISCHARGE_WARNING:.0f} °C [trade]: "
-                "check discharge-line temperature, consider liquid injection or a lower suction superheat"
+                Note.fill(
+                    "discharge temperature about {t} is above {lim} [trade]: check discharge-line temperature, "
+                    "consider liquid injection or a lower suction superheat",
+                    t=(t2, "temperature"),
+                    lim=(DISCHARGE_WARNING, "temperature"),
+                )
             )
         if point.pressure_ratio > PRESSURE_RATIO_WARNING:
             warnings.append(
@@ -1183,8 +1200,12 @@ def check_unit(
             )
         if holds and capacity < peak_capacity:
             warnings.append(
-                f"capacity {capacity:.0f} W covers the 24-hour requirement but not the peak-hour load "
-                f"{peak_capacity:.0f} W: pull-down will be slower than planned"
+                Note.fill(
+                    "capacity {c} covers the 24-hour requirement but not the peak-hour load {p}: "
+                    "pull-down will be slower than planned",
+                    c=(capacity, "power"),
+                    p=(peak_capacity, "power"),
+                )
             )
     # 2. chart over ambient, warm-started from the previous balance
     ambients = sorted(set(float(a) for a in chart_ambients))
