@@ -535,7 +535,7 @@ def _build(
     marks: dict[KeyPath, Mark],
     value_marks: dict[KeyPath, Mark],
 ) -> Any:
-    """Construct plain Python data from a checked node graph, recording marks."""
+    """Construct plain Python data from a checked node graph, keeping the marks."""
     value_marks[path] = _mark(node)
     if isinstance(node, ScalarNode):
         try:
