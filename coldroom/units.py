@@ -417,52 +417,11 @@ def to_unit(value_si: float, kind: str, unit: str) -> float:
 
 # Display units per system: (kind) -> unit symbol used on the sheet and terminal.
 DISPLAY_UNITS: dict[str, dict[str, str]] = {
-    "SI": {
-        "length": "m",
-        "thickness": "mm",
-        "area": "m²",
-        "volume": "m³",
-        "temperature": "°C",
-        "temperature_difference": "K",
-        "power": "W",
-        "power_large": "kW",
-        "energy": "kWh",
-        "mass": "kg",
-        "pressure": "kPa",
-        "conductivity": "W/(m·K)",
-        "u_value": "W/(m²·K)",
-        "specific_heat": "kJ/(kg·K)",
-        "specific_energy": "kJ/kg",
-        "power_per_area": "W/m²",
-        "density": "kg/m³",
-        "volume_flow": "m³/h",
-        "energy_density": "kJ/m³",
-        "conductance": "W/K",
-        "mass_flow": "kg/s",
-    },
-    "IP": {
-        "length": "ft",
-        "thickness": "in",
-        "area": "ft²",
-        "volume": "ft³",
-        "temperature": "°F",
-        "temperature_difference": "°F",
-        "power": "Btu/h",
-        "power_large": "TR",
-        "energy": "Btu",
-        "mass": "lb",
-        "pressure": "psia",
-        "conductivity": "Btu·in/(h·ft²·°F)",
-        "u_value": "Btu/(h·ft²·°F)",
-        "specific_heat": "Btu/(lb·°F)",
-        "specific_energy": "Btu/lb",
-        "power_per_area": "W/ft²",
-        "density": "lb/ft³",
-        "volume_flow": "cfm",
-        "energy_density": "Btu/ft³",
-        "conductance": "Btu/(h·°F)",
-        "mass_flow": "lb/h",
-    },
+    system: {**DEFAULT_UNITS[system], **extra}
+    for system, extra in (
+        ("SI", {"thickness": "mm", "power_large": "kW", "mass_flow": "kg/s"}),
+        ("IP", {"thickness": "in", "power_large": "TR", "mass_flow": "lb/h"}),
+    )
 }
 
 _DISPLAY_KIND = {"thickness": "length", "power_large": "power", "mass_flow": "mass_flow"}
