@@ -92,7 +92,13 @@ def test_more_passages_more_infiltration(passages, more, passage_time):
 def test_effectiveness_one_gives_zero_infiltration(t_room, t_out, passages):
     r = _door(room_temperature=t_room, outside_temperature=t_out, passages_per_day=passages, effectiveness=1.0)
     assert r.average_power == 0.0 and r.daily_energy == 0.0
-    assert r.full_open_power > 0.0  # the door itself still exchanges air when open
+    assert r.full_open_dry_air_flow > 0.0  # the door itself still exchanges air when open
+    # The exchange carries heat in when the outside air holds more enthalpy than the room air; with
+    # a small temperature difference and dry outside air (e.g. 10 °C room, 12 °C outside) it need not.
+    if r.outside.enthalpy > r.room.enthalpy:
+        assert r.full_open_power > 0.0
+    else:
+        assert r.full_open_power <= 0.0
 
 
 @given(st.floats(0.0, 1.0), st.floats(0.0, 1.0))
