@@ -90,6 +90,30 @@ class OutputError(ColdroomError):
     exit_code = 73
 
 
+def finite(name: str, value: float) -> float:
+    """*value* as a float, or CalculationError when it is NaN or infinite.
+
+    Examples
+    --------
+    >>> finite("area", 2)
+    2.0
+    """
+    import math
+
+    value = float(value)
+    if not math.isfinite(value):
+        raise CalculationError(f"{name} must be a finite number, got {value!r}")
+    return value
+
+
+def non_negative(name: str, value: float, unit: str) -> float:
+    """*value* as a finite float ≥ 0, or CalculationError naming the quantity and its unit."""
+    value = finite(name, value)
+    if value < 0.0:
+        raise CalculationError(f"{name} {value:g} {unit} must not be negative")
+    return value
+
+
 def closest_names(name: str, valid: list[str] | tuple[str, ...], n: int = 5) -> list[str]:
     """Return up to *n* valid names closest to *name* (case-insensitive).
 

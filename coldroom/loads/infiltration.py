@@ -39,7 +39,7 @@ from types import MappingProxyType
 from typing import Callable, Mapping
 
 from coldroom.data.materials import normalise_name
-from coldroom.errors import CalculationError, unknown_name
+from coldroom.errors import CalculationError, unknown_name, finite as _finite, non_negative as _non_negative
 from coldroom.psychrometrics import STANDARD_PRESSURE, MoistAirState, moist_air_state
 
 __all__ = [
@@ -69,20 +69,6 @@ GRAVITY = 9.80665
 SECONDS_PER_DAY = 86_400.0
 
 _FT3 = 0.028316846592  # m³ per cubic foot (exact)
-
-
-def _finite(name: str, value: float) -> float:
-    value = float(value)
-    if not math.isfinite(value):
-        raise CalculationError(f"{name} must be a finite number, got {value!r}")
-    return value
-
-
-def _non_negative(name: str, value: float, unit: str) -> float:
-    value = _finite(name, value)
-    if value < 0.0:
-        raise CalculationError(f"{name} {value:g} {unit} must not be negative")
-    return value
 
 
 # --------------------------------------------------------------------------- door protection

@@ -17,12 +17,11 @@ Defrost: count defrost heat **either** as a load here (:func:`defrost_energy`)
 
 from __future__ import annotations
 
-import math
 from types import MappingProxyType
 from typing import Mapping
 
 from coldroom.data.materials import normalise_name
-from coldroom.errors import CalculationError, unknown_name
+from coldroom.errors import CalculationError, unknown_name, finite as _finite, non_negative as _non_negative
 
 __all__ = [
     "SECONDS_PER_HOUR",
@@ -46,20 +45,6 @@ __all__ = [
 
 SECONDS_PER_HOUR = 3600.0
 SECONDS_PER_DAY = 86_400.0
-
-
-def _finite(name: str, value: float) -> float:
-    value = float(value)
-    if not math.isfinite(value):
-        raise CalculationError(f"{name} must be a finite number, got {value!r}")
-    return value
-
-
-def _non_negative(name: str, value: float, unit: str) -> float:
-    value = _finite(name, value)
-    if value < 0.0:
-        raise CalculationError(f"{name} {value:g} {unit} must not be negative")
-    return value
 
 
 def _hours(hours_per_day: float) -> float:

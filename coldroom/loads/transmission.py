@@ -20,11 +20,10 @@ Temperatures are in °C (only differences matter); areas in m², U in W/(m²·K)
 
 from __future__ import annotations
 
-import math
 from typing import Iterable, Sequence
 
 from coldroom.data.materials import sun_allowance_table
-from coldroom.errors import CalculationError
+from coldroom.errors import CalculationError, finite as _finite
 
 __all__ = [
     "u_value",
@@ -33,13 +32,6 @@ __all__ = [
     "floor_on_grade_heat_gain",
     "heated_slab_floor_heat_gain",
 ]
-
-
-def _finite(name: str, value: float) -> float:
-    value = float(value)
-    if not math.isfinite(value):
-        raise CalculationError(f"{name} must be a finite number, got {value!r}")
-    return value
 
 
 def u_value(
