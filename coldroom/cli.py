@@ -52,6 +52,23 @@ def guarded(func: Callable[[], None]) -> None:
         raise typer.Exit(code=130) from None
 
 
+def emit_json(data: object, json_out: Optional[str], *, force: bool, project: str, console) -> None:  # type: ignore[no-untyped-def]
+    """Write *data* as JSON to stdout (``-``) or atomically to *json_out*; nothing when not asked."""
+    if not json_out:
+        return
+    import json
+
+    text = json.dumps(data, indent=2, ensure_ascii=False) + "\n"
+    if json_out == "-":
+        sys.stdout.write(text)
+        sys.stdout.flush()
+        return
+    from coldroom.output import write_atomic
+
+    write_atomic(json_out, text, force=force, inputs=[project])
+    print(f"wrote {json_out}", file=console)
+
+
 def version_callback(value: bool) -> None:
     if value:
         print(f"coldroom {__version__}")
@@ -104,11 +121,9 @@ def load_command(
     """Each room's 24-hour heat load, component by component, and the required capacity."""
 
     def run() -> None:
-        import json
 
         from coldroom.checks import project_warnings
         from coldroom.loads import project_loads
-        from coldroom.output import write_atomic
         from coldroom.projectfile import load_project
         from coldroom.textreport import loads_report
         from coldroom.units import format_terms
@@ -121,17 +136,11 @@ def load_command(
             "rooms": [r.to_json() for r in rooms],
             "warnings": [str(message) for message in warnings],  # SI wording, like every JSON figure
         }
-        text = json.dumps(payload, indent=2, ensure_ascii=False) + "\n"
-        to_stdout = json_out == "-"
-        out = sys.stderr if to_stdout else sys.stdout
+        out = sys.stderr if json_out == "-" else sys.stdout
         print(loads_report(rooms, model.project.units, [r.temperature for r in model.rooms]), file=out)
         for message in warnings:
             print(f"warning: {format_terms(message, model.project.units)}", file=out)
-        if to_stdout:
-            sys.stdout.write(text)
-        elif json_out:
-            write_atomic(json_out, text, force=force, inputs=[project])
-            print(f"wrote {json_out}", file=out)
+        emit_json(payload, json_out, force=force, project=project, console=out)
 
     guarded(run)
 
@@ -259,7 +268,6 @@ def size_command(
     """Size every room: loads, design temperatures, cycle; write the PDF sizing sheet (and JSON)."""
 
     def run() -> None:
-        import json
         import os
         from pathlib import Path
 
@@ -296,17 +304,11 @@ def size_command(
 
         result = size_project(model, project, raw)
         pdf = render_sheet(result, model)
-        text = json.dumps(result.to_json(), indent=2, ensure_ascii=False) + "\n"
         console = sys.stderr if to_stdout else sys.stdout
         print(_size_summary(result, model), file=console)
         write_atomic(pdf_path, pdf, force=force, inputs=[project])
         print(f"wrote {pdf_path}", file=console)
-        if to_stdout:
-            sys.stdout.write(text)
-            sys.stdout.flush()
-        elif json_out:
-            write_atomic(json_out, text, force=force, inputs=[project])
-            print(f"wrote {json_out}", file=console)
+        emit_json(result.to_json(), json_out, force=force, project=project, console=console)
 
     guarded(run)
 
@@ -519,19 +521,16 @@ def check_command(
     """Check each room's existing unit at the room's new conditions (capacity at balance vs load)."""
 
     def run() -> None:
-        import json
 
-        from coldroom.output import write_atomic
         from coldroom.projectfile import load_project
 
         model = load_project(project)
         from coldroom.equipment import check_project  # CoolProp, lazily
 
         checks = check_project(model)
-        to_stdout = json_out == "-"
-        console = sys.stderr if to_stdout else sys.stdout
+        console = sys.stderr if json_out == "-" else sys.stdout
         print(_check_text(model, checks), file=console)
-        if json_out:
+        if json_out:  # build the payload only when asked
             data = {
                 "project": {"name": model.project.name, "unit_system": model.project.units, "input_file": project},
                 "rooms": [
@@ -543,13 +542,7 @@ def check_command(
                     for loads, check in checks
                 ],
             }
-            text = json.dumps(data, indent=2, ensure_ascii=False) + "\n"
-            if to_stdout:
-                sys.stdout.write(text)
-                sys.stdout.flush()
-            else:
-                write_atomic(json_out, text, force=force, inputs=[project])
-                print(f"wrote {json_out}", file=console)
+            emit_json(data, json_out, force=force, project=project, console=console)
 
     guarded(run)
 
