@@ -223,8 +223,8 @@ def _check_geometry(room: "Room", at: tuple, error: ErrorFactory) -> None:
         )
 
 
-def design_saturation_temperatures(model: "ProjectModel", room: "Room") -> tuple[float, float] | None:
-    """Evaporating and condensing dew temperatures the sizing will use [°C], or None.
+def design_saturation_temperatures(model: "ProjectModel", room: "Room") -> tuple[float, float]:
+    """Evaporating and condensing dew temperatures the sizing will use [°C].
 
     Parameters
     ----------
@@ -235,34 +235,18 @@ def design_saturation_temperatures(model: "ProjectModel", room: "Room") -> tuple
 
     Evaporating = room − evaporator TD; condensing = condenser air (default the
     outdoor dry bulb) + condenser TD; the default TDs come from
-    :mod:`coldroom.sizing` (trade tables there). None when that module is not
-    available and a TD is not given.
+    :mod:`coldroom.sizing` (trade tables there), the same function the sizing uses.
     """
-    refrigeration = room.refrigeration
-    td_e = refrigeration.evaporator_td
-    td_c = refrigeration.condenser_td
-    if td_e is None or td_c is None:
-        try:
-            from coldroom import sizing
-        except ImportError:  # pragma: no cover - sizing is part of the package
-            return None
-        if td_e is None:
-            td_e = sizing.evaporator_td_for(room.temperature, room.rh)[0]
-        if td_c is None:
-            td_c = sizing.DEFAULT_CONDENSER_TD
-    air = refrigeration.condenser_air_temperature
-    if air is None:
-        air = model.design.outdoor_temperature
-    return room.temperature - td_e, air + td_c
+    from coldroom.sizing import room_design_temperatures  # no CoolProp import at module level
+
+    temps = room_design_temperatures(model, room)
+    return temps.evaporating_temperature, temps.condensing_temperature
 
 
 def _check_refrigerant_range(
     model: "ProjectModel", room: "Room", refrigerant: str, at: tuple, error: ErrorFactory
 ) -> None:
-    temperatures = design_saturation_temperatures(model, room)
-    if temperatures is None:  # pragma: no cover
-        return
-    evaporating, condensing = temperatures
+    evaporating, condensing = design_saturation_temperatures(model, room)
     r_at = at + ("refrigeration",)
     air = room.refrigeration.condenser_air_temperature
     if air is None:
@@ -420,7 +404,7 @@ def project_warnings(model: "ProjectModel") -> list[tuple[str, str]]:
                 )
         temperatures = design_saturation_temperatures(model, room)
         limits = _limits_of(room.refrigeration.refrigerant)
-        if temperatures is not None and limits is not None:
+        if limits is not None:
             name, (_, critical) = limits
             condensing = temperatures[1]
             if critical - CRITICAL_MARGIN_WARNING <= condensing < critical:
