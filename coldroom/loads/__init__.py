@@ -229,10 +229,13 @@ def _product_loads(room: "Room") -> list:
     return out
 
 
-def product_lines(model: "ProjectModel", room: "Room") -> list[LoadLine]:
-    """Product pull-down (sensible, latent, sensible below freezing), packaging and respiration."""
+def product_lines(model: "ProjectModel", room: "Room", loads: list | None = None) -> list[LoadLine]:
+    """Product pull-down (sensible, latent, sensible below freezing), packaging and respiration.
+
+    *loads* are the room's product loads when already computed (:func:`_product_loads`).
+    """
     lines = []
-    for item, load in zip(room.products, _product_loads(room)):
+    for item, load in zip(room.products, loads if loads is not None else _product_loads(room)):
         basis: tuple[Term, ...] = ()
         if item.daily_intake > 0:
             basis = (
@@ -267,9 +270,9 @@ def storage_advice(room: "Room") -> list[str]:
     return list(dict.fromkeys(out))
 
 
-def product_peak(model: "ProjectModel", room: "Room") -> float:
+def product_peak(model: "ProjectModel", room: "Room", loads: list | None = None) -> float:
     """Product at its pull-down rate plus respiration [W] (the rate during the pull-down)."""
-    return sum(load.pulldown_rate for load in _product_loads(room))
+    return sum(load.pulldown_rate for load in (loads if loads is not None else _product_loads(room)))
 
 
 def internal_lines(model: "ProjectModel", room: "Room") -> list[LoadLine]:
@@ -390,16 +393,17 @@ def room_loads(model: "ProjectModel", room: "Room") -> RoomLoads:
     RoomLoads
         Every line, the safety factor, run time and the peak-hour load [W].
     """
+    products = _product_loads(room)
     lines: list[LoadLine] = []
     lines += transmission_lines(model, room)
-    lines += product_lines(model, room)
+    lines += product_lines(model, room, products)
     lines += infiltration_lines(model, room)
     lines += internal_lines(model, room)
     run_time, basis = _run_time(room)
     steady = sum(
         line.daily_energy for line in lines if line.component in ("transmission", "infiltration")
     ) / DAY
-    peak = steady + product_peak(model, room) + internal_peak(model, room)
+    peak = steady + product_peak(model, room, products) + internal_peak(model, room)
     warnings = storage_advice(room)
     return RoomLoads(
         name=room.name,
