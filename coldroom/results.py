@@ -189,7 +189,11 @@ class RoomLoads:
 
     @property
     def design_capacity(self) -> float:
-        """Capacity the equipment is sized for [W]: the larger of the required and the peak capacity."""
+        """Capacity the equipment is sized for [W]: the larger of the required and the peak capacity.
+
+        The ASHRAE method sizes on the 24-hour figure; taking the peak hour too, so that a fast
+        pull-down is not hidden by the average, is our choice (common practice, no source).
+        """
         return max(self.required_capacity, self.peak_capacity)
 
     @property

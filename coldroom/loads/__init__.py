@@ -354,7 +354,9 @@ def internal_lines(model: "ProjectModel", room: "Room") -> list[LoadLine]:
 def internal_peak(model: "ProjectModel", room: "Room") -> float:
     """Internal and equipment loads all on at once, defrost excluded [W].
 
-    Defrost heat is left out: the compressor does not run while the coil defrosts.
+    Every item at its full power in the same hour is a deliberately pessimistic
+    peak (common practice, no source). Defrost heat is left out: the compressor
+    does not run while the coil defrosts.
     """
     from coldroom.loads import internal
 
