@@ -20,7 +20,14 @@ Errors (exit 65), each naming the key, the value and why:
 - a door taller than the room, wider than or larger than its wall, doors
   together larger than their wall, a door standing open more than 24 h;
 - defrosts taking more than 24 h a day;
-- product leaving warmer than it entered, or colder than the room.
+- product leaving warmer than it entered, or colder than the room;
+- a surface (``facing: room``), a door (``to_room``) or a system naming a room
+  that does not exist (closest names listed), a room facing itself, the two
+  sides of a shared partition disagreeing by more than
+  :data:`PARTITION_AREA_TOLERANCE`;
+- a room in two systems, two systems of one name, a member room's
+  ``refrigeration`` giving system-level keys, or a refrigerant other than its
+  system's (one system, one refrigerant).
 
 Warnings (:func:`project_warnings`, exit 0) for legal but implausible input.
 Thresholds for warnings are common practice, no source, unless noted.
@@ -56,6 +63,9 @@ SAFETY_FACTOR_WARNING = 0.5
 DOOR_EDGE_ALLOWANCE = 0.0  # m; a door may fill its wall but not exceed it
 CRITICAL_MARGIN_WARNING = 5.0  # K: condensing this close below the critical point is poor practice
 MIN_ROOM_VOLUME = 1.0  # m³: below this it is a cabinet, not a walk-in room (common practice, no source)
+#: Two rooms describing their shared partition must agree on its area within
+#: this share of the larger figure (our choice: measuring tolerance) [-].
+PARTITION_AREA_TOLERANCE = 0.05
 
 #: Temperature limits of each refrigerant's property model [°C]: the lowest
 #: saturated evaporating temperature (triple point of a pure fluid; the lower
@@ -107,6 +117,8 @@ def check_project(model: "ProjectModel", error: ErrorFactory) -> None:
 
     design = model.design
     _check_design(model, error)
+    _check_links(model, error)
+    _check_systems(model, error)
     for i, room in enumerate(model.rooms):
         at = ("rooms", i)
         _check_geometry(room, at, error)
@@ -136,17 +148,19 @@ def check_project(model: "ProjectModel", error: ErrorFactory) -> None:
                 ),
                 at + ("temperature",),
             )
-        if room.refrigeration.condenser_air_temperature is not None and (
-            room.refrigeration.condenser_air_temperature <= room.temperature
+        refrigeration = model.refrigeration_for(room)
+        if refrigeration.condenser_air_temperature is not None and (
+            refrigeration.condenser_air_temperature <= room.temperature
         ):
             raise error(
-                "condenser air temperature must be above the room temperature",
-                at + ("refrigeration", "condenser_air_temperature"),
+                "condenser air temperature must be above the room temperature"
+                + (f" ({room.name!r})" if model.system_of(room) is not None else ""),
+                _setting_path(model, i, "condenser_air_temperature"),
             )
         try:
-            info = refrigerants.lookup(room.refrigeration.refrigerant)
+            info = refrigerants.lookup(refrigeration.refrigerant)
         except ColdroomError as exc:
-            raise error(str(exc), at + ("refrigeration", "refrigerant")) from None
+            raise error(str(exc), _setting_path(model, i, "refrigerant")) from None
         _check_refrigerant_range(model, room, info.name, at, error)
         _check_doors(room, at, error)
         _check_defrost(room, at, error)
@@ -174,6 +188,139 @@ def check_project(model: "ProjectModel", error: ErrorFactory) -> None:
                         ),
                         p_at + ("final_temperature",),
                     )
+
+
+def _setting_path(model: "ProjectModel", index: int, key: str) -> tuple:
+    """Where a refrigeration setting of room *index* is written: the room's block, or its system's entry."""
+    from coldroom.projectfile import ROOM_LEVEL_KEYS
+
+    room = model.rooms[index]
+    system = model.system_of(room)
+    if system is None or key in ROOM_LEVEL_KEYS:
+        return ("rooms", index, "refrigeration", key)
+    return ("systems", model.systems.index(system), key)
+
+
+def _surfaces(room: "Room", at: tuple):
+    """Each side of *room* as (side, surface, key path of the surface as written)."""
+    for side in ("north", "east", "south", "west", "ceiling", "floor"):
+        own = getattr(room.envelope, side) is not None
+        yield side, room.envelope.side(side), at + ("envelope", side if own else "walls")
+
+
+def _check_links(model: "ProjectModel", error: ErrorFactory) -> None:
+    """Surfaces facing a room and doors to a room name a room of the project, not their own."""
+    from coldroom.errors import unknown_name
+
+    names = [room.name for room in model.rooms]
+    for i, room in enumerate(model.rooms):
+        if room.name in names[:i]:
+            raise error(f"two rooms are called {room.name!r}; room names must be unique", ("rooms", i, "name"))
+    links: list[tuple[str, str, tuple]] = []
+    for i, room in enumerate(model.rooms):
+        at = ("rooms", i)
+        for _side, surface, where in _surfaces(room, at):
+            if surface.facing == "room":
+                links.append((room.name, str(surface.room), where + ("room",)))
+        for j, door in enumerate(room.doors):
+            if door.to_room is not None:
+                links.append((room.name, door.to_room, at + ("doors", j, "to_room")))
+    for own, other, where in links:
+        if other not in names:
+            raise error(str(unknown_name("room", other, names)), where)
+        if other == own:
+            raise error(f"room {own!r} cannot face itself; name the room on the other side", where)
+    _check_partitions(model, error)
+
+
+def _check_partitions(model: "ProjectModel", error: ErrorFactory) -> None:
+    """When both rooms describe their shared partition, the two areas must agree."""
+    described: dict[tuple[str, str], tuple[float, tuple]] = {}
+    for i, room in enumerate(model.rooms):
+        for side, surface, where in _surfaces(room, ("rooms", i)):
+            if surface.facing == "room":
+                key = (room.name, str(surface.room))
+                area, first = described.get(key, (0.0, where))
+                described[key] = (area + room.surface_area(side), first)
+    for (a, b), (area_a, _where_a) in described.items():
+        if (b, a) not in described or a > b:
+            continue
+        area_b, where_b = described[(b, a)]
+        if abs(area_a - area_b) > PARTITION_AREA_TOLERANCE * max(area_a, area_b):
+            i_a, i_b = (next(i for i, r in enumerate(model.rooms) if r.name == n) for n in (a, b))
+            (first, area_1), (second, area_2), where = (
+                ((a, area_a), (b, area_b), where_b) if i_a < i_b else ((b, area_b), (a, area_a), _where_a)
+            )
+            raise error(
+                Note.fill(
+                    f"the partition between rooms {first!r} ({{x}}) and {second!r} ({{y}}) has two areas "
+                    f"differing by more than {PARTITION_AREA_TOLERANCE * 100:g} %; make both rooms describe the same partition",
+                    x=(area_1, "area"),
+                    y=(area_2, "area"),
+                ),
+                where,
+            )
+
+
+def _check_systems(model: "ProjectModel", error: ErrorFactory) -> None:
+    """Each room in at most one system; names unique; a member's own block holds only room-level keys."""
+    from coldroom.data import refrigerants
+    from coldroom.errors import unknown_name
+    from coldroom.projectfile import ROOM_LEVEL_KEYS
+
+    names = [room.name for room in model.rooms]
+    member_of: dict[str, str] = {}
+    system_names: dict[str, int] = {}
+    for k, system in enumerate(model.systems):
+        at = ("systems", k)
+        if system.name in system_names:
+            raise error(f"two systems are called {system.name!r}; system names must be unique", at + ("name",))
+        system_names[system.name] = k
+        try:
+            info = refrigerants.lookup(system.refrigerant)
+        except ColdroomError as exc:
+            raise error(str(exc), at + ("refrigerant",)) from None
+        for m, name in enumerate(system.rooms):
+            where = at + ("rooms", m)
+            if name not in names:
+                raise error(str(unknown_name("room", name, names)), where)
+            if name in member_of:
+                other = member_of[name]
+                raise error(
+                    f"room {name!r} is already in system {other!r}"
+                    + ("" if other != system.name else " (listed twice)")
+                    + "; a room belongs to at most one system",
+                    where,
+                )
+            member_of[name] = system.name
+            i = names.index(name)
+            own = model.rooms[i].refrigeration
+            for key in sorted(own.model_fields_set - set(ROOM_LEVEL_KEYS)):
+                key_at = ("rooms", i, "refrigeration", key)
+                if key == "refrigerant":
+                    try:
+                        mine = refrigerants.lookup(own.refrigerant).name
+                    except ColdroomError as exc:
+                        raise error(str(exc), key_at) from None
+                    if mine != info.name:
+                        raise error(
+                            f"mixed refrigerants: room {name!r} gives {mine} but its system {system.name!r} runs "
+                            f"{info.name}; one system has one refrigerant",
+                            key_at,
+                        )
+                    continue
+                raise error(
+                    f"room {name!r} is in system {system.name!r}: {key} is set on the system; a member's "
+                    f"refrigeration block may give only {', '.join(ROOM_LEVEL_KEYS)}",
+                    key_at,
+                )
+    for k, system in enumerate(model.systems):
+        if system.name in names and system.name not in member_of:
+            raise error(
+                f"system {system.name!r} has the name of room {system.name!r}, which is in no system and so forms "
+                "a system of that name; rename one",
+                ("systems", k, "name"),
+            )
 
 
 def _check_design(model: "ProjectModel", error: ErrorFactory) -> None:
@@ -248,7 +395,9 @@ def _check_refrigerant_range(
 ) -> None:
     evaporating, condensing = design_saturation_temperatures(model, room)
     r_at = at + ("refrigeration",)
-    air = room.refrigeration.condenser_air_temperature
+    refrigeration = model.refrigeration_for(room)
+    index = at[1]
+    air = refrigeration.condenser_air_temperature
     if air is None:
         air = model.design.outdoor_temperature
     # The field bounds (TDs > 0) already make these impossible; kept as a guard.
@@ -268,7 +417,7 @@ def _check_refrigerant_range(
                 c=(condensing, "temperature"),
                 a=(air, "temperature"),
             ),
-            r_at + ("condenser_td",),
+            _setting_path(model, index, "condenser_td"),
         )
     limits = REFRIGERANT_LIMITS.get(refrigerant)
     if limits is None:
@@ -285,7 +434,9 @@ def _check_refrigerant_range(
                 td=(room.temperature - evaporating, "temperature_difference"),
                 low=(lowest, "temperature"),
             ),
-            r_at + ("evaporator_td" if room.refrigeration.evaporator_td is not None else "refrigerant",),
+            r_at + ("evaporator_td",)
+            if refrigeration.evaporator_td is not None
+            else _setting_path(model, index, "refrigerant"),
         )
     if condensing >= critical:
         hint = (
@@ -303,7 +454,7 @@ def _check_refrigerant_range(
                 td=(condensing - air, "temperature_difference"),
                 crit=(critical, "temperature"),
             ),
-            r_at + ("refrigerant",),
+            _setting_path(model, index, "refrigerant"),
         )
 
 
@@ -403,7 +554,7 @@ def project_warnings(model: "ProjectModel") -> list[tuple[str, str]]:
                     )
                 )
         temperatures = design_saturation_temperatures(model, room)
-        limits = _limits_of(room.refrigeration.refrigerant)
+        limits = _limits_of(model.refrigeration_for(room).refrigerant)
         if limits is not None:
             name, (_, critical) = limits
             condensing = temperatures[1]

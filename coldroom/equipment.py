@@ -1449,7 +1449,7 @@ def check_room(
 
     if loads is None:
         loads = room_loads(model, room)
-    r = room.refrigeration
+    r = model.refrigeration_for(room)
     temps = room_design_temperatures(model, room)
     try:
         compressor = build_compressor(unit, r)

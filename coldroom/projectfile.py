@@ -17,6 +17,7 @@ Layout of a project file (all keys are ours; see ``coldroom new``)::
                   ground_temperature, altitude | barometric_pressure, hemisphere
     constructions: {name: {layers: [...]} | {u_value: ...}}
     rooms:        [room, ...]
+    systems:      [{name, rooms: [room names], refrigerant, condenser settings, diversity}, ...]
 
 Examples
 --------
@@ -278,14 +279,24 @@ class Surface(Strict):
     """One side of the room and what lies beyond it.
 
     ``facing``: ``outdoors`` (sun allowance from ``colour`` and orientation),
-    ``space`` or ``roof_void`` (another space at ``temperature``), ``ground``
-    (the design ground temperature) or ``heated_slab`` (a freezer floor over a
-    heated plane held at ``temperature``; the heater's own power is not added).
+    ``space`` or ``roof_void`` (another space at ``temperature``), ``room``
+    (another room of the project, named by ``room``: its design temperature),
+    ``ground`` (the design ground temperature) or ``heated_slab`` (a freezer
+    floor over a heated plane held at ``temperature``; the heater's own power
+    is not added).
+
+    Heat leaving the room through a surface to a colder space or room is not
+    credited unless ``credit: true`` (the neighbour can be off, defrosting or
+    emptied; see :func:`coldroom.loads.transmission.credited_heat_gain`).
     """
 
     construction: Union[str, Construction]
-    facing: Literal["outdoors", "space", "roof_void", "ground", "heated_slab"]
+    facing: Literal["outdoors", "space", "roof_void", "room", "ground", "heated_slab"]
     temperature: Optional[Temperature] = None
+    room: Optional[str] = Field(default=None, min_length=1, max_length=100)
+    credit: bool = Field(
+        default=False, description="Count heat lost to a colder neighbour as a credit (default: not credited)."
+    )
     colour: Optional[Literal["light", "medium", "dark"]] = None
     area: Optional[Q("area", gt=0.0, le=10000.0)] = None  # type: ignore[valid-type]
 
@@ -295,6 +306,17 @@ class Surface(Strict):
             raise ValueError(f"a surface facing {self.facing} needs the temperature on the other side")
         if self.facing == "outdoors" and self.temperature is not None:
             raise ValueError("a surface facing outdoors takes the design outdoor temperature; remove temperature")
+        if self.facing == "room":
+            if self.room is None:
+                raise ValueError("a surface facing room needs `room:` naming the other room of the project")
+            if self.temperature is not None:
+                raise ValueError(
+                    "a surface facing room takes that room's design temperature; remove temperature"
+                )
+        elif self.room is not None:
+            raise ValueError("`room:` applies only to a surface with facing: room")
+        if self.credit and self.facing not in ("space", "roof_void", "room"):
+            raise ValueError("credit applies only to surfaces facing space, roof_void or room")
         if self.facing != "outdoors" and self.colour is not None:
             raise ValueError("colour (for the sun allowance) applies only to surfaces facing outdoors")
         return self
@@ -355,6 +377,21 @@ class Door(Strict):
     other_side_rh: Optional[RelativeHumidity] = Field(
         default=None, description="Relative humidity beyond the door; default the outdoor design RH."
     )
+    to_room: Optional[str] = Field(
+        default=None,
+        min_length=1,
+        max_length=100,
+        description="The door opens into this room of the project: its design temperature and RH lie beyond.",
+    )
+
+    @model_validator(mode="after")
+    def _other_side(self) -> "Door":
+        if self.to_room is not None and (self.other_side_temperature is not None or self.other_side_rh is not None):
+            given = [k for k in ("other_side_temperature", "other_side_rh") if getattr(self, k) is not None]
+            raise ValueError(
+                f"a door to_room takes that room's design temperature and RH; remove {' and '.join(given)}"
+            )
+        return self
 
 
 class Infiltration(Strict):
@@ -478,18 +515,63 @@ class Defrost(Strict):
 # --- refrigeration (sizing) -------------------------------------------------------------------
 
 
-class Refrigeration(Strict):
-    """Choices for the refrigerant side; every field has a documented default in coldroom.sizing."""
+class CondensingSettings(Strict):
+    """Settings of a compressor / condensing unit: shared by a room's ``refrigeration`` and a ``systems`` entry."""
 
     refrigerant: str = "R448A"
-    evaporator_td: Optional[Q("temperature_difference", gt=0.0, le=25.0)] = None  # type: ignore[valid-type]
     condenser_td: Optional[Q("temperature_difference", gt=0.0, le=30.0)] = None  # type: ignore[valid-type]
     condenser_air_temperature: Optional[OutdoorTemperature] = None
-    superheat: Q("temperature_difference", ge=0.0, le=30.0) = 5.0  # type: ignore[valid-type]
     suction_line_superheat: Q("temperature_difference", ge=0.0, le=40.0) = 5.0  # type: ignore[valid-type]
+    suction_line_drop: Q("temperature_difference", ge=0.0, le=10.0) = Field(  # type: ignore[valid-type]
+        default=0.0,
+        description="Suction-line pressure drop as a loss of saturation temperature [K] (trade: lines sized "
+        "for about 1 K); the compressor works at the coldest member's evaporating temperature less this.",
+    )
     subcooling: Q("temperature_difference", ge=0.0, le=30.0) = 2.0  # type: ignore[valid-type]
-    isentropic_efficiency: float = Field(default=0.65, gt=0.2, le=1.0)
+    isentropic_efficiency: float = Field(
+        default=0.65,
+        gt=0.2,
+        le=1.0,
+        description="Overall isentropic efficiency on the electrical input (motor included).",
+    )
     clearance: float = Field(default=0.04, ge=0.0, le=0.2)
+    condenser_fan_power: Optional[Q("power", ge=0.0, le=1e5)] = Field(  # type: ignore[valid-type]
+        default=None,
+        description="Electrical input of the condenser fans; default estimated from the heat of rejection.",
+    )
+
+
+#: Keys of a room's ``refrigeration`` block that belong to the room's own
+#: evaporator; a room in a ``systems`` entry may give only these (the rest is
+#: the system's).
+ROOM_LEVEL_KEYS: tuple[str, ...] = ("evaporator_td", "superheat")
+
+
+class Refrigeration(CondensingSettings):
+    """Choices for the refrigerant side; every field has a documented default in coldroom.sizing.
+
+    For a room in no ``systems`` entry this block also sets its own condensing
+    unit; for a room in a system only :data:`ROOM_LEVEL_KEYS` may be given here.
+    """
+
+    evaporator_td: Optional[Q("temperature_difference", gt=0.0, le=25.0)] = None  # type: ignore[valid-type]
+    superheat: Q("temperature_difference", ge=0.0, le=30.0) = 5.0  # type: ignore[valid-type]
+
+
+class System(CondensingSettings):
+    """One compressor (or condensing unit) serving one or more rooms at one suction pressure.
+
+    Rooms warmer than the coldest member keep their own evaporating temperature
+    behind an evaporator pressure regulator; the compressor runs at the coldest
+    member's evaporating temperature less ``suction_line_drop``. The design
+    capacity is the sum of the members' design capacities × ``diversity``.
+    """
+
+    name: str = Field(min_length=1, max_length=100)
+    rooms: list[Annotated[str, Field(min_length=1, max_length=100)]] = Field(min_length=1, max_length=50)
+    diversity: Q("fraction", gt=0.0, le=1.0) = Field(  # type: ignore[valid-type]
+        default=1.0, description="Share of the members' summed design capacity the system is sized for."
+    )
 
 
 # --- existing unit (checked by coldroom.equipment) -------------------------------------------
@@ -709,12 +791,69 @@ class ProjectModel(Strict):
     design: DesignConditions
     constructions: dict[str, Construction] = Field(default_factory=dict, max_length=50)
     rooms: list[Room] = Field(min_length=1, max_length=50)
+    systems: list[System] = Field(
+        default_factory=list,
+        max_length=50,
+        description="Rooms sharing a compressor; a room in none forms a system of its own named after the room.",
+    )
 
     def construction(self, ref: Union[str, Construction]) -> Construction:
         """Resolve a surface's construction (a name from ``constructions`` or inline)."""
         if isinstance(ref, Construction):
             return ref
         return self.constructions[ref]
+
+    def room_named(self, name: str) -> Room:
+        """The room called *name* (exact; the checks have rejected unknown names).
+
+        Raises
+        ------
+        LookupNameError
+            No room has that name (the message lists the closest names).
+        """
+        for room in self.rooms:
+            if room.name == name:
+                return room
+        from coldroom.errors import unknown_name
+
+        raise unknown_name("room", name, [room.name for room in self.rooms])
+
+    def system_of(self, room: Room) -> Optional[System]:
+        """The ``systems`` entry listing *room*, or ``None`` when the room forms a system of its own."""
+        for system in self.systems:
+            if room.name in system.rooms:
+                return system
+        return None
+
+    def system_groups(self) -> list[tuple[str, Optional[System], tuple[int, ...]]]:
+        """Every system of the project as ``(name, entry or None, member room indices)``.
+
+        Ordered by the first member's place in ``rooms``; a room in no
+        ``systems`` entry forms a system of its own named after the room.
+        """
+        out: list[tuple[str, Optional[System], tuple[int, ...]]] = []
+        seen: set[str] = set()
+        index = {room.name: i for i, room in reversed(list(enumerate(self.rooms)))}
+        for i, room in enumerate(self.rooms):
+            system = self.system_of(room)
+            if system is None:
+                out.append((room.name, None, (i,)))
+            elif system.name not in seen:
+                seen.add(system.name)
+                out.append((system.name, system, tuple(index[name] for name in system.rooms if name in index)))
+        return out
+
+    def refrigeration_for(self, room: Room) -> Refrigeration:
+        """The refrigeration settings that apply to *room*: its system's, with its own room-level keys.
+
+        For a room in no ``systems`` entry this is the room's own block.
+        """
+        system = self.system_of(room)
+        if system is None:
+            return room.refrigeration
+        shared = {name: getattr(system, name) for name in CondensingSettings.model_fields}
+        own = {name: getattr(room.refrigeration, name) for name in ROOM_LEVEL_KEYS}
+        return Refrigeration.model_construct(**shared, **own)
 
 
 # --- loading ------------------------------------------------------------------------------------------

@@ -199,7 +199,7 @@ def design_temperatures(
 
 def room_design_temperatures(model: "ProjectModel", room: "Room") -> DesignTemperatures:
     """:func:`design_temperatures` for one room of a project, with its refrigeration overrides."""
-    r = room.refrigeration
+    r = model.refrigeration_for(room)
     return design_temperatures(
         room.temperature,
         room.rh,
@@ -320,7 +320,7 @@ def _basis(model: "ProjectModel", room: "Room", loads: "RoomLoads", temps: Desig
     add(("Operation: safety factor", f"{loads.safety_factor:.0%}"))
     add(("Operation: defrost", room.defrost.type.replace("_", "-")))
     add(("Operation: design capacity set by", loads.governed_by))
-    r = room.refrigeration
+    r = model.refrigeration_for(room)
     info = refrigerants.lookup(r.refrigerant)
     add(("Refrigeration: refrigerant", f"{info.name} (safety class {info.safety_class}, GWP {info.gwp_ar4:g} AR4)"))
     add(
@@ -367,7 +367,7 @@ def size_room(model: "ProjectModel", room: "Room") -> "RoomResult":
     from coldroom.results import Note, RoomResult
 
     loads = room_loads(model, room)
-    r = room.refrigeration
+    r = model.refrigeration_for(room)
     temps = room_design_temperatures(model, room)
     info = refrigerants.lookup(r.refrigerant)
     condensing: Optional[float] = temps.condensing_temperature

@@ -29,7 +29,7 @@ DAY = 86400.0  # s
 #: still air inside and against another space, 24 km/h wind outdoors, none
 #: against ground or a heated plane (ASHRAE-derived SI tables [pub]).
 INSIDE_FILM = "still_air"
-OUTSIDE_FILMS = {"outdoors": "wind_24kmh", "space": "still_air", "roof_void": "still_air"}
+OUTSIDE_FILMS = {"outdoors": "wind_24kmh", "space": "still_air", "roof_void": "still_air", "room": "still_air"}
 
 
 def construction_u(construction: "Construction", facing: str) -> float:
@@ -107,6 +107,11 @@ def transmission_lines(model: "ProjectModel", room: "Room") -> list[LoadLine]:
             outside = surface.temperature
             q = transmission.heated_slab_floor_heat_gain(area, u, outside, room.temperature)
             beyond = "heated plane"
+        elif surface.facing == "room":
+            assert surface.room is not None
+            outside = model.room_named(surface.room).temperature
+            q = transmission.surface_heat_gain(area, u, outside, room.temperature)
+            beyond = f"room: {surface.room}"
         else:
             assert surface.temperature is not None
             outside = surface.temperature
@@ -116,11 +121,14 @@ def transmission_lines(model: "ProjectModel", room: "Room") -> list[LoadLine]:
         working = (T(u, "u_value", "U "), T(area, "area"), T(dt, "temperature_difference"))
         if sun:
             working += (T(sun, "temperature_difference", "incl. sun ", sep=" "),)
+        counted = transmission.credited_heat_gain(q, surface.credit)
+        if counted != q:  # heat lost to a colder neighbour, not credited
+            working += (T(q, "power", "= ", ", not credited", sep=" "),)
         lines.append(
             LoadLine(
                 "transmission",
                 f"{side} ({beyond})",
-                q * DAY,
+                counted * DAY,
                 working,
             )
         )
@@ -159,15 +167,21 @@ def infiltration_lines(model: "ProjectModel", room: "Room") -> list[LoadLine]:
         ]
     lines = []
     for door in room.doors:
+        if door.to_room is not None:
+            beyond = model.room_named(door.to_room)
+            other_temperature, other_rh = beyond.temperature, beyond.rh
+        else:
+            other_temperature = (
+                door.other_side_temperature if door.other_side_temperature is not None else design.outdoor_temperature
+            )
+            other_rh = door.other_side_rh if door.other_side_rh is not None else rh_out
         result = infiltration.door_infiltration(
             door_width=door.width,
             door_height=door.height,
             room_temperature=room.temperature,
             room_relative_humidity=room.rh,
-            outside_temperature=(
-                door.other_side_temperature if door.other_side_temperature is not None else design.outdoor_temperature
-            ),
-            outside_relative_humidity=door.other_side_rh if door.other_side_rh is not None else rh_out,
+            outside_temperature=other_temperature,
+            outside_relative_humidity=other_rh,
             passages_per_day=door.passages_per_day,
             passage_time=door.passage_time,
             standing_open_time=door.open_time,

@@ -11,9 +11,10 @@ Sign convention
 :func:`surface_heat_gain` returns the heat flowing **into** the room, in W. It
 is positive when the space beyond the surface is warmer than the room and
 **negative** when it is colder (for example a cooler wall shared with a
-freezer). The function does not clip: the caller decides whether to credit a
-negative gain (a 24-hour average gain can only be negative through surfaces
-facing colder spaces; conservative sizing usually counts such a surface as 0).
+freezer). The function does not clip: :func:`credited_heat_gain` decides
+whether a negative gain is credited (a 24-hour average gain can only be
+negative through surfaces facing colder spaces; conservative sizing counts
+such a surface as 0 unless told otherwise).
 
 Temperatures are in °C (only differences matter); areas in m², U in W/(m²·K).
 """
@@ -31,6 +32,7 @@ __all__ = [
     "surface_heat_gain",
     "floor_on_grade_heat_gain",
     "heated_slab_floor_heat_gain",
+    "credited_heat_gain",
 ]
 
 
@@ -250,3 +252,32 @@ def heated_slab_floor_heat_gain(
     305
     """
     return surface_heat_gain(area, u_above_heated_plane, heated_plane_temperature, inside_temperature)
+
+
+def credited_heat_gain(heat_gain: float, credit: bool = False) -> float:
+    """The part of a surface's heat gain that the room's load counts [W].
+
+    Heat leaving the room to a colder neighbour (a negative gain) is not
+    credited unless *credit* is true: the neighbour can be switched off,
+    defrosting or emptied, and the room must still hold its temperature
+    (common practice, no source [trade]). A positive gain always counts.
+
+    Parameters
+    ----------
+    heat_gain : float
+        Heat flow into the room through the surface [W] (negative: heat lost).
+    credit : bool
+        Count a negative gain as a credit.
+
+    Returns
+    -------
+    float
+        *heat_gain*, or 0 for an uncredited loss [W].
+
+    Examples
+    --------
+    >>> credited_heat_gain(-120.0), credited_heat_gain(-120.0, credit=True), credited_heat_gain(80.0)
+    (0.0, -120.0, 80.0)
+    """
+    heat_gain = _finite("heat gain", heat_gain)
+    return heat_gain if credit or heat_gain >= 0.0 else 0.0
