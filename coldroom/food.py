@@ -37,6 +37,7 @@ from dataclasses import dataclass, field
 from typing import Protocol, runtime_checkable
 
 from coldroom.errors import CalculationError, unknown_name
+from coldroom.registry import Registry
 
 #: Latent heat of fusion of water at 0 °C [J/kg] (ASHRAE "Thermal Properties
 #: of Foods", L₀ = 333.6 kJ/kg [pub]).
@@ -192,6 +193,8 @@ def water_latent_heat(temperature: float) -> float:
     )
 
 
+_SOLIDS_NAMES = Registry("solids component", {c: c for c in ("carbohydrate", "protein", "fat", "ash")})
+
 @dataclass(frozen=True)
 class Composition:
     """Mass fractions of a food [-].
@@ -255,8 +258,7 @@ class Composition:
         >>> Composition.from_water(0.75, "protein").protein
         0.25
         """
-        if solids not in ("carbohydrate", "protein", "fat", "ash"):
-            raise unknown_name("solids component", solids, ["carbohydrate", "protein", "fat", "ash"])
+        solids = _SOLIDS_NAMES.key(solids)
         if not 0.0 <= water <= 1.0:
             raise CalculationError(f"water mass fraction {water!r} outside 0 … 1")
         return cls(water=water, **{solids: round(1.0 - water, 12)})
@@ -322,16 +324,17 @@ def chang_tao_freezing_point(water: float, group: str) -> float:
     -1.29
     """
     x = water
+    group = _FREEZING_GROUP_NAMES.key(group)
     if group == "meat":
         kelvin = 271.18 + 1.47 * x
     elif group == "fruit_vegetable":
         kelvin = 287.56 - 49.19 * x + 37.07 * x * x
-    elif group == "juice":
+    else:  # juice
         kelvin = 120.47 + 327.35 * x - 176.49 * x * x
-    else:
-        raise unknown_name("freezing-point group", group, ["meat", "fruit_vegetable", "juice"])
     return min(kelvin - 273.15, -0.2)
 
+
+_FREEZING_GROUP_NAMES = Registry("freezing-point group", {g: g for g in ("meat", "fruit_vegetable", "juice")})
 
 @runtime_checkable
 class PropertyModel(Protocol):
@@ -614,6 +617,7 @@ def siebel(water: float, freezing_point: float, name: str = "") -> ExplicitModel
 
 #: Property-model registry: name → builder(composition, freezing_point, name).
 PROPERTY_MODELS = ("composition", "siebel")
+_MODEL_NAMES = Registry("property model", {name: name for name in PROPERTY_MODELS})
 
 
 def property_model(
@@ -635,12 +639,12 @@ def property_model(
     >>> property_model(Composition.from_water(0.9), -1.0, "siebel").latent_heat
     300240.0
     """
-    key = model.strip().lower()
+    key = _MODEL_NAMES.key(model)
     if key == "composition":
         return CompositionModel(composition, freezing_point, name=name)
     if key == "siebel":
         return siebel(composition.water, freezing_point, name=name)
-    raise unknown_name("property model", model, list(PROPERTY_MODELS))
+    raise AssertionError(key)  # pragma: no cover - the registry admits only PROPERTY_MODELS
 
 
 @dataclass(frozen=True)

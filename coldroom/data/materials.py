@@ -4,20 +4,19 @@ Every entry carries a source key from :data:`SOURCES`. Tags as in the project's
 REFERENCES: ``[pub]`` checked in a published source, ``[mem]`` recalled (verify),
 ``[trade]`` common practice without a single source.
 
-Look-ups are exact after normalisation (:func:`normalise_name`: lower case,
-surrounding blanks removed, runs of blanks, hyphens and slashes turned into one
-underscore). An unknown name raises :class:`coldroom.errors.LookupNameError`
-listing the closest valid names; nothing is guessed.
+Look-ups go through :class:`coldroom.registry.Registry` (exact after
+:func:`coldroom.registry.normalise`; an unknown name raises
+:class:`coldroom.errors.LookupNameError` listing the closest valid names;
+nothing is guessed).
 """
 
 from __future__ import annotations
 
-import re
 from dataclasses import dataclass
 from types import MappingProxyType
 from typing import Mapping
 
-from coldroom.errors import unknown_name
+from coldroom.registry import Registry
 
 __all__ = [
     "SOURCES",
@@ -30,7 +29,6 @@ __all__ = [
     "ORIENTATIONS",
     "COLOURS",
     "HEMISPHERES",
-    "normalise_name",
     "material",
     "conductivity",
     "surface_film",
@@ -54,18 +52,6 @@ SOURCES: Mapping[str, str] = MappingProxyType(
     }
 )
 
-
-def normalise_name(name: str) -> str:
-    """Normalise a table key: lower case, trimmed, blanks/hyphens/slashes → one underscore.
-
-    Examples
-    --------
-    >>> normalise_name("  Glass-Fibre ")
-    'glass_fibre'
-    >>> normalise_name("PUR/PIR panel")
-    'pur_pir_panel'
-    """
-    return re.sub(r"[\s\-/]+", "_", str(name).strip().lower())
 
 
 @dataclass(frozen=True)
@@ -115,6 +101,7 @@ MATERIALS: Mapping[str, Material] = _materials(
     ("plywood", 0.13, "iso10456-mem", "plywood, about 500 kg/m3"),
     ("gravel", 2.0, "iso10456-mem", "sand and gravel fill"),
 )
+_MATERIAL_NAMES: Registry[Material] = Registry("insulation material", MATERIALS)
 
 
 def material(name: str) -> Material:
@@ -139,11 +126,7 @@ def material(name: str) -> Material:
     >>> material("Extruded Polystyrene").conductivity
     0.029
     """
-    key = normalise_name(name)
-    try:
-        return MATERIALS[key]
-    except KeyError:
-        raise unknown_name("insulation material", name, list(MATERIALS)) from None
+    return _MATERIAL_NAMES.lookup(name)
 
 
 def conductivity(name: str) -> float:
@@ -197,6 +180,7 @@ SURFACE_FILMS: Mapping[str, SurfaceFilm] = MappingProxyType(
         )
     }
 )
+_FILM_NAMES: Registry[SurfaceFilm] = Registry("surface film", SURFACE_FILMS)
 
 
 def surface_film(name: str) -> SurfaceFilm:
@@ -207,11 +191,7 @@ def surface_film(name: str) -> SurfaceFilm:
     >>> surface_film("still air").coefficient
     9.37
     """
-    key = normalise_name(name)
-    try:
-        return SURFACE_FILMS[key]
-    except KeyError:
-        raise unknown_name("surface film", name, list(SURFACE_FILMS)) from None
+    return _FILM_NAMES.lookup(name)
 
 
 def film_coefficient(name: str) -> float:
@@ -240,7 +220,9 @@ SUN_ALLOWANCE_SOURCE = "ashrae-sun-mem"
 ORIENTATIONS = ("north", "east", "south", "west", "roof")
 COLOURS = ("dark", "medium", "light")
 HEMISPHERES = ("north", "south")
-_ORIENTATION_ALIASES = {"flat_roof": "roof"}
+_ORIENTATION_NAMES = Registry("orientation", {o: o for o in ORIENTATIONS}, {"flat_roof": "roof"})
+_COLOUR_NAMES = Registry("surface colour", {c: c for c in COLOURS})
+_HEMISPHERE_NAMES = Registry("hemisphere", {h: h for h in HEMISPHERES})
 
 
 def sun_allowance_table(orientation: str, colour: str, hemisphere: str = "north") -> float:
@@ -271,16 +253,9 @@ def sun_allowance_table(orientation: str, colour: str, hemisphere: str = "north"
     >>> sun_allowance_table("north", "dark", "south") == sun_allowance_table("south", "dark")
     True
     """
-    o = normalise_name(orientation)
-    o = _ORIENTATION_ALIASES.get(o, o)
-    c = normalise_name(colour)
-    h = normalise_name(hemisphere)
-    if o not in ORIENTATIONS:
-        raise unknown_name("orientation", orientation, list(ORIENTATIONS) + list(_ORIENTATION_ALIASES))
-    if c not in COLOURS:
-        raise unknown_name("surface colour", colour, list(COLOURS))
-    if h not in HEMISPHERES:
-        raise unknown_name("hemisphere", hemisphere, list(HEMISPHERES))
+    o = _ORIENTATION_NAMES.key(orientation)
+    c = _COLOUR_NAMES.key(colour)
+    h = _HEMISPHERE_NAMES.key(hemisphere)
     if h == "south" and o in ("north", "south"):
         o = "south" if o == "north" else "north"
     return SUN_ALLOWANCE_F[c][o] * 5.0 / 9.0

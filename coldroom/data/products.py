@@ -5,20 +5,20 @@ carries a source key, most of them recalled values tagged [mem]). This module
 loads it once (``functools.lru_cache``), checks it, and looks products up by
 key or alias.
 
-Look-up is exact after normalisation: lower-case, surrounding blanks removed,
-runs of spaces and hyphens turned into one underscore ("Beef quarters",
-"beef-quarters" → ``beef_quarters``). An unknown name raises
+Look-up goes through :class:`coldroom.registry.Registry`: exact after
+:func:`coldroom.registry.normalise` ("Beef quarters", "beef-quarters" →
+``beef_quarters``); an unknown name raises
 :class:`coldroom.errors.LookupNameError` listing the closest keys.
 """
 
 from __future__ import annotations
 
-import re
 from dataclasses import dataclass, field
 from functools import lru_cache
 from importlib import resources
 
-from coldroom.errors import CalculationError, ColdroomError, unknown_name
+from coldroom.errors import CalculationError, ColdroomError
+from coldroom.registry import DuplicateNameError, Registry, normalise
 from coldroom.results import Note, Term
 from coldroom.food import (
     Composition,
@@ -126,18 +126,6 @@ class Product:
         return respiration_heat(self.respiration, temperature)
 
 
-def normalise_name(name: str) -> str:
-    """Normalise a product name for look-up.
-
-    Examples
-    --------
-    >>> normalise_name("  Beef  Quarters ")
-    'beef_quarters'
-    >>> normalise_name("ice-cream")
-    'ice_cream'
-    """
-    return re.sub(r"[\s\-]+", "_", str(name).strip().lower())
-
 
 def _pair(value: object, what: str, key: str) -> tuple[float, float]:
     if not (isinstance(value, (list, tuple)) and len(value) == 2):
@@ -177,7 +165,7 @@ def _build(key: str, entry: dict, sources: dict[str, str]) -> Product:
         return Product(
             key=key,
             name=str(entry["name"]),
-            aliases=tuple(normalise_name(a) for a in entry.get("aliases", []) or []),
+            aliases=tuple(normalise(a) for a in entry.get("aliases", []) or []),
             category=str(entry["category"]),
             composition=composition,
             freezing_point=float(entry["freezing_point"]),
@@ -216,23 +204,27 @@ def load_products() -> dict[str, Product]:
     sources = raw["sources"]
     products: dict[str, Product] = {}
     for key, entry in raw["products"].items():
-        if normalise_name(key) != key:
+        if normalise(key) != key:
             raise ProductTableError(f"products.yaml: key {key!r} is not normalised snake_case")
         products[key] = _build(key, entry, sources)
     return products
 
 
 @lru_cache(maxsize=1)
-def _index() -> dict[str, str]:
-    index: dict[str, str] = {}
-    for key, product in load_products().items():
-        for name in (key, *product.aliases):
-            if name in index and index[name] != key:
+def _names() -> Registry[Product]:
+    products = load_products()
+    aliases: dict[str, str] = {}
+    for key, product in products.items():
+        for alias in product.aliases:
+            if aliases.get(alias, key) != key:
                 raise ProductTableError(
-                    f"products.yaml: name {name!r} used by both {index[name]!r} and {key!r}"
+                    f"products.yaml: name {alias!r} used by both {aliases[alias]!r} and {key!r}"
                 )
-            index[name] = key
-    return index
+            aliases[alias] = key
+    try:
+        return Registry("product", products, aliases)
+    except DuplicateNameError as error:
+        raise ProductTableError(f"products.yaml: {error}") from None
 
 
 def product_keys() -> list[str]:
@@ -241,7 +233,7 @@ def product_keys() -> list[str]:
 
 
 def get_product(name: str) -> Product:
-    """Look a product up by key or alias (exact after :func:`normalise_name`).
+    """Look a product up by key or alias (exact after :func:`coldroom.registry.normalise`).
 
     Parameters
     ----------
@@ -266,11 +258,7 @@ def get_product(name: str) -> Product:
     ...
     coldroom.errors.LookupNameError: unknown product 'strawbery'; closest: ...
     """
-    normal = normalise_name(name)
-    key = _index().get(normal)
-    if key is None:
-        raise unknown_name("product", name, list(_index()))
-    return load_products()[key]
+    return _names().lookup(name)
 
 
 def search_products(text: str | None = None) -> list[Product]:
@@ -285,11 +273,11 @@ def search_products(text: str | None = None) -> list[Product]:
     products = list(load_products().values())
     if not text:
         return products
-    needle = normalise_name(text)
+    needle = normalise(text)
     plain = text.strip().lower()
     hits = []
     for p in products:
-        haystack = [p.key, normalise_name(p.name), p.name.lower(), p.category, *p.aliases]
+        haystack = [p.key, normalise(p.name), p.name.lower(), p.category, *p.aliases]
         if any(needle in h or plain in h for h in haystack):
             hits.append(p)
     return hits
@@ -437,7 +425,6 @@ __all__ = [
     "mix_warnings",
     "storage_warnings",
     "load_products",
-    "normalise_name",
     "product_keys",
     "search_products",
 ]

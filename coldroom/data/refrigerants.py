@@ -55,12 +55,11 @@ True
 
 from __future__ import annotations
 
-import re
 from dataclasses import dataclass, field
 from types import MappingProxyType
 from typing import Mapping
 
-from coldroom import errors
+from coldroom.registry import Registry
 
 ASHRAE34 = "ASHRAE 34 [mem]"
 AR4 = "IPCC AR4 [mem]"
@@ -239,30 +238,22 @@ CATALOGUE: tuple[RefrigerantInfo, ...] = (
 _BY_NAME: dict[str, RefrigerantInfo] = {info.name: info for info in CATALOGUE}
 
 
-def _key(name: str) -> str:
-    """Normalise a spelling: upper case, no spaces, hyphens or parentheses.
-
-    ``"R-1234ze(E)"`` → ``"R1234ZEE"``; ``"r448a"`` → ``"R448A"``.
-    """
-    return re.sub(r"[\s\-_()]", "", name).upper()
-
-
 # Explicit extra spellings (never a fuzzy guess): chemical names and the short
-# form "R1234ZE" that the trade uses for the (E) isomer.
+# form "R-1234ze" that the trade uses for the (E) isomer.
 _ALIASES: dict[str, str] = {
-    "R1234ZE": "R-1234ze(E)",
-    "HFO1234ZEE": "R-1234ze(E)",
-    "HFO1234YF": "R-1234yf",
-    "PROPANE": "R-290",
-    "ISOBUTANE": "R-600a",
-    "AMMONIA": "R-717",
+    "R-1234ze": "R-1234ze(E)",
+    "HFO-1234ze(E)": "R-1234ze(E)",
+    "HFO-1234yf": "R-1234yf",
+    "propane": "R-290",
+    "isobutane": "R-600a",
+    "ammonia": "R-717",
     "NH3": "R-717",
     "CO2": "R-744",
-    "CARBONDIOXIDE": "R-744",
+    "carbon dioxide": "R-744",
 }
 
-_INDEX: dict[str, RefrigerantInfo] = {_key(info.name): info for info in CATALOGUE}
-_INDEX.update({alias: _BY_NAME[target] for alias, target in _ALIASES.items()})
+#: Designations are compared with separators ignored (``R448A`` = ``R-448A``).
+_NAMES: Registry[RefrigerantInfo] = Registry("refrigerant", _BY_NAME, _ALIASES, compact=True)
 
 
 def names() -> tuple[str, ...]:
@@ -279,10 +270,10 @@ def names() -> tuple[str, ...]:
 def lookup(name: str) -> RefrigerantInfo:
     """Find a refrigerant by name.
 
-    Normalisation (documented, exact after it): case-insensitive; spaces,
-    hyphens, underscores and parentheses ignored, so ``R448A``, ``R-448A``,
-    ``r448a`` and ``R-1234ze(E)`` / ``R1234ZEE`` all match; plus the aliases
-    ``R1234ZE`` (the (E) isomer), ``propane``, ``isobutane``, ``ammonia``/``NH3``,
+    Exact after :func:`coldroom.registry.normalise` with separators ignored:
+    case-insensitive; spaces, hyphens, underscores and parentheses ignored, so
+    ``R448A``, ``R-448A``, ``r448a`` and ``R-1234ze(E)`` / ``R1234ZEE`` all
+    match; plus the aliases ``R1234ZE`` (the (E) isomer), ``propane``, ``isobutane``, ``ammonia``/``NH3``,
     ``CO2``.
 
     Parameters
@@ -310,7 +301,4 @@ def lookup(name: str) -> RefrigerantInfo:
     """
     if isinstance(name, RefrigerantInfo):
         return name
-    info = _INDEX.get(_key(str(name)))
-    if info is None:
-        raise errors.unknown_name("refrigerant", str(name), names())
-    return info
+    return _NAMES.lookup(name)

@@ -38,8 +38,8 @@ from dataclasses import dataclass
 from types import MappingProxyType
 from typing import Callable, Mapping
 
-from coldroom.data.materials import normalise_name
-from coldroom.errors import CalculationError, unknown_name, finite as _finite, non_negative as _non_negative
+from coldroom.registry import Registry
+from coldroom.errors import CalculationError, finite as _finite, non_negative as _non_negative
 from coldroom.psychrometrics import STANDARD_PRESSURE, MoistAirState, moist_air_state
 
 __all__ = [
@@ -118,6 +118,7 @@ DOOR_PROTECTION: Mapping[str, DoorProtection] = MappingProxyType(
     }
 )
 
+_PROTECTION_NAMES = Registry("door protection", DOOR_PROTECTION)
 
 def door_protection_effectiveness(protection: str) -> float:
     """Effectiveness E of a named doorway protective device [-].
@@ -138,11 +139,7 @@ def door_protection_effectiveness(protection: str) -> float:
     >>> door_protection_effectiveness("Strip curtain")
     0.85
     """
-    key = normalise_name(protection)
-    try:
-        return DOOR_PROTECTION[key].effectiveness
-    except KeyError:
-        raise unknown_name("door protection", protection, list(DOOR_PROTECTION)) from None
+    return _PROTECTION_NAMES.lookup(protection).effectiveness
 
 
 # --------------------------------------------------------------------------- door method
@@ -434,6 +431,7 @@ AIR_CHANGES_BELOW_FREEZING: tuple[tuple[float, float], ...] = tuple((v * _FT3, n
 
 USAGE_FACTORS: Mapping[str, float] = MappingProxyType({"normal": 1.0, "heavy": 2.0, "long_storage": 0.6})
 """Multipliers on the table air changes: heavy use ×2, long storage ×0.6 [mem, same ASHRAE table notes]."""
+_USAGE_NAMES = Registry("room usage", USAGE_FACTORS)
 
 
 def table_air_changes(room_volume: float, room_temperature: float) -> float:
@@ -571,10 +569,7 @@ def air_change_infiltration(
     room = moist_air_state(room_temperature, room_relative_humidity, pressure)
     outside = moist_air_state(outside_temperature, outside_relative_humidity, pressure)
     if air_changes_per_day is None:
-        key = normalise_name(usage)
-        if key not in USAGE_FACTORS:
-            raise unknown_name("room usage", usage, list(USAGE_FACTORS))
-        factor = USAGE_FACTORS[key]
+        factor = _USAGE_NAMES.lookup(usage)
         table = table_air_changes(volume, room_temperature)
         n = table * factor
     else:
@@ -604,6 +599,7 @@ INFILTRATION_METHODS: Mapping[str, Callable[..., DoorInfiltration | AirChangeInf
     {"door": door_infiltration, "air_changes": air_change_infiltration}
 )
 """Infiltration methods by name; each takes keyword arguments only."""
+_METHOD_NAMES = Registry("infiltration method", INFILTRATION_METHODS)
 
 
 def infiltration_method(name: str) -> Callable[..., DoorInfiltration | AirChangeInfiltration]:
@@ -614,11 +610,7 @@ def infiltration_method(name: str) -> Callable[..., DoorInfiltration | AirChange
     >>> infiltration_method("Air changes") is air_change_infiltration
     True
     """
-    key = normalise_name(name)
-    try:
-        return INFILTRATION_METHODS[key]
-    except KeyError:
-        raise unknown_name("infiltration method", name, list(INFILTRATION_METHODS)) from None
+    return _METHOD_NAMES.lookup(name)
 
 
 def infiltration_load(method: str, **inputs: float | str | None) -> DoorInfiltration | AirChangeInfiltration:

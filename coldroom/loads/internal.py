@@ -20,8 +20,8 @@ from __future__ import annotations
 from types import MappingProxyType
 from typing import Mapping
 
-from coldroom.data.materials import normalise_name
-from coldroom.errors import CalculationError, unknown_name, finite as _finite, non_negative as _non_negative
+from coldroom.registry import Registry
+from coldroom.errors import CalculationError, finite as _finite, non_negative as _non_negative
 
 __all__ = [
     "SECONDS_PER_HOUR",
@@ -144,6 +144,7 @@ LIGHTING_POWER_DENSITY: Mapping[str, tuple[float, str]] = MappingProxyType(
     }
 )
 """Typical installed lighting power per floor area [W/m²] with source notes."""
+_LIGHTING_NAMES = Registry("lighting kind", LIGHTING_POWER_DENSITY)
 
 
 def lighting_power_density(kind: str) -> float:
@@ -154,11 +155,7 @@ def lighting_power_density(kind: str) -> float:
     >>> lighting_power_density("storage")
     10.0
     """
-    key = normalise_name(kind)
-    try:
-        return LIGHTING_POWER_DENSITY[key][0]
-    except KeyError:
-        raise unknown_name("lighting kind", kind, list(LIGHTING_POWER_DENSITY)) from None
+    return _LIGHTING_NAMES.lookup(kind)[0]
 
 
 def lighting_energy(power: float, hours_per_day: float) -> float:
@@ -191,6 +188,7 @@ def lighting_energy(power: float, hours_per_day: float) -> float:
 
 MOTOR_LOCATIONS = ("in_air_stream", "load_inside_motor_outside", "motor_inside_load_outside")
 """Where the motor and its driven load sit relative to the refrigerated air."""
+_MOTOR_LOCATION_NAMES = Registry("motor location", {name: name for name in MOTOR_LOCATIONS})
 
 
 def motor_energy(
@@ -235,9 +233,7 @@ def motor_energy(
     """
     p = _non_negative("motor input power", input_power, "W")
     h = _hours(hours_per_day)
-    key = normalise_name(location)
-    if key not in MOTOR_LOCATIONS:
-        raise unknown_name("motor location", location, list(MOTOR_LOCATIONS))
+    key = _MOTOR_LOCATION_NAMES.key(location)
     eta = _finite("motor efficiency", efficiency)
     if not (0.0 < eta <= 1.0):
         raise CalculationError(f"motor efficiency {eta:g} must lie in (0, 1]")

@@ -21,7 +21,8 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass
 
-from coldroom.errors import CalculationError, unknown_name
+from coldroom.errors import CalculationError
+from coldroom.registry import Registry
 from coldroom.food import CompositionModel, ExplicitModel, PropertyModel, RespirationData, respiration_heat
 
 DAY = 86400.0  # s
@@ -44,6 +45,7 @@ _PACKAGING_ALIASES = {
     "plastic_crates": "plastic",
     "crates": "plastic",
 }
+_PACKAGING_NAMES = Registry("packaging material", PACKAGING_SPECIFIC_HEAT, _PACKAGING_ALIASES)
 
 
 def _finite(label: str, value: float, low: float = -math.inf, high: float = math.inf) -> float:
@@ -58,18 +60,14 @@ def packaging_specific_heat(material: str) -> float:
     Keys ``corrugated_board`` 1400, ``wood`` 1900, ``plastic`` 2000
     (common practice, no source [trade]); aliases cardboard, carton(s),
     wooden_crates, pallets, plastic_crates, crates. Names are normalised
-    (lower case, spaces/hyphens → ``_``).
+    (:func:`coldroom.registry.normalise`).
 
     Examples
     --------
     >>> packaging_specific_heat("Plastic crates")
     2000.0
     """
-    key = "_".join(str(material).strip().lower().replace("-", " ").split())
-    key = _PACKAGING_ALIASES.get(key, key)
-    if key not in PACKAGING_SPECIFIC_HEAT:
-        raise unknown_name("packaging material", material, [*PACKAGING_SPECIFIC_HEAT, *_PACKAGING_ALIASES])
-    return PACKAGING_SPECIFIC_HEAT[key]
+    return _PACKAGING_NAMES.lookup(material)
 
 
 @dataclass(frozen=True)

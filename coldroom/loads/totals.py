@@ -12,8 +12,8 @@ import math
 from types import MappingProxyType
 from typing import Mapping
 
-from coldroom.data.materials import normalise_name
-from coldroom.errors import CalculationError, unknown_name
+from coldroom.registry import Registry
+from coldroom.errors import CalculationError
 
 __all__ = ["DEFAULT_SAFETY_FACTOR", "RUN_HOURS_BY_DEFROST", "run_hours_for_defrost", "required_capacity"]
 
@@ -23,6 +23,7 @@ DEFAULT_SAFETY_FACTOR = 0.10
 RUN_HOURS_BY_DEFROST: Mapping[str, float] = MappingProxyType({"off_cycle": 16.0, "electric": 18.0, "hot_gas": 20.0})
 """Compressor run hours per day by defrost type [trade/mem]: off-cycle (coolers above about
 +1 °C) 16 h; electric 18 h; hot gas 20 h (REFERENCES: 18–20 h with electric or hot gas)."""
+_DEFROST_NAMES = Registry("defrost type", RUN_HOURS_BY_DEFROST)
 
 
 def run_hours_for_defrost(defrost_type: str) -> float:
@@ -43,11 +44,7 @@ def run_hours_for_defrost(defrost_type: str) -> float:
     >>> run_hours_for_defrost("Hot gas")
     20.0
     """
-    key = normalise_name(defrost_type)
-    try:
-        return RUN_HOURS_BY_DEFROST[key]
-    except KeyError:
-        raise unknown_name("defrost type", defrost_type, list(RUN_HOURS_BY_DEFROST)) from None
+    return _DEFROST_NAMES.lookup(defrost_type)
 
 
 def required_capacity(

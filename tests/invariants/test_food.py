@@ -18,11 +18,11 @@ from coldroom.data.products import (
     get_product,
     load_products,
     mix_warnings,
-    normalise_name,
     search_products,
     storage_warnings,
 )
 from coldroom.errors import CalculationError, LookupNameError
+from coldroom.registry import normalise
 from coldroom.food import Composition, CompositionModel, siebel
 from coldroom.loads.product import (
     explicit_properties,
@@ -211,7 +211,7 @@ def test_table_has_at_least_40_products_in_all_groups():
 def test_every_product_validates(key):
     p = get_product(key)
     c = p.composition
-    assert p.key == normalise_name(p.key) and p.name
+    assert p.key == normalise(p.key) and p.name
     assert p.category in CATEGORIES
     assert c.total == pytest.approx(1.0, abs=0.015)
     assert 0.0 <= c.fibre <= c.carbohydrate
