@@ -14,10 +14,10 @@ States (the numbering every refrigeration text uses):
 
 ṁ = Q/(h_evap,out − h₄); V̇ = ṁ/ρ₁; displacement = V̇/η_v with the clearance
 model η_v = 1 + C − C·(p₂/p₁)^(1/n); P = ṁ(h₂ − h₁); condenser duty (heat of
-rejection) = ṁ(h₂ − h₃); COP = Q/P. Sources: REFERENCES.md "Cycle"; e.g.
-Stoecker & Jones, *Refrigeration and Air Conditioning*, 2nd ed., ch. 10
-(standard vapour-compression cycle) and ch. 11 (clearance volumetric
-efficiency) [mem].
+rejection) = ṁ(h₂ − h₃); COP = Q/P. Sources: Stoecker & Jones, *Refrigeration and Air Conditioning*,
+2nd ed., ch. 10 (standard vapour-compression cycle) and ch. 11 (clearance
+volumetric efficiency) [mem] [ref:stoecker-jones]; property values from
+CoolProp [ref:coolprop].
 
 The evaporating and condensing temperatures are *dew-point* temperatures
 (°C); for blends the pressures come from the dew points, superheat is counted
@@ -52,7 +52,7 @@ DEFAULT_SUBCOOLING = 2.0
 #: [1]; 0.6–0.75 typical [trade].
 DEFAULT_ISENTROPIC_EFFICIENCY = 0.70
 #: Clearance volume ratio C [1]; 0.03–0.06 for reciprocating compressors
-#: [mem, textbooks, e.g. Stoecker & Jones 2nd ed. ch. 11].
+#: [mem, textbooks, e.g. Stoecker & Jones 2nd ed. ch. 11] [ref:stoecker-jones].
 DEFAULT_CLEARANCE = 0.04
 
 #: Discharge temperature above which a warning is given [°C]: 110–120 °C at the
@@ -189,7 +189,7 @@ class CycleResult:
     warnings: tuple[str, ...]
 
     def to_json(self) -> dict:
-        """JSON-ready dict; every numeric key names its unit (DESIGN.md contract).
+        """JSON-ready dict; every numeric key names its unit (DEVELOPERS.md "Contracts").
 
         Examples
         --------
@@ -248,7 +248,7 @@ def liao_optimum_pressure(evaporating_temperature: float, gas_cooler_outlet_temp
     """Optimum high-side pressure of a transcritical R-744 cycle [Pa].
 
     p_opt = (2.778 − 0.0157·t_e)·t_gc + (0.381·t_e − 9.34)  [bar, t in °C]
-    Liao, Zhao & Jakobsen, Applied Thermal Engineering 20 (2000) 831–841
+    Liao, Zhao & Jakobsen, Applied Thermal Engineering 20 (2000) 831–841 [ref:liao-2000]
     [mem; verify]. Fitted for t_gc ≈ 30–50 °C, t_e ≈ −10…+20 °C.
 
     Parameters
@@ -287,7 +287,7 @@ def _high_side(
     if isentropic_efficiency == 1.0:
         s2 = s2s
     else:
-        h2 = state1.h + (s2s.h - state1.h) / isentropic_efficiency  # REFERENCES.md "Cycle" [mem, textbooks]
+        h2 = state1.h + (s2s.h - state1.h) / isentropic_efficiency  # [mem, textbooks] [ref:stoecker-jones]
         s2 = replace(fluid.state_ph(p_high, h2), h=h2)
     if liquid is None:  # transcritical gas cooler outlet
         s3 = fluid.state_pt(p_high, gas_cooler_outlet_temperature)
@@ -423,7 +423,7 @@ def solve_cycle(
     evap_dew = fluid.saturated_vapour(temperature=te)
     p_evap = evap_dew.p
     p_suction = fluid.dew_pressure(te - suction_pressure_drop) if suction_pressure_drop > 0 else p_evap
-    # evaporator outlet: dew + useful superheat (REFERENCES.md "Cycle": superheat from dew)
+    # evaporator outlet: dew + useful superheat (blends: superheat counted from dew [trade])
     evap_out = evap_dew if superheat == 0 else fluid.state_pt(p_evap, te + superheat, phase="gas")
     # compressor suction: dew + superheat + suction-line superheat, at the suction pressure
     if suction_line_superheat == 0 and suction_pressure_drop == 0:

@@ -7,7 +7,7 @@ rises and the volumetric efficiency drops). This module
 
 1. models the compressor at any suction dew point S and discharge dew point D,
    either from **one rated point** (:class:`RatedPointCompressor`) or from the
-   **AHRI 540 / EN 12900 ten-coefficient polynomials**
+   **AHRI 540 / EN 12900 ten-coefficient polynomials** [ref:ahri-540] [ref:en-12900]
    (:class:`PolynomialCompressor`);
 2. finds the **balance point** of compressor, evaporator and condenser
    (:func:`balance_point`): S and D such that compressor capacity = unit-cooler
@@ -100,7 +100,7 @@ ENVELOPE_TOLERANCE = 1.0
 DEFAULT_RATING_SUPERHEAT = 10.0
 
 #: Rice & Dabiri suction-density correction factor F (ṁ = ṁ_map·[1 + F·(ρ/ρ_map − 1)])
-#: [pub per REFERENCES "Compressors and existing units"; the value 0.75 from memory, verify].
+#: [pub; the value 0.75 from memory, verify] [ref:dabiri-rice-1981].
 RICE_DABIRI_F = 0.75
 
 #: A rated-point unit asked to run this far [K] below its rating suction dew point
@@ -108,7 +108,7 @@ RICE_DABIRI_F = 0.75
 #: low-temperature suction) [trade].
 RATING_SUCTION_GAP = 10.0
 
-#: Discharge-temperature and pressure-ratio flags (REFERENCES "Cycle" [trade]).
+#: Discharge-temperature and pressure-ratio flags [trade].
 DISCHARGE_WARNING = 110.0  # °C, discharge line ≲ 110–120 °C [trade]
 DISCHARGE_LIMIT = 135.0  # °C, ~135 °C hard limit [trade]
 PRESSURE_RATIO_WARNING = 10.0  # single stage sensible to ≈ 8–10 [trade]
@@ -695,7 +695,7 @@ class PolynomialCompressor:
 class HeatExchanger:
     """Unit cooler or air-cooled condenser, linear in its temperature difference.
 
-    Either a conductance K (capacity = K·ΔT: unit cooler K·DT1, EN 328 [mem];
+    Either a conductance K (capacity = K·ΔT: unit cooler K·DT1, EN 328 [mem] [ref:en-328];
     condenser THR = K·(SCT − ambient) [trade]) or, without rating data, a fixed
     temperature difference (the sizing TD).
 
@@ -783,8 +783,8 @@ def balance_point(
 ) -> BalancePoint:
     """Solve for the suction and discharge dew points where the components agree.
 
-    Equations (the balance-point method of REFERENCES "Compressors and
-    existing units"; common practice):
+    Equations (the balance-point method: compressor capacity = evaporator
+    capacity and heat rejection = condenser capacity; common practice [trade]):
 
     * Q_comp(S, D) = K_e·(t_room − S)   (or S = t_room − TD_e when fixed)
     * THR_comp(S, D) = K_c·(D − t_amb)  (or D = t_amb + TD_c when fixed)

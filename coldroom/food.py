@@ -7,9 +7,10 @@ enthalpy and latent heat [J/kg], density [kg/m³], mass fractions [-].
 Two property models share one interface (:class:`PropertyModel`):
 
 ``"composition"`` (default) — :class:`CompositionModel`
-    Component specific heats and densities of Choi & Okos (1986) as functions
-    of temperature (ASHRAE Handbook—Refrigeration, chapter "Thermal Properties
-    of Foods", Table 1 [pub; coefficients recalled, from memory; verify]);
+    Component specific heats and densities of Choi & Okos (1986)
+    [ref:choi-okos-1986] as functions of temperature (ASHRAE
+    Handbook—Refrigeration, chapter "Thermal Properties of Foods", Table 1
+    [pub; coefficients recalled, from memory; verify] [ref:ashrae-refrig-foods]);
     ice fraction of Schwartzberg, x_ice = (x_wo − x_b)(1 − t_f/t) with bound
     water x_b ≈ 0.4·x_protein (same chapter, Eq. for ice fraction [mem]);
     enthalpy as the mass-weighted sum of component enthalpies, H = Σ x_i·H_i
@@ -83,7 +84,7 @@ _SOLIDS = ("protein", "fat", "carbohydrate", "fibre", "ash")
 COMPONENTS = tuple(_CP)
 
 #: Heat released per mg of CO₂ produced by respiration [J/mg] (Becker, Misra
-#: & Fricke, as tabulated in ASHRAE "Commodity Storage Requirements" /
+#: & Fricke [ref:becker-misra-fricke-1996], as tabulated in ASHRAE "Commodity Storage Requirements" /
 #: "Thermal Properties of Foods" [mem]).
 RESPIRATION_HEAT_PER_CO2 = 10.7
 

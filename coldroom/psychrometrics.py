@@ -1,7 +1,8 @@
 """Moist-air properties for infiltration loads (ideal-gas psychrometrics).
 
 All formulas follow ASHRAE Handbook—Fundamentals, chapter "Psychrometrics"
-(SI edition, 2009 and later; equation numbers as in that chapter) [pub]. The
+(SI edition, 2009 and later; equation numbers as in that chapter) [pub]
+[ref:ashrae-fund-psychro]. The
 perfect-gas relations are used (no enhancement factor); the chapter states
 their error is below about 0.7 % in the range of air-conditioning and
 refrigeration work. CoolProp's ``HAPropsSI`` (a real-gas humid-air model)

@@ -3,7 +3,7 @@
 :func:`get_fluid` returns a cached :class:`Fluid` per catalogue entry; a Fluid
 gives saturation at dew and bubble points, single-phase and two-phase states
 as :class:`StatePoint` (SI; temperature in °C), and data for p–h diagrams.
-Enthalpy and entropy are in CoolProp's default reference state (IIR for the
+Enthalpy and entropy are in CoolProp's default reference state [ref:coolprop] (IIR for the
 halocarbons: h = 200 kJ/kg, s = 1 kJ/kg·K for saturated liquid at 0 °C).
 
 Speed. Pure and pseudo-pure fluids use CoolProp's own flashes through

@@ -56,8 +56,8 @@ if TYPE_CHECKING:  # pragma: no cover
 TD_SOURCE = "trade practice, evaporator TD vs room RH [trade]"
 
 #: Evaporator TD (room air − saturated evaporating dew temperature) by room
-#: relative humidity, for rooms above :data:`FREEZER_BELOW` [trade, REFERENCES
-#: "Evaporator TD vs room RH"]: 4–5 K ≈ 90 % RH; 5.5–6.5 K ≈ 80–85 %;
+#: relative humidity, for rooms above :data:`FREEZER_BELOW` [trade, common
+#: practice, no source]: 4–5 K ≈ 90 % RH; 5.5–6.5 K ≈ 80–85 %;
 #: 6.5–9 K ≈ 65–80 %; 9–12 K ≈ 50–65 %. Each row: (lowest RH of the band
 #: [-], TD [K], source). The TD is the middle of the trade band, rounded to
 #: 0.5 K; below 50 % RH the top of the last band is used.

@@ -60,7 +60,7 @@ from coldroom.errors import UnitError
 INCH = 0.0254  # m, exact (international yard and pound agreement, 1959)
 FOOT = 0.3048  # m, exact (same)
 POUND = 0.45359237  # kg, exact (same)
-BTU = 1055.05585262  # J, International Table Btu (ISO 31-4 / NIST SP 811)
+BTU = 1055.05585262  # J, International Table Btu (NIST SP 811) [ref:nist-sp811]
 BTU_PER_HOUR = BTU / 3600.0  # W, = 0.29307107... W
 TON_REFRIGERATION = 12000.0 * BTU_PER_HOUR  # W, 12 000 Btu/h by definition (NIST SP 811)
 HORSEPOWER = 745.69987158227022  # W, mechanical hp (NIST SP 811)

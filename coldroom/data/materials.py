@@ -1,8 +1,8 @@
 """Building-physics data for transmission loads: conductivities, surface films, sun allowance.
 
-Every entry carries a source key from :data:`SOURCES`. Tags as in the project's
-REFERENCES: ``[pub]`` checked in a published source, ``[mem]`` recalled (verify),
-``[trade]`` common practice without a single source.
+Every entry carries a source key from :data:`SOURCES`; each source names its
+entry in docs/references.md. Tags: ``[pub]`` checked in a published source,
+``[mem]`` recalled (verify), ``[trade]`` common practice without a single source.
 
 Look-ups go through :class:`coldroom.registry.Registry` (exact after
 :func:`coldroom.registry.normalise`; an unknown name raises
@@ -40,14 +40,15 @@ SOURCES: Mapping[str, str] = MappingProxyType(
     {
         "ashrae-refrig-si-tables": (
             "[pub] ASHRAE-derived SI tables for refrigerated facilities (insulation conductivities, "
-            "film coefficients); ASHRAE Handbook—Refrigeration, chapter 'Refrigerated-Facility Loads'"
+            "film coefficients); ASHRAE Handbook—Refrigeration, chapter 'Refrigerated-Facility Loads' "
+            "[ref:ashrae-refrig-loads]"
         ),
         "trade-panel": "[trade] aged PUR/PIR sandwich-panel design conductivity, common practice, no source",
-        "iso6946-mem": "[mem] ISO 6946 conventional surface resistances; from memory, verify",
-        "iso10456-mem": "[mem] ISO 10456 design values of building materials; from memory, verify",
+        "iso6946-mem": "[mem] ISO 6946 conventional surface resistances; from memory, verify [ref:iso-6946]",
+        "iso10456-mem": "[mem] ISO 10456 design values of building materials; from memory, verify [ref:iso-10456]",
         "ashrae-sun-mem": (
             "[mem] ASHRAE Handbook—Refrigeration, 'Refrigerated-Facility Loads', table 'Allowance for "
-            "Sun Effect' (°F added to outdoor temperature); from memory, verify"
+            "Sun Effect' (°F added to outdoor temperature); from memory, verify [ref:ashrae-refrig-loads]"
         ),
     }
 )

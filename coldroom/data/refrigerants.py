@@ -9,20 +9,22 @@ Source keys (every value carries one in :attr:`RefrigerantInfo.sources`):
 
 ``ASHRAE 34 [mem]``
     ANSI/ASHRAE Standard 34 / ISO 817 safety group (toxicity A/B, flammability
-    1/2L/2/3). Recalled, not read from the standard; verify.
+    1/2L/2/3). Recalled, not read from the standard; verify. [ref:ashrae-34]
+    [ref:iso-817]
 ``IPCC AR4 [mem]``
     100-year GWP, IPCC Fourth Assessment Report (2007), WG1 ch. 2 table 2.14, as
     used by EU Regulation 517/2014; blends as the mass-weighted sum of the
-    components. Recalled; verify.
+    components. Recalled; verify. [ref:ipcc-ar4]
 ``IPCC AR5 [mem]``
     100-year GWP, IPCC Fifth Assessment Report (2013), WG1 ch. 8 appendix
-    8.A table 8.A.1, blends mass-weighted. Recalled; verify.
+    8.A table 8.A.1, blends mass-weighted. Recalled; verify. [ref:ipcc-ar5]
 ``ISO 817 / EN 378-1 annex [mem]``
     Lower flammability limit (LFL) in kg/m³ as tabulated for charge-limit
-    rules. Recalled; verify.
+    rules. Recalled; verify. [ref:iso-817] [ref:en-378]
 ``CoolProp 8.0 [pub]``
     The fluid or predefined mixture name present in CoolProp 8.0.0 (checked
     with ``get_global_param_string('fluids_list' / 'predefined_mixtures')``).
+    [ref:coolprop]
 ``ASHRAE 34 numbering [pub]``
     400-series numbers are zeotropic blends (with temperature glide), 500-series
     azeotropic blends (no glide), per the numbering rules of ASHRAE 34.
@@ -33,7 +35,7 @@ Model choice (``model``):
     A single fluid with its reference equation of state in CoolProp.
 ``pseudo-pure``
     CoolProp's pseudo-pure equation of state for a blend (Lemmon 2003,
-    Int. J. Thermophys. 24 (4) 991-1006 [mem]) with separate ancillary
+    Int. J. Thermophys. 24 (4) 991-1006 [mem] [ref:lemmon-2003]) with separate ancillary
     equations for bubble and dew pressure. Fast (µs per state) and, for
     R-404A, R-407C and R-507A, within about 0.1 % of the full mixture model
     in latent heat and 0.01 K in bubble/dew temperatures at −10/40 °C (checked

@@ -8,7 +8,7 @@ project (:class:`coldroom.projectfile.Room`) onto them and collects the lines
 into a :class:`coldroom.results.RoomLoads`.
 
 The components follow ASHRAE Handbook—Refrigeration, chapter
-"Refrigerated-Facility Loads": transmission, product, infiltration, internal
+"Refrigerated-Facility Loads" [ref:ashrae-refrig-loads]: transmission, product, infiltration, internal
 (people, lighting, forklifts and other equipment in the room) and equipment
 (evaporator fans, heaters, defrost).
 """

@@ -5,7 +5,8 @@ Two methods, kept in the registry :data:`INFILTRATION_METHODS`:
 ``door``
     Buoyancy-driven air exchange through an open doorway, Gosney & Olama as
     presented in ASHRAE Handbook—Refrigeration, chapter "Refrigerated-Facility
-    Loads", "Infiltration Air Load" [mem — equations from memory; verify]:
+    Loads", "Infiltration Air Load" [mem — equations from memory; verify]
+    [ref:gosney-olama-1975] [ref:ashrae-refrig-loads]:
 
         q   = 0.221 A (h_i − h_r) ρ_r (1 − ρ_i/ρ_r)^0.5 (g H)^0.5 F_m   [kW, kJ/kg]
         F_m = [2 / (1 + (ρ_r/ρ_i)^(1/3))]^1.5
@@ -65,7 +66,7 @@ __all__ = [
 ]
 
 GRAVITY = 9.80665
-"""Standard acceleration of gravity [m/s²] (ISO 80000-3)."""
+"""Standard acceleration of gravity [m/s²] (ISO 80000-3) [ref:iso-80000-3]."""
 SECONDS_PER_DAY = 86_400.0
 
 _FT3 = 0.028316846592  # m³ per cubic foot (exact)
@@ -101,7 +102,7 @@ DOOR_PROTECTION: Mapping[str, DoorProtection] = MappingProxyType(
             DoorProtection(
                 "strip_curtain",
                 0.85,
-                "[mem/trade] ASHRAE gives 0.85–0.95 for new strip curtains; Pham & Oliver measured ≈0.93 [pub]. "
+                "[mem/trade] ASHRAE gives 0.85–0.95 for new strip curtains; Pham & Oliver measured ≈0.93 [pub]. "  # [ref:pham-oliver-1983]
                 "0.85 chosen here for a curtain in service (worn, strips pushed aside) — own choice",
             ),
             DoorProtection(

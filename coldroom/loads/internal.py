@@ -6,13 +6,14 @@ short durations (one defrost) in seconds. Use :func:`average_power` to turn a
 daily energy into the 24-hour average in W and :func:`daily_energy` back.
 
 Sources: ASHRAE Handbook—Refrigeration, chapter "Refrigerated-Facility Loads",
-"Internal Load" [mem]; ASHRAE Handbook—Fundamentals, chapter on nonresidential
-cooling loads, heat gain from electric motors [mem]; trade practice [trade].
+"Internal Load" [mem] [ref:ashrae-refrig-loads]; ASHRAE Handbook—Fundamentals,
+chapter "Nonresidential Cooling and Heating Load Calculations", heat gain from
+electric motors [mem] [ref:ashrae-fund-loads]; trade practice [trade].
 
 Defrost: count defrost heat **either** as a load here (:func:`defrost_energy`)
 **or** through the shorter compressor run time of
 :mod:`coldroom.loads.totals` (``RUN_HOURS_BY_DEFROST``) — not both
-(project convention, REFERENCES "Internal", [trade]).
+(project convention [trade]).
 """
 
 from __future__ import annotations

@@ -8,7 +8,7 @@ forms — not all at once as in the older equation
 
     Q = m·[c₁(t₁ − t_f) + h_if + c₂(t_f − t₃)]
 
-(ASHRAE Handbook—Refrigeration, "Refrigerated-Facility Loads", product load
+([ref:ashrae-refrig-loads] ASHRAE Handbook—Refrigeration, "Refrigerated-Facility Loads", product load
 [pub]), which is what the ``siebel`` / explicit model reproduces exactly.
 
 The pull-down rate is the product energy divided by the pull-down time: the
@@ -27,9 +27,8 @@ from coldroom.food import CompositionModel, ExplicitModel, PropertyModel, Respir
 
 DAY = 86400.0  # s
 
-#: Packaging specific heats [J/(kg·K)] (common practice, no source [trade];
-#: REFERENCES.md: corrugated board ≈1.3–1.4, wood ≈1.7–2.0, plastic crates
-#: ≈1.9–2.3 kJ/(kg·K)).
+#: Packaging specific heats [J/(kg·K)] (common practice, no source [trade]:
+#: corrugated board ≈1.3–1.4, wood ≈1.7–2.0, plastic crates ≈1.9–2.3 kJ/(kg·K)).
 PACKAGING_SPECIFIC_HEAT = {
     "corrugated_board": 1400.0,
     "wood": 1900.0,

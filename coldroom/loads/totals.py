@@ -2,7 +2,7 @@
 
 Required capacity = (1 + safety factor) · daily energy / (run hours · 3600)
 (ASHRAE Handbook—Refrigeration, chapter "Refrigerated-Facility Loads",
-safety factor and operating time) [mem]. Safety factor default 10 % [mem,
+safety factor and operating time) [mem] [ref:ashrae-refrig-loads]. Safety factor default 10 % [mem,
 ASHRAE]; compressor run time by defrost type [trade/mem].
 """
 
@@ -22,7 +22,7 @@ DEFAULT_SAFETY_FACTOR = 0.10
 
 RUN_HOURS_BY_DEFROST: Mapping[str, float] = MappingProxyType({"off_cycle": 16.0, "electric": 18.0, "hot_gas": 20.0})
 """Compressor run hours per day by defrost type [trade/mem]: off-cycle (coolers above about
-+1 °C) 16 h; electric 18 h; hot gas 20 h (REFERENCES: 18–20 h with electric or hot gas)."""
++1 °C) 16 h; electric 18 h; hot gas 20 h (18–20 h is usual with electric or hot gas)."""
 _DEFROST_NAMES = Registry("defrost type", RUN_HOURS_BY_DEFROST)
 
 

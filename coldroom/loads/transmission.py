@@ -1,7 +1,7 @@
 """Transmission (conduction) heat gain through walls, ceiling and floor.
 
 ASHRAE Handbook—Refrigeration, chapter "Refrigerated-Facility Loads",
-"Transmission Load" [pub]:
+"Transmission Load" [pub] [ref:ashrae-refrig-loads]:
 
     U = 1 / (1/h_i + Σ x/λ + 1/h_o)
     q = U · A · (t_o + Δt_sun − t_r)

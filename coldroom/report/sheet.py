@@ -632,6 +632,7 @@ def safety_cautions(ctx: SheetContext, index: int) -> list[str]:
 
 def cautions_section(ctx: SheetContext, index: int) -> list:
     """Safety cautions, deferring to codes and licensed practice."""
+    # The codes deferred to: [ref:en-378] [ref:iso-5149] [ref:ashrae-15] [ref:iec-60335-2-89].
     items = safety_cautions(ctx, index)
     flow: list = [heading("Safety cautions")]
     for text in items:

@@ -1,6 +1,6 @@
 """`coldroom refrigerants` and `coldroom cycle` on the command line.
 
-Contracts from DESIGN.md: options and units, --json keys, one-line errors,
+Contracts from DEVELOPERS.md "Contracts": options and units, --json keys, one-line errors,
 exit codes (1 calculation impossible, 2 usage, 65 bad name), and no CoolProp
 import for --help / the refrigerant listing.
 """

@@ -2,7 +2,7 @@
 
 The corpus is tests/data/hostile/*.yaml (made by _generate.py there); the error
 each file must produce is in tests/data/hostile/expected.yaml. The contract
-checked is the project's own (DESIGN.md "Contracts": exit 65 for an invalid
+checked is the project's own (DEVELOPERS.md "Contracts": exit 65 for an invalid
 project file, one line on stderr ``file:line:col: dotted.key: message``, or
 ``file: message`` for a whole-file problem). The time bounds are ours: a
 project file is parsed in well under a second (in-process), and a run of the

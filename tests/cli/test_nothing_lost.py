@@ -1,6 +1,6 @@
 """Nothing lost: no half-written output after an interruption, never over the input, --force to overwrite.
 
-The contract is the project's own (DESIGN.md: exit 73 "cannot write output";
+The contract is the project's own (DEVELOPERS.md "Contracts": exit 73 "cannot write output";
 coldroom/output.py: atomic replace, inputs and existing files refused).
 """
 

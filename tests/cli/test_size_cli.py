@@ -1,4 +1,4 @@
-"""Command-line behaviour of ``coldroom size`` (DESIGN.md contracts: outputs, JSON keys, exit codes).
+"""Command-line behaviour of ``coldroom size`` (DEVELOPERS.md "Contracts": outputs, JSON keys, exit codes).
 
 In-process through typer's CliRunner (CoolProp is imported once), plus one
 subprocess run for the lazy-import promise of ``coldroom size --help``.
@@ -43,7 +43,7 @@ def test_size_writes_pdf_beside_the_input_and_json(project: Path):
     assert pdf.read_bytes().startswith(b"%PDF-")
     data = json.loads(out_json.read_text(encoding="utf-8"))
     room = data["rooms"][0]
-    # DESIGN.md: keys of `size`
+    # DEVELOPERS.md "Contracts": keys of `size`
     for key in ("name", "loads_w", "daily_energy_kwh", "required_capacity_w", "cycle"):
         assert key in room
     assert set(room["loads_w"]) >= {"transmission", "product", "infiltration", "internal"}

@@ -1,8 +1,8 @@
 """Property tests for the project file: valid input always computes, hostile input only ever fails cleanly.
 
 Invariants (no external source needed; the capacity formula is the ASHRAE
-Handbook—Refrigeration "Refrigerated-Facility Loads" relation quoted in
-REFERENCES.md, required capacity = (1 + SF) · daily energy / run time):
+Handbook—Refrigeration "Refrigerated-Facility Loads" relation
+[ref:ashrae-refrig-loads], required capacity = (1 + SF) · daily energy / run time):
 
 - a random valid project (dimensions, temperatures below outdoors,
   constructions, doors, products from the product table, people, lights, fans,

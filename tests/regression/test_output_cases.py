@@ -1,6 +1,6 @@
 """write_atomic: refuses inputs and existing files, never leaves partial or temp files.
 
-The expected behaviour is the contract in DESIGN.md (exit code 73 "cannot write output") and
+The expected behaviour is the contract in DEVELOPERS.md "Contracts" (exit code 73 "cannot write output") and
 POSIX rename(2) semantics for os.replace (the target is either the old or the new file).
 """
 

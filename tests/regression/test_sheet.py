@@ -10,7 +10,7 @@ What is checked, and against what:
   hash and "Page x of y";
 * two renders of the same input give identical bytes, with a creation date
   taken from the project date or SOURCE_DATE_EPOCH (no clock time, no random id);
-* the design temperatures follow the trade TD table (REFERENCES.md, evaporator
+* the design temperatures follow the trade TD table (evaporator
   TD vs room RH and air-cooled condensing 8–15 K above entering air — common
   practice [trade], no single source).
 """
@@ -159,7 +159,7 @@ def test_date_from_source_date_epoch(tmp_path, monkeypatch):
     assert expected in _flat(" ".join(_pages_text(pdf1)))
 
 
-# Design temperatures: trade TD table (REFERENCES.md [trade], common practice, no single source).
+# Design temperatures: trade TD table ([trade], common practice, no single source).
 @pytest.mark.parametrize(
     "stem, evaporating, condensing",
     [
@@ -189,7 +189,7 @@ def test_design_temperatures_follow_the_td_table(stem, evaporating, condensing):
     [(0.95, 4.5), (0.90, 4.5), (0.85, 6.0), (0.80, 6.0), (0.75, 7.5), (0.65, 7.5), (0.60, 10.0), (0.40, 12.0)],
 )
 def test_td_inside_the_trade_band(rh, td):
-    """The chosen TD lies inside the band REFERENCES.md gives for the RH [trade]."""
+    """The chosen TD lies inside the trade band for the RH [trade]."""
     from coldroom.sizing import evaporator_td_for
 
     bands = [(0.875, 1.01, 4.0, 5.0), (0.80, 0.875, 5.5, 6.5), (0.65, 0.80, 6.5, 9.0), (0.50, 0.65, 9.0, 12.0),

@@ -1,19 +1,19 @@
 """The cycle against published worked examples and the textbook facts.
 
 Sources (all values recalled, "from memory", unless stated):
-- Çengel & Boles, *Thermodynamics: An Engineering Approach*, 7th ed., chapter 11
+- [ref:cengel-boles] Çengel & Boles, *Thermodynamics: An Engineering Approach*, 7th ed., chapter 11
   "Refrigeration Cycles": Example 11-1 (ideal R-134a cycle, 0.14/0.8 MPa,
   0.05 kg/s) and Example 11-2 (actual R-134a cycle). The book's tables use the
   ASHRAE reference state (h = 0 for saturated liquid at −40 °C) and an older
   R-134a formulation; CoolProp uses IIR, so only enthalpy *differences*, COP
   and temperatures are compared, with 1–2 % tolerance for table differences
   between editions.
-- Stoecker & Jones, *Refrigeration and Air Conditioning*, 2nd ed., Example 10-1
+- [ref:stoecker-jones] Stoecker & Jones, *Refrigeration and Air Conditioning*, 2nd ed., Example 10-1
   (standard R-22 cycle, −10/35 °C, 50 kW).
-- ASHRAE Handbook—Fundamentals, chapter "Refrigerants", table of comparative
+- [ref:ashrae-fund-refrigerants] ASHRAE Handbook—Fundamentals, chapter "Refrigerants", table of comparative
   refrigerant performance per kW at −15 °C evaporating / 30 °C condensing
   (the "standard ton" cycle; edition not checked).
-- Liao, Zhao & Jakobsen, Applied Thermal Engineering 20 (2000) 831–841: optimum
+- [ref:liao-2000] Liao, Zhao & Jakobsen, Applied Thermal Engineering 20 (2000) 831–841: optimum
   high-side pressure of transcritical CO2 cycles.
 """
 
@@ -185,17 +185,17 @@ def test_r744_subcritical_works():
 # ---------------------------------------------------------------- contracts
 
 
-DESIGN_KEYS = {
+CONTRACT_KEYS = {
     "refrigerant", "mass_flow_kg_s", "suction_volume_flow_m3_h", "displacement_m3_h",
     "compressor_power_w", "condenser_duty_w", "cop", "discharge_temperature_c", "pressure_ratio", "states",
 }
 
 
-def test_json_has_design_keys_and_state_order():
-    # DESIGN.md "Contracts": keys and the four states in order 1..4.
+def test_json_has_contract_keys_and_state_order():
+    # DEVELOPERS.md "Contracts": keys and the four states in order 1..4.
     r = solve_cycle("R448A", -10.0, 40.0, 5000.0)
     d = r.to_json()
-    assert DESIGN_KEYS <= set(d)
+    assert CONTRACT_KEYS <= set(d)
     assert d["refrigerant"] == "R-448A"
     assert len(d["states"]) == 4
     for s, js in zip(r.states, d["states"]):
@@ -214,7 +214,7 @@ def test_json_has_design_keys_and_state_order():
 
 
 def test_blend_pressures_from_dew_points_and_glide_reported():
-    # REFERENCES.md "Cycle": pressures from dew points; superheat from dew, subcooling from bubble.
+    # Blends [trade]: pressures from dew points; superheat from dew, subcooling from bubble.
     fluid = get_fluid("R-448A")
     r = solve_cycle("R-448A", -10.0, 40.0, 5000.0, superheat=5.0, subcooling=2.0)
     assert r.evaporating_pressure == pytest.approx(fluid.dew_pressure(-10.0), rel=1e-12)

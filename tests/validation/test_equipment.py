@@ -2,15 +2,15 @@
 
 Sources named beside each check:
 - AHRI Standard 540 / EN 12900: the ten-coefficient polynomial form and its
-  coefficient order [pub, per REFERENCES "Compressors and existing units"];
+  coefficient order [pub] [ref:ahri-540] [ref:en-12900];
   EN 12900 rating conditions 10 K superheat, 0 K subcooling (from memory).
 - Stoecker & Jones, *Refrigeration and Air Conditioning*, 2nd ed., chapter
   "Compressors": clearance volumetric efficiency η = 1 + C − C·v_suc/v_dis
-  (from memory; verify).
+  (from memory; verify) [ref:stoecker-jones].
 - Rice & Dabiri suction-density correction ṁ = ṁ_map·[1 + F(ρ/ρ_map − 1)]
-  [pub per REFERENCES; F = 0.75 from memory].
+  [pub; F = 0.75 from memory] [ref:dabiri-rice-1981].
 - CoolProp 8 ``PropsSI`` as the reference property library (the model uses
-  coldroom.refrigerant; the tests compute the same states independently).
+  coldroom.refrigerant; the tests compute the same states independently) [ref:coolprop].
 - Hand-worked balance-point examples: every input stated, arithmetic written out.
 """
 
@@ -190,7 +190,7 @@ def test_rated_point_power_gives_isentropic_efficiency() -> None:
 
 def test_clearance_model_equals_pressure_ratio_form_for_an_ideal_gas() -> None:
     """For an ideal gas on an isentrope ρ2/ρ1 = (p2/p1)^(1/κ), so the density form equals the
-    textbook η_v = 1 + C − C·(p_c/p_e)^(1/n) with n = κ (REFERENCES "Cycle" [mem])."""
+    textbook η_v = 1 + C − C·(p_c/p_e)^(1/n) with n = κ ([mem] [ref:stoecker-jones])."""
     kappa, ratio, c = 1.12, 6.0, 0.05
     assert E.clearance_volumetric_efficiency(c, 1.0, ratio ** (1.0 / kappa)) == pytest.approx(
         1.0 + c - c * ratio ** (1.0 / kappa), rel=1e-12
@@ -209,7 +209,7 @@ def test_balance_point_hand_worked_linear_example() -> None:
     """Hand-worked example (all inputs stated, invented):
 
     compressor Q = 3000 + 100·S W (independent of D), THR = 1.3·Q;
-    unit cooler 4000 W at DT1 10 K → K_e = 400 W/K (EN 328 K·DT1, from memory), room +2 °C;
+    unit cooler 4000 W at DT1 10 K → K_e = 400 W/K (EN 328 K·DT1, from memory [ref:en-328]), room +2 °C;
     condenser 7500 W at 15 K → K_c = 500 W/K, ambient 30 °C.
     3000 + 100·S = 400·(2 − S) → 500·S = 800 − 3000 → S = −4.4 °C; Q = 2560 W;
     THR = 3328 W = 500·(D − 30) → D = 36.656 °C.

@@ -1,16 +1,16 @@
 """Food thermal properties and respiration against published values.
 
-Sources (tags as in REFERENCES.md):
-- IAPWS-95 / IAPWS R10-06 (ice Ih, Feistel & Wagner 2006): liquid water cp at 20 °C =
-  4.1818 kJ/(kg·K) [pub]; ice Ih cp at −10 °C ≈ 2.03 kJ/(kg·K) [from memory]; heat of
-  fusion 333.6 kJ/kg (ASHRAE "Thermal Properties of Foods") [pub].
-- ASHRAE Handbook—Refrigeration (2006 SI), ch. 9 "Thermal Properties of Foods", Table 3,
+Sources (keys of docs/references.md):
+- IAPWS-95 / IAPWS R10-06 (ice Ih, Feistel & Wagner 2006) [ref:iapws]: liquid water cp at
+  20 °C = 4.1818 kJ/(kg·K) [pub]; ice Ih cp at −10 °C ≈ 2.03 kJ/(kg·K) [from memory]; heat
+  of fusion 333.6 kJ/kg (ASHRAE "Thermal Properties of Foods") [pub].
+- [ref:ashrae-refrig-foods] ASHRAE Handbook—Refrigeration (2006 SI), ch. 9 "Thermal Properties of Foods", Table 3,
   read from two third-party reproductions of the table (SI rows for vegetables; IP rows in
   Btu/lb·°F and Btu/lb for strawberries, cod, peas, beef carcass) [pub, via reproduction].
 - ASHRAE Handbook—Refrigeration, "Thermal Properties of Foods", table "Enthalpy of frozen
   foods" (Riedel's data; enthalpy 0 at −40 °C, with % of water unfrozen) [from memory].
-- ASHRAE Handbook—Refrigeration / USDA Agriculture Handbook 66, heat of respiration of fresh
-  produce, mW/kg ranges [from memory].
+- ASHRAE Handbook—Refrigeration / USDA Agriculture Handbook 66 [ref:usda-ah66], heat of
+  respiration of fresh produce, mW/kg ranges [from memory].
 """
 
 from __future__ import annotations

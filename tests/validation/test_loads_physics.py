@@ -3,12 +3,12 @@ marked), CoolProp's HAPropsSI as a reference humid-air library, and hand calcula
 every input is stated.
 
 Sources named below:
-- [F-Psy] ASHRAE Handbook—Fundamentals (SI, 2009 or later), chapter "Psychrometrics":
+- [ref:ashrae-fund-psychro] ASHRAE Handbook—Fundamentals (SI, 2009 or later), chapter "Psychrometrics":
   Table 1 (standard atmosphere), Table 3 (saturation pressure of water). Values from memory.
   The chapter states the ideal-gas relations are within about 0.7 % of the exact
   (real-gas) formulation in the refrigeration range; that is the tolerance against CoolProp.
-- [R-Loads] ASHRAE Handbook—Refrigeration (SI), chapter "Refrigerated-Facility Loads".
-- [CP] CoolProp 8 HAPropsSI (real-gas humid-air model; ASHRAE RP-1485 based). Its documentation
+- [ref:ashrae-refrig-loads] ASHRAE Handbook—Refrigeration (SI), chapter "Refrigerated-Facility Loads".
+- [ref:coolprop] CoolProp 8 HAPropsSI (real-gas humid-air model; ASHRAE RP-1485 based). Its documentation
   gives h(25 °C, 101 325 Pa, 50 % RH) = 50 423 J/kg dry air.
 """
 
@@ -32,7 +32,7 @@ K = 273.15
 @pytest.mark.parametrize(
     "temperature, pressure_pa",
     [
-        # [F-Psy] Table 3, saturation pressure (over ice below 0 °C), from memory.
+        # [ref:ashrae-fund-psychro] Table 3, saturation pressure (over ice below 0 °C), from memory.
         (-40.0, 12.84),
         (-30.0, 38.01),
         (-20.0, 103.26),
@@ -52,18 +52,18 @@ def test_saturation_pressure_against_ashrae_table3(temperature, pressure_pa):
 
 @pytest.mark.parametrize("temperature", [-60.0, -40.0, -30.0, -18.0, -5.0, 0.5, 5.0, 20.0, 35.0, 45.0])
 def test_saturation_humidity_ratio_against_coolprop(temperature):
-    # [CP] humidity ratio at saturation (RH = 1; over ice below 0 °C in both models).
+    # [ref:coolprop] humidity ratio at saturation (RH = 1; over ice below 0 °C in both models).
     p = 101325.0
     w_cp = HAPropsSI("W", "T", temperature + K, "P", p, "R", 1.0)
     w = psy.saturation_humidity_ratio(temperature, p)
-    # Ideal gas (no enhancement factor) is 0.3–0.6 % low; [F-Psy] accuracy 0.7 %.
+    # Ideal gas (no enhancement factor) is 0.3–0.6 % low; [ref:ashrae-fund-psychro] accuracy 0.7 %.
     assert w == pytest.approx(w_cp, rel=0.007)
     assert w < w_cp  # the enhancement factor only ever raises the real-gas value
 
 
 @pytest.mark.parametrize(
     "altitude, pressure_kpa",
-    # [F-Psy] Table 1, standard atmospheric data, from memory.
+    # [ref:ashrae-fund-psychro] Table 1, standard atmospheric data, from memory.
     [(-500.0, 107.478), (0.0, 101.325), (500.0, 95.461), (1000.0, 89.875), (1500.0, 84.556),
      (2000.0, 79.495), (3000.0, 70.109), (4000.0, 61.640), (5000.0, 54.020)],
 )  # fmt: skip
@@ -72,8 +72,8 @@ def test_standard_pressure_against_ashrae_table1(altitude, pressure_kpa):
 
 
 def test_enthalpy_against_coolprop_documented_value():
-    # [CP] documentation: h(25 °C, 101 325 Pa, 50 % RH) = 50 423 J/kg dry air [pub].
-    # Ideal-gas ASHRAE eq. 32 gives 50 322; 0.7 % [F-Psy] accuracy.
+    # [ref:coolprop] documentation: h(25 °C, 101 325 Pa, 50 % RH) = 50 423 J/kg dry air [pub].
+    # Ideal-gas ASHRAE eq. 32 gives 50 322; 0.7 % [ref:ashrae-fund-psychro] accuracy.
     h = psy.enthalpy(25.0, psy.humidity_ratio(25.0, 0.5, 101325.0))
     assert h == pytest.approx(50423.0, rel=0.007)
     assert HAPropsSI("H", "T", 298.15, "P", 101325.0, "R", 0.5) == pytest.approx(50423.0, abs=1.0)
@@ -92,13 +92,13 @@ def test_moist_air_state_against_coolprop(temperature, relative_humidity, altitu
     p = psy.standard_pressure(altitude)
     s = psy.moist_air_state(temperature, relative_humidity, p)
     T = temperature + K
-    # [CP] humidity ratio; ideal gas within 0.7 % [F-Psy].
+    # [ref:coolprop] humidity ratio; ideal gas within 0.7 % [ref:ashrae-fund-psychro].
     assert s.humidity_ratio == pytest.approx(HAPropsSI("W", "T", T, "P", p, "R", relative_humidity), rel=0.007)
-    # [CP] enthalpy per kg dry air: 0.5 % plus 150 J/kg (CoolProp's dry-air enthalpy carries a
+    # [ref:coolprop] enthalpy per kg dry air: 0.5 % plus 150 J/kg (CoolProp's dry-air enthalpy carries a
     # small pressure-dependent real-gas offset, ≈ 80 J/kg at 2000 m; it cancels in differences).
     h_cp = HAPropsSI("H", "T", T, "P", p, "R", relative_humidity)
     assert abs(s.enthalpy - h_cp) <= 0.005 * abs(h_cp) + 150.0
-    # [CP] densities: Vha is m³ per kg humid air, Vda m³ per kg dry air. 0.2 %.
+    # [ref:coolprop] densities: Vha is m³ per kg humid air, Vda m³ per kg dry air. 0.2 %.
     assert s.moist_air_density == pytest.approx(1.0 / HAPropsSI("Vha", "T", T, "P", p, "R", relative_humidity), rel=2e-3)
     assert s.dry_air_density == pytest.approx(1.0 / HAPropsSI("Vda", "T", T, "P", p, "R", relative_humidity), rel=2e-3)
 
@@ -108,7 +108,7 @@ def test_moist_air_state_against_coolprop(temperature, relative_humidity, altitu
     [(40.0, 20.0), (30.0, 25.0), (20.0, 10.0), (5.0, 2.0), (2.0, -1.0), (-5.0, -7.0), (-20.0, -21.0), (-30.0, -30.5)],
 )
 def test_relative_humidity_from_wet_bulb_against_coolprop(dry_bulb, wet_bulb):
-    # Psychrometric equation [F-Psy] eqs. 33 (water) and 35 (ice bulb below 0 °C) vs [CP]
+    # Psychrometric equation [ref:ashrae-fund-psychro] eqs. 33 (water) and 35 (ice bulb below 0 °C) vs [ref:coolprop]
     # (which also uses the ice bulb below 0 °C). 0.005 RH absolute.
     rh_cp = HAPropsSI("R", "T", dry_bulb + K, "P", 101325.0, "B", wet_bulb + K)
     assert psy.relative_humidity_from_wet_bulb(dry_bulb, wet_bulb) == pytest.approx(rh_cp, abs=0.005)
@@ -127,7 +127,7 @@ def test_psychrometrics_refuses_impossible_inputs():
 
 
 def test_insulation_conductivities_from_refrigeration_tables():
-    # [R-Loads] ASHRAE-derived SI insulation table as listed in REFERENCES [pub].
+    # [ref:ashrae-refrig-loads] ASHRAE-derived SI insulation table [pub].
     expected = {
         "polyurethane": 0.025,
         "extruded polystyrene": 0.029,
@@ -149,7 +149,7 @@ def test_unknown_material_lists_closest_names():
 
 
 def test_film_coefficients():
-    # [R-Loads] still air 9.37, 24 km/h wind 34.1 W/m²K [pub]; ISO 6946 R_si/R_se [mem].
+    # [ref:ashrae-refrig-loads] still air 9.37, 24 km/h wind 34.1 W/m²K [pub]; ISO 6946 R_si/R_se [mem] [ref:iso-6946].
     assert materials.film_coefficient("still air") == 9.37
     assert materials.film_coefficient("wind_24kmh") == 34.1
     assert 1.0 / materials.film_coefficient("iso6946_inside_horizontal") == pytest.approx(0.13)
@@ -158,14 +158,14 @@ def test_film_coefficients():
 
 def test_u_value_of_100mm_polyurethane_panel_hand_calculation():
     # Hand calculation, every input stated: 100 mm polyurethane λ = 0.025 W/mK [R-Loads table],
-    # inside still air 9.37, outside 24 km/h wind 34.1 W/m²K [R-Loads].
+    # inside still air 9.37, outside 24 km/h wind 34.1 W/m²K [ref:ashrae-refrig-loads].
     # R = 1/9.37 + 0.100/0.025 + 1/34.1 = 0.10672 + 4.0 + 0.02933 = 4.13605 m²K/W -> U = 0.24178.
     u = transmission.u_value([(0.100, 0.025)], 9.37, 34.1)
     assert u == pytest.approx(0.24178, rel=1e-4)
     # Same panel with ISO 6946 films: R = 0.13 + 4.0 + 0.04 = 4.17 -> U = 0.2398 [mem].
     u_iso = transmission.u_value([(0.100, 0.025)], 1 / 0.13, 1 / 0.04)
     assert u_iso == pytest.approx(1 / 4.17, rel=1e-6)
-    # Two 0.5 mm steel skins (λ 50 W/mK, ISO 10456 [mem]) change U by < 0.01 %.
+    # Two 0.5 mm steel skins (λ 50 W/mK, ISO 10456 [mem] [ref:iso-10456]) change U by < 0.01 %.
     u_skins = transmission.u_value([(0.0005, 50.0), (0.100, 0.025), (0.0005, 50.0)], 9.37, 34.1)
     assert u_skins == pytest.approx(u, rel=1e-4) and u_skins < u
     # Trade check: 100 mm aged PUR panel (λ 0.023) is quoted at about 0.22 W/m²K [trade].
@@ -174,7 +174,7 @@ def test_u_value_of_100mm_polyurethane_panel_hand_calculation():
 
 
 def test_transmission_heat_gain_hand_calculation():
-    # q = U·A·(t_o + Δt_sun − t_r) [R-Loads]: U 0.24178, A 12 m², 32 °C + 4.44 K (east, dark),
+    # q = U·A·(t_o + Δt_sun − t_r) [ref:ashrae-refrig-loads]: U 0.24178, A 12 m², 32 °C + 4.44 K (east, dark),
     # room −20 °C -> 0.24178 × 12 × 56.444 = 163.77 W.
     u = transmission.u_value([(0.100, 0.025)], 9.37, 34.1)
     dt_sun = transmission.sun_allowance("east", "dark")
@@ -198,7 +198,7 @@ def test_heated_slab_floor_counts_conduction_only():
 
 @pytest.mark.parametrize(
     "colour, east, south, west, roof",
-    # [R-Loads] "Allowance for Sun Effect", °F, from memory: north 0.
+    # [ref:ashrae-refrig-loads] "Allowance for Sun Effect", °F, from memory: north 0.
     [("dark", 8, 5, 8, 20), ("medium", 6, 4, 6, 15), ("light", 4, 2, 4, 9)],
 )
 def test_sun_allowance_table(colour, east, south, west, roof):
@@ -238,12 +238,12 @@ def _coolprop_state(t, rh, p):
      (-25.0, 0.90, 25.0, 0.60, 1500.0), (0.0, 0.85, 15.0, 0.70, 0.0)],
 )  # fmt: skip
 def test_door_infiltration_hand_calculation_with_coolprop_air(room_t, room_rh, out_t, out_rh, altitude):
-    # Gosney & Olama as given in [R-Loads] (from memory; verify):
+    # Gosney & Olama as given in [ref:ashrae-refrig-loads] (from memory; verify):
     #   q = 0.221 A (h_i − h_r) ρ_r (1 − ρ_i/ρ_r)^0.5 (g H)^0.5 F_m, F_m = [2/(1 + (ρ_r/ρ_i)^(1/3))]^1.5
     #   q_t = q D_t D_f (1 − E), D_t = (P θ_p + 60 θ_o)/(3600 θ_d).
     # Inputs: door 1.2 m × 2.4 m; 150 passages of 18 s; 10 min standing open; θ_d 24 h;
-    # strip curtain E = 0.85; D_f = 0.8 if ΔT > 11 K else 1.1. Air properties from [CP].
-    p = 101325.0 * (1 - 2.25577e-5 * altitude) ** 5.2559  # [F-Psy] eq. 3
+    # strip curtain E = 0.85; D_f = 0.8 if ΔT > 11 K else 1.1. Air properties from [ref:coolprop].
+    p = 101325.0 * (1 - 2.25577e-5 * altitude) ** 5.2559  # [ref:ashrae-fund-psychro] eq. 3
     width, height = 1.2, 2.4
     h_r, rho_r = _coolprop_state(room_t, room_rh, p)
     h_i, rho_i = _coolprop_state(out_t, out_rh, p)
@@ -314,7 +314,7 @@ def test_air_change_table_values(volume_ft3, above, below):
 
 def test_air_change_load_hand_calculation_with_coolprop_air():
     # 1000 ft³ (28.32 m³) cooler at 2 °C/85 %, outside 30 °C/50 %, heavy use (×2) [mem]:
-    # n = 17.5 × 2 = 35 per day; heat = V·n·ρ_da,o·(h_o − h_r) with air from [CP].
+    # n = 17.5 × 2 = 35 per day; heat = V·n·ρ_da,o·(h_o − h_r) with air from [ref:coolprop].
     v = 1000 * _FT3
     p = 101325.0
     h_o = HAPropsSI("H", "T", 303.15, "P", p, "R", 0.5)
@@ -350,7 +350,7 @@ def test_infiltration_registry():
 
 
 def test_people_load_ashrae():
-    # [R-Loads] heat equivalent of occupancy 272 − 6 t W, from memory: 272 W at 0 °C,
+    # [ref:ashrae-refrig-loads] heat equivalent of occupancy 272 − 6 t W, from memory: 272 W at 0 °C,
     # 392 W at −20 °C.
     assert internal.people_heat_rate(0.0) == pytest.approx(272.0)
     assert internal.people_heat_rate(-20.0) == pytest.approx(392.0)

@@ -58,7 +58,7 @@ def test_unknown_lists_close_names():
     assert "R-448A" in str(info.value)
 
 
-# ISO 817 / ASHRAE 34 safety groups, from memory (REFERENCES.md "Refrigerant safety").
+# ISO 817 / ASHRAE 34 safety groups, from memory [ref:iso-817] [ref:ashrae-34].
 SAFETY = {
     "R-134a": "A1", "R-404A": "A1", "R-507A": "A1", "R-407A": "A1", "R-407C": "A1", "R-407F": "A1",
     "R-448A": "A1", "R-449A": "A1", "R-452A": "A1", "R-513A": "A1", "R-744": "A1",
@@ -112,13 +112,13 @@ def test_every_catalogue_entry_loads_in_coolprop():
 
 def test_r134a_saturation_pressure_at_0c():
     # R-134a at 0 °C: 292.8 kPa (ASHRAE Handbook—Fundamentals refrigerant tables /
-    # NIST REFPROP, from memory). Tolerance 0.2 %.
+    # NIST REFPROP, from memory) [ref:ashrae-fund-refrigerants]. Tolerance 0.2 %.
     assert get_fluid("R-134a").dew_pressure(0.0) == pytest.approx(292.8e3, rel=2e-3)
 
 
 def test_r134a_saturation_temperature_at_1mpa():
     # Çengel & Boles, Thermodynamics, 7th ed., table A-12: T_sat(1 MPa) = 39.37 °C
-    # (from memory). Tolerance 0.05 K (table edition differences).
+    # (from memory) [ref:cengel-boles]. Tolerance 0.05 K (table edition differences).
     assert get_fluid("R-134a").bubble_temperature(1.0e6) == pytest.approx(39.37, abs=0.05)
 
 

@@ -1,6 +1,6 @@
 """Unit factors against their definitions.
 
-Sources: NIST Special Publication 811 (2008 ed.), Appendix B.8 "Factors for units
+Sources: NIST Special Publication 811 (2008 ed.) [ref:nist-sp811], Appendix B.8 "Factors for units
 listed alphabetically" [pub]; the 1959 international yard and pound agreement
 (inch = 25.4 mm, pound = 0.453 592 37 kg exactly) [pub]; ton of refrigeration =
 12 000 Btu/h by definition (NIST SP 811, B.8) [pub]. pint (an independent units
