@@ -26,6 +26,7 @@ specific_energy             J/kg        latent heat, enthalpy
 power_per_area              W/m²
 density                     kg/m³
 volume_flow                 m³/s
+velocity                    m/s
 fraction                    1           "85 %" → 0.85
 ==========================  ==========  ==========================================
 
@@ -220,6 +221,9 @@ _add("volume_flow", ("m³/s", "m3/s"), _u("m³/s", 1.0))
 _add("volume_flow", ("m³/h", "m3/h", "cmh"), _u("m³/h", 1.0 / 3600.0))
 _add("volume_flow", ("L/s", "l/s"), _u("L/s", 1e-3))
 _add("volume_flow", ("cfm", "ft³/min", "ft3/min"), _u("cfm", FOOT**3 / 60.0))
+# velocity (refrigerant lines)
+_add("velocity", ("m/s",), _u("m/s", 1.0))
+_add("velocity", ("ft/min", "fpm"), _u("ft/min", FOOT / 60.0))
 # fraction
 _add("fraction", ("%", "percent", "pct"), _u("%", 0.01))
 _add("fraction", ("-", "1", "fraction"), _u("-", 1.0))
@@ -249,6 +253,7 @@ DEFAULT_UNITS: dict[str, dict[str, str]] = {
         "volume_flow": "m³/h",
         "energy_density": "kJ/m³",
         "conductance": "W/K",
+        "velocity": "m/s",
         "fraction": "-",
     },
     "IP": {
@@ -271,6 +276,7 @@ DEFAULT_UNITS: dict[str, dict[str, str]] = {
         "volume_flow": "cfm",
         "energy_density": "Btu/ft³",
         "conductance": "Btu/(h·°F)",
+        "velocity": "ft/min",
         "fraction": "-",
     },
 }
@@ -397,6 +403,7 @@ def _example(kind: str) -> str:
         "volume_flow": "500 m³/h",
         "energy_density": "40 kJ/m³",
         "conductance": "500 W/K",
+        "velocity": "5 m/s",
         "fraction": "85 %",
     }
     return examples.get(kind, "1")
