@@ -22,7 +22,7 @@ here is tagged "from memory; verify against the current edition":
 
 * **Toxicity** (classes A1 and B): m_max = practical limit × room volume
   (EN 378-1:2016 Annex C, Table C.1 and the practical limits of its Annex E;
-  ISO 5149-1:2014 Annex A) for location classes I and II. Over it: measures
+  ISO 5149-1:2014 Annex A) [ref:en-378] [ref:iso-5149] for location classes I and II. Over it: measures
   (gas detection and alarm, ventilation, a machinery room) per EN 378-3; a
   class B refrigerant in access category a is not permitted.
 * **Flammability** (classes 2L, 2, 3): with m₁ = 4 m³ × LFL, m₂ = 26 m³ ×
@@ -33,7 +33,7 @@ here is tagged "from memory; verify against the current edition":
   m₂ in category a): not permitted.
 * **IEC 60335-2-89:2019** self-contained commercial refrigerating appliances
   (when the system is one): per circuit at most 13 × LFL, and not more than
-  1.2 kg for class 2L.
+  1.2 kg for class 2L [ref:iec-60335-2-89].
 
 The cold room is the occupied space (people enter it). A system serving
 several rooms is judged on its smallest room (a leak there concentrates

@@ -10,14 +10,14 @@ Method, with sources:
 
 * Velocity V = ṁ/(ρA); Reynolds number Re = ρVD/μ.
 * Darcy–Weisbach: Δp = (f·L/D + ΣK)·ρV²/2 (any pipe-flow text, e.g. Çengel &
-  Cimbala, *Fluid Mechanics*, 1st ed., eq. 8-21 [mem]). Friction factor
+  Cimbala, *Fluid Mechanics*, 1st ed., eq. 8-21 [mem] [ref:cengel-cimbala]). Friction factor
   f = 64/Re below Re = 2300, otherwise the explicit Serghides (1984)
   approximation of the Colebrook equation (Chem. Eng. 91 (5) 63–64, as
-  implemented in ``fluids.friction.Serghides_1`` [pub]) with the drawn-copper
+  implemented in ``fluids.friction.Serghides_1`` [pub]) [ref:serghides-1984] with the drawn-copper
   roughness 1.5 µm.
 * Fittings: the Darby 3-K loss coefficients, K = K₁/Re + Kᵢ(1 + K_d/D^0.3)
   (Silverberg & Darby, Chem. Eng. 106 (7) 1999; ``fluids.fittings.Darby3K``
-  and its published constants [pub]), with D the tube's inside diameter in
+  and its published constants [pub]) [ref:darby-3k], with D the tube's inside diameter in
   inches in place of the nominal pipe size (copper tube has no NPS; [trade]
   approximation). Their equivalent length is ΣK·D/f.
 * Saturation-temperature drop: dew temperature (vapour lines) or bubble
@@ -37,7 +37,8 @@ Method, with sources:
   "Oil transport by refrigerant vapor", ASHRAE Trans. 82 (2) 1976, the basis
   of the "minimum refrigeration capacity for oil entrainment up risers"
   tables in ASHRAE Handbook — Refrigeration, ch. 1 "Halocarbon refrigeration
-  systems" [mem]; verify against the current edition), checked at the
+  systems" [mem] [ref:jacobs-1976] [ref:ashrae-refrig-halocarbon]; verify against
+  the current edition), checked at the
   system's minimum load. Oil density 900 kg/m³ [trade]. Where the criterion
   cannot be evaluated (a supercritical line) the common floor of 5.1 m/s
   (1000 fpm) in risers is used instead [trade]. Horizontal vapour lines

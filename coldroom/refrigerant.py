@@ -832,7 +832,7 @@ def blend_viscosity(
 
     Liquid: ln μ = Σ xᵢ ln μᵢ (Grunberg–Nissan with G₁₂ = 0; Poling, Prausnitz
     & O'Connell, *The Properties of Gases and Liquids*, 5th ed. (2001),
-    eq. 9-13.1 [mem]) with each μᵢ the component's saturated-liquid viscosity
+    eq. 9-13.1 [mem] [ref:poling-2001]) with each μᵢ the component's saturated-liquid viscosity
     at the temperature (at 1 K below its critical temperature when the blend
     is hotter: e.g. the CO₂ in R-455A). Vapour: Wilke's rule (ibid.,
     eqs. 9-5.13/9-5.14 [mem]) with each component a gas at the temperature

@@ -6,7 +6,7 @@ Two series, named as a project's ``piping.tube_series`` names them:
     Metric seamless copper tube for refrigeration and air-conditioning piping,
     EN 12735-1:2016 "Copper and copper alloys — Seamless, round tubes for air
     conditioning and refrigeration — Part 1: Tubes for piping systems",
-    Table 4 (nominal outside diameters and wall thicknesses). The standard
+    Table 4 (nominal outside diameters and wall thicknesses) [ref:en-12735-1]. The standard
     lists several walls for most diameters; the wall stored here is one
     commonly stocked for each outside diameter [mem] — recalled, not read
     from the standard: verify against the current edition, and check the wall
@@ -16,12 +16,12 @@ Two series, named as a project's ``piping.tube_series`` names them:
     Inch ACR copper tube, designated by its actual outside diameter, ASTM
     B280-20 "Seamless Copper Tube for Air Conditioning and Refrigeration Field
     Service", Table 1 (straight lengths, drawn temper) [pub] for 1/4 in to
-    2-1/8 in; 2-5/8 in to 4-1/8 in recalled [mem] (they equal the type L
+    2-1/8 in [ref:astm-b280]; 2-5/8 in to 4-1/8 in recalled [mem] (they equal the type L
     walls of ASTM B88 at the same outside diameter).
 
 Internal roughness of drawn copper tube: 1.5 µm (0.0015 mm), "copper or brass
 tubing" in Çengel & Cimbala, *Fluid Mechanics: Fundamentals and
-Applications*, 1st ed., table 8-2 [mem].
+Applications*, 1st ed., table 8-2 [mem] [ref:cengel-cimbala].
 
 Examples
 --------

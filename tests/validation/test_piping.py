@@ -4,12 +4,12 @@ Pipe flow: Çengel & Cimbala, *Fluid Mechanics: Fundamentals and Applications*,
 1st ed. (2006), Example 8-3 "Determining the head loss in a water pipe"
 (from memory): water at 15 °C (ρ = 999.1 kg/m³, μ = 1.138e-3 kg/(m·s)),
 6 L/s through 60 m of 5 cm horizontal stainless-steel pipe (ε = 0.002 mm):
-V = 3.06 m/s, Re = 134 300, f = 0.0172, Δp = 96.3 kPa, head loss 9.82 m,
+[ref:cengel-cimbala] V = 3.06 m/s, Re = 134 300, f = 0.0172, Δp = 96.3 kPa, head loss 9.82 m,
 pumping power 0.578 kW.
 
-Tube tables: ASTM B280-20 Table 1 (straight lengths, drawn) outside diameter
+Tube tables: ASTM B280-20 Table 1 [ref:astm-b280] (straight lengths, drawn) outside diameter
 and wall, and the inside diameters of ACR tube as tabulated from it (OD − 2
-walls: 7/8 in → 0.785 in, 1-1/8 in → 1.025 in); EN 12735-1 metric sizes
+walls: 7/8 in → 0.785 in, 1-1/8 in → 1.025 in); EN 12735-1 metric sizes [ref:en-12735-1]
 (from memory; verify against the current edition).
 """
 
