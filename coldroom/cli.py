@@ -397,50 +397,97 @@ def _cycle_table(result) -> str:
 @app.command("cycle")
 def cycle_command(
     refrigerant: str = typer.Option(..., "--refrigerant", "-r", help="Refrigerant, e.g. R448A, R-134a, R744."),
-    evaporating: str = typer.Option(..., "--evaporating", help="Evaporating dew temperature (°C unless a unit is given, e.g. '14 °F')."),
+    evaporating: Optional[str] = typer.Option(None, "--evaporating", help="Evaporating dew temperature (°C unless a unit is given, e.g. '14 °F')."),
     condensing: Optional[str] = typer.Option(None, "--condensing", help="Condensing dew temperature (°C unless a unit is given)."),
+    suction_pressure: Optional[str] = typer.Option(None, "--suction-pressure", help="Measured suction pressure instead of --evaporating: '2.1 bar(g)', '45 psig' (gauge) or '350 kPa', '3.1 bar' (absolute)."),
+    discharge_pressure: Optional[str] = typer.Option(None, "--discharge-pressure", help="Measured discharge pressure instead of --condensing (R-744 above critical: the gas-cooler pressure)."),
     capacity: str = typer.Option(..., "--capacity", help="Refrigerating capacity: '5 kW', '17000 Btu/h', '1.5 TR'; bare number = W."),
     superheat: str = typer.Option("5", "--superheat", help="Useful superheat at the evaporator outlet [K]."),
+    suction_line_superheat: str = typer.Option("0", "--suction-line-superheat", help="Further superheat picked up in the suction line [K]."),
     subcooling: str = typer.Option("2", "--subcooling", help="Subcooling at the condenser outlet [K]."),
     isentropic_efficiency: float = typer.Option(0.70, "--isentropic-efficiency", help="Compressor isentropic efficiency (0-1]."),
     clearance: float = typer.Option(0.04, "--clearance", help="Clearance volume ratio for the volumetric efficiency."),
     gas_cooler_outlet: Optional[str] = typer.Option(None, "--gas-cooler-outlet", help="R-744 transcritical: gas-cooler outlet temperature (°C)."),
+    units: str = typer.Option("SI", "--units", help="Units of the chart page: SI or IP."),
+    out: Optional[str] = typer.Option(None, "--out", metavar="FILE.pdf|FILE.svg", help="Write the p-h chart and state table as one page (PDF or SVG by the name's ending)."),
+    force: bool = typer.Option(False, "--force", help="Overwrite an existing --out file."),
     as_json: bool = typer.Option(False, "--json", help="Print the result as JSON on stdout."),
 ) -> None:
-    """Size one vapour-compression cycle without a project file.
+    """Size one vapour-compression cycle without a project file (and draw it with --out).
 
     --superheat 0 --subcooling 0 --isentropic-efficiency 1 is the ideal cycle.
+    Gauge pressures are read against the standard atmosphere (101.325 kPa).
     """
     from coldroom.errors import UnitError
     from coldroom.units import parse_quantity
 
+    def usage(message: str) -> "typer.Exit":
+        print(f"coldroom: error: {message}", file=sys.stderr)
+        return typer.Exit(code=2)
+
     try:
-        te = parse_quantity(evaporating, "temperature", default_unit="°C")
+        te = None if evaporating is None else parse_quantity(evaporating, "temperature", default_unit="°C")
         tc = None if condensing is None else parse_quantity(condensing, "temperature", default_unit="°C")
+        p_suction = None if suction_pressure is None else parse_quantity(suction_pressure, "pressure", default_unit="kPa")
+        p_discharge = None if discharge_pressure is None else parse_quantity(discharge_pressure, "pressure", default_unit="kPa")
         q = parse_quantity(capacity, "power", default_unit="W")
         sh = parse_quantity(superheat, "temperature_difference", default_unit="K")
+        slsh = parse_quantity(suction_line_superheat, "temperature_difference", default_unit="K")
         sc = parse_quantity(subcooling, "temperature_difference", default_unit="K")
         tgc = None if gas_cooler_outlet is None else parse_quantity(gas_cooler_outlet, "temperature", default_unit="°C")
     except UnitError as error:
-        print(f"coldroom: error: {' '.join(str(error).split())}", file=sys.stderr)
-        raise typer.Exit(code=2) from None
-    if tc is None and tgc is None:
-        print("coldroom: error: give --condensing (or --gas-cooler-outlet for transcritical R-744)", file=sys.stderr)
-        raise typer.Exit(code=2)
+        raise usage(" ".join(str(error).split())) from None
+    if (te is None) == (p_suction is None):
+        raise usage("give one of --evaporating or --suction-pressure")
+    if te is None and tc is None and p_discharge is None and tgc is None:
+        raise usage("give --condensing or --discharge-pressure (or --gas-cooler-outlet for transcritical R-744)")
+    if tc is not None and p_discharge is not None:
+        raise usage("give --condensing or --discharge-pressure, not both")
+    if tc is None and p_discharge is None and tgc is None:
+        raise usage("give --condensing (or --gas-cooler-outlet for transcritical R-744)")
+    for name, p in (("suction", p_suction), ("discharge", p_discharge)):
+        if p is not None and p <= 0:
+            raise usage(f"{name} pressure {p / 1e3:.1f} kPa absolute is not above zero (gauge pressures are read against 101.325 kPa)")
+    system = units.strip().upper()
+    if system not in ("SI", "IP"):
+        raise usage(f"--units must be SI or IP, not {units!r}")
+    fmt = None
+    if out is not None:
+        fmt = out.rsplit(".", 1)[-1].lower() if "." in out else ""
+        if fmt not in ("pdf", "svg"):
+            raise usage(f"--out {out!r}: the name must end in .pdf or .svg")
 
     def run() -> None:
         import json
 
         from coldroom.cycle import solve_cycle
+        from coldroom.refrigerant import get_fluid
 
+        fluid = get_fluid(refrigerant)
+        evap = te if te is not None else fluid.dew_temperature(p_suction)
+        cond, high_side = tc, None
+        if p_discharge is not None:
+            if fluid.info.name == "R-744" and p_discharge >= fluid.critical_pressure:
+                high_side = p_discharge
+            else:
+                cond = fluid.dew_temperature(p_discharge)
         result = solve_cycle(
-            refrigerant, te, tc, q, superheat=sh, subcooling=sc, isentropic_efficiency=isentropic_efficiency,
-            clearance=clearance, gas_cooler_outlet_temperature=tgc,
+            refrigerant, evap, cond, q, superheat=sh, subcooling=sc, isentropic_efficiency=isentropic_efficiency,
+            suction_line_superheat=slsh, clearance=clearance, gas_cooler_outlet_temperature=tgc,
+            high_side_pressure=high_side,
         )
         if as_json:
             print(json.dumps(result.to_json(), indent=2, ensure_ascii=False))
         else:
             print(_cycle_table(result))
+        if out is not None:
+            from coldroom.output import write_atomic
+            from coldroom.report.cyclepage import render_cycle_page
+            from coldroom.sizing import sheet_date, versions
+
+            data = render_cycle_page(result, system, fmt, sheet_date(None), sys.argv[1:], versions())
+            write_atomic(out, data, force=force)
+            print(f"wrote {out}", file=sys.stderr if as_json else sys.stdout)
 
     guarded(run)
 

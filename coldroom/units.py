@@ -171,6 +171,14 @@ _add("pressure", ("bar", "bara", "bar(a)"), _u("bar", 1e5))
 _add("pressure", ("psi", "psia", "lbf/in2"), _u("psia", PSI))
 _add("pressure", ("inHg", "in hg"), _u("inHg", INCH_HG))
 _add("pressure", ("atm",), _u("atm", STANDARD_ATMOSPHERE))
+# pressure (gauge): a gauge reads above the surrounding air; taken here as the
+# standard atmosphere (101.325 kPa, exact by definition; ISO 2533), so "0 bar(g)"
+# is 101.325 kPa absolute. A site far above sea level reads a little higher
+# on its gauges (about 1 kPa per 100 m) [trade].
+_add("pressure", ("bar(g)", "barg"), _u("bar(g)", 1e5, offset=STANDARD_ATMOSPHERE))
+_add("pressure", ("kPa(g)", "kPag"), _u("kPa(g)", 1e3, offset=STANDARD_ATMOSPHERE))
+_add("pressure", ("MPa(g)", "MPag"), _u("MPa(g)", 1e6, offset=STANDARD_ATMOSPHERE))
+_add("pressure", ("psig", "psi(g)"), _u("psig", PSI, offset=STANDARD_ATMOSPHERE))
 # conductivity
 _add("conductivity", ("W/(m·K)", "W/mK", "W/m/K", "W/(mK)"), _u("W/(m·K)", 1.0))
 _add("conductivity", ("mW/(m·K)", "mW/mK"), _u("mW/(m·K)", 1e-3))

