@@ -106,7 +106,8 @@ def cycle_page(cycle: Any, system: str, date: str, arguments: Sequence[str], ver
         f"Superheat {_k(cycle.superheat, system)} in the evaporator"
         + (f", {_k(cycle.suction_line_superheat, system)} more in the suction line" if cycle.suction_line_superheat else "")
         + (f"; subcooling {_k(cycle.subcooling, system)}" if not cycle.transcritical else "")
-        + f"; isentropic efficiency {cycle.isentropic_efficiency:.2f}. Pressures absolute. {cycle.property_model}.",
+        + f"; isentropic efficiency {cycle.isentropic_efficiency:.2f}.",
+        f"Pressures absolute. Properties: {cycle.property_model}; enthalpy and entropy in its default reference state.",
     ]
     for line in basis:
         d.add(String(margin, y, clean(line), fontName="Helvetica", fontSize=7.8, fillColor=INK))
@@ -161,7 +162,11 @@ def render_cycle_page(cycle: Any, system: str, fmt: str, date: str, arguments: S
     if fmt == "svg":
         from reportlab.graphics import renderSVG
 
-        return renderSVG.drawToString(drawing).encode("utf-8")
+        text = renderSVG.drawToString(drawing)
+        # the renderer names the PDF base fonts as families; say what a browser can match
+        text = text.replace("font-family: Helvetica-Bold;", "font-family: Helvetica, Arial, sans-serif; font-weight: bold;")
+        text = text.replace("font-family: Helvetica;", "font-family: Helvetica, Arial, sans-serif;")
+        return text.encode("utf-8")
     from reportlab.graphics import renderPDF
     from reportlab.pdfgen.canvas import Canvas
 
