@@ -957,8 +957,8 @@ def _chart_state(fluid: Fluid, purpose: str = "states") -> AbstractState:
 def phase_envelope(fluid: Fluid) -> tuple[tuple[tuple[float, float], ...], tuple[tuple[float, float], ...]]:
     """Bubble and dew lines of a mixture up to its critical point, as (h [J/kg], p [Pa]).
 
-    CoolProp traces the envelope of the bulk composition (dew branch up to the
-    critical point, then the bubble branch down); the point of highest pressure
+    CoolProp traces the envelope of the bulk composition [ref:coolprop] (dew branch up to
+    the critical point, then the bubble branch down); the point of highest pressure
     closes both. Each branch is returned in rising pressure and ends at that
     point. Computed once per mixture and process (about 0.2 s).
 

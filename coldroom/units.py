@@ -172,7 +172,7 @@ _add("pressure", ("psi", "psia", "lbf/in2"), _u("psia", PSI))
 _add("pressure", ("inHg", "in hg"), _u("inHg", INCH_HG))
 _add("pressure", ("atm",), _u("atm", STANDARD_ATMOSPHERE))
 # pressure (gauge): a gauge reads above the surrounding air; taken here as the
-# standard atmosphere (101.325 kPa, exact by definition; ISO 2533), so "0 bar(g)"
+# standard atmosphere (101.325 kPa, exact by definition [ref:nist-sp811]), so "0 bar(g)"
 # is 101.325 kPa absolute. A site far above sea level reads a little higher
 # on its gauges (about 1 kPa per 100 m) [trade].
 _add("pressure", ("bar(g)", "barg"), _u("bar(g)", 1e5, offset=STANDARD_ATMOSPHERE))

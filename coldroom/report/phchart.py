@@ -252,8 +252,8 @@ def choose_window(cycle: Any, system: str) -> Window:
 def _catmull_rom(points: Sequence[tuple[float, float]], per_segment: int = 8) -> list[tuple[float, float]]:
     """Centripetal Catmull–Rom spline through *points* (screen coordinates), densified.
 
-    Centripetal parametrisation (α = 0.5; Yuksel, Schaefer & Keyser 2011) does
-    not overshoot or form loops between unevenly spaced points [mem].
+    Centripetal parametrisation (α = 0.5) does not overshoot or form loops
+    between unevenly spaced points [ref:yuksel-2011] [mem].
     """
     pts = [p for i, p in enumerate(points) if i == 0 or math.dist(p, points[i - 1]) > 1e-6]
     if len(pts) < 3:

@@ -101,7 +101,7 @@ def _evaporating(*pressure_args: str) -> float:
 
 @pytest.mark.parametrize(
     "reading",
-    # R-134a dew pressure at 0 °C: 292.8 kPa absolute (ASHRAE Fundamentals 2017 ch. 30 R-134a table [mem];
+    # R-134a dew pressure at 0 °C: 292.8 kPa absolute ([ref:ashrae-fund-refrigerants] R-134a table [mem];
     # also coldroom.refrigerant's doctest): 191.5 kPa(g), 1.915 bar(g), 27.77 psig against 101.325 kPa
     ["292.8 kPa", "2.928 bar", "191.5 kPa(g)", "1.915 bar(g)", "27.77 psig", "42.47 psia"],
 )
@@ -110,7 +110,7 @@ def test_suction_pressure_gauge_or_absolute(reading):
 
 
 def test_discharge_pressure_gives_the_condensing_dew_temperature():
-    # R-134a at 40 °C dew: 1016.6 kPa absolute (ASHRAE Fundamentals 2017 ch. 30 [mem])
+    # R-134a at 40 °C dew: 1016.6 kPa absolute ([ref:ashrae-fund-refrigerants] R-134a table [mem])
     result = run("cycle", "-r", "R134a", "--evaporating", "-10", "--discharge-pressure", "9.153 bar(g)",
                  "--capacity", "5 kW", "--json")
     assert result.returncode == 0, result.stderr

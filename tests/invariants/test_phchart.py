@@ -193,7 +193,7 @@ def test_ip_chart_ticks_are_round_psia():
         mantissa = v / 10 ** math.floor(math.log10(v))
         assert round(mantissa, 9) in (1.0, 2.0, 3.0, 5.0), v
     # the suction and discharge pressures in psia: R-134a at -10 / 40 °C dew is 200.6 kPa
-    # (29.1 psia) and 1017 kPa (147 psia) (ASHRAE Fundamentals 2017 ch. 30 R-134a table [mem])
+    # (29.1 psia) and 1017 kPa (147 psia) ([ref:ashrae-fund-refrigerants] R-134a table [mem])
     assert 8.0 < min(ticks) <= 20.0 and max(ticks) >= 500.0
     assert any("29.1 psia" in t for t in texts) and any("147 psia" in t for t in texts), texts
     assert not any(t.startswith("-0 ") for t in texts)
