@@ -470,7 +470,8 @@ def _check_defrost(room: "Room", at: tuple, error: ErrorFactory) -> None:
 
 
 def _check_doors(room: "Room", at: tuple, error: ErrorFactory) -> None:
-    height = room.dimensions.height if room.dimensions is not None else None
+    inside = room.box_dimensions("inside")  # doors open in the inside faces
+    height = inside[2] if inside is not None else None
     for j, door in enumerate(room.doors):
         d_at = at + ("doors", j)
         if height is not None and door.height > height + DOOR_EDGE_ALLOWANCE:
@@ -482,8 +483,8 @@ def _check_doors(room: "Room", at: tuple, error: ErrorFactory) -> None:
             )
         if door.wall is not None:
             wall_area = room.surface_area(door.wall)
-            if room.dimensions is not None:
-                wall_width = room.dimensions.length if door.wall in ("north", "south") else room.dimensions.width
+            if inside is not None:
+                wall_width = inside[0] if door.wall in ("north", "south") else inside[1]
                 if door.width > wall_width + DOOR_EDGE_ALLOWANCE:
                     raise error(
                         Note.fill(

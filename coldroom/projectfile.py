@@ -56,6 +56,7 @@ from pydantic import (
     BeforeValidator,
     ConfigDict,
     Field,
+    PrivateAttr,
     ValidationError,
     ValidationInfo,
     field_validator,
@@ -266,13 +267,27 @@ class Construction(Strict):
 
     layers: Optional[list[Layer]] = Field(default=None, min_length=1, max_length=20)
     u_value: Optional[Q("u_value", gt=0.0, le=10.0)] = None  # type: ignore[valid-type]
+    thickness: Optional[Thickness] = Field(
+        default=None,
+        description="Overall thickness of a construction given by its u_value (for outside areas); "
+        "layers give their own sum.",
+    )
     description: str = ""
 
     @model_validator(mode="after")
     def _one_of(self) -> "Construction":
         if (self.layers is None) == (self.u_value is None):
             raise ValueError("give a construction either layers or a u_value (exactly one)")
+        if self.layers is not None and self.thickness is not None:
+            raise ValueError("thickness goes with a u_value; a layered construction is as thick as its layers")
         return self
+
+    @property
+    def overall_thickness(self) -> float:
+        """Thickness of the construction [m]: the sum of its layers, or the given ``thickness`` (else 0)."""
+        if self.layers is not None:
+            return sum(layer.thickness for layer in self.layers)
+        return self.thickness or 0.0
 
 
 class Surface(Strict):
@@ -349,11 +364,19 @@ class Envelope(Strict):
 
 
 class Dimensions(Strict):
-    """Inside dimensions. North and south walls are length × height; east and west are width × height."""
+    """Room dimensions. North and south walls are length × height; east and west are width × height.
+
+    ``measured: inside`` (default) gives the clear inside dimensions; ``measured: outside`` gives
+    the outside dimensions of the insulated box: length and width over the walls, height from
+    the top of the floor to the top of the ceiling.
+    """
 
     length: Length
     width: Length
     height: Q("length", ge=1.5, le=30.0)  # type: ignore[valid-type]
+    measured: Literal["inside", "outside"] = Field(
+        default="inside", description="Whether length, width and height are inside or outside dimensions."
+    )
 
 
 # --- doors and infiltration -------------------------------------------------------------
@@ -815,6 +838,9 @@ class Room(Strict):
     existing_unit: Optional[ExistingUnit] = Field(
         default=None, description="An installed unit to check (see coldroom.equipment)."
     )
+    #: Construction thickness of each side [m], filled in by the project (which knows the named
+    #: constructions); 0 for a room validated on its own.
+    _thickness: dict[str, float] = PrivateAttr(default_factory=dict)
 
     @model_validator(mode="after")
     def _geometry(self) -> "Room":
@@ -829,18 +855,61 @@ class Room(Strict):
         return self
 
     # derived geometry (SI)
+    def section_thickness(self, side: str) -> float:
+        """Thickness of the construction on *side* [m] (0 when not known)."""
+        return self._thickness.get(side, 0.0)
+
+    def box_dimensions(self, where: str) -> Optional[tuple[float, float, float]]:
+        """(length, width, height) [m] of the ``inside`` or ``outside`` of the insulated box.
+
+        Outside = inside + the construction thickness on each side: the length over the east
+        and west walls, the width over the north and south walls, the height from the top of
+        the floor over the ceiling. The floor build-up is not added to the wall height: below
+        the floor's top surface the walls stand against the floor's own section, which counts
+        its heat gain over the outside length × width [trade]. ``None`` without dimensions.
+        """
+        d = self.dimensions
+        if d is None:
+            return None
+        t = self.section_thickness
+        extra = (t("east") + t("west"), t("north") + t("south"), t("ceiling"))
+        sign = {("inside", "inside"): 0.0, ("outside", "outside"): 0.0,
+                ("inside", "outside"): 1.0, ("outside", "inside"): -1.0}[(d.measured, where)]
+        return (d.length + sign * extra[0], d.width + sign * extra[1], d.height + sign * extra[2])
+
+    @staticmethod
+    def _face(box: tuple[float, float, float], side: str) -> float:
+        length, width, height = box
+        if side in ("north", "south"):
+            return length * height
+        if side in ("east", "west"):
+            return width * height
+        return length * width
+
     def surface_area(self, side: str) -> float:
-        """Area of *side* [m²]: explicit, or from the inside dimensions."""
+        """Inside area of *side* [m²]: explicit, or from the inside dimensions."""
         surface = self.envelope.side(side)
         if surface.area is not None:
             return surface.area
-        d = self.dimensions
-        assert d is not None
-        if side in ("north", "south"):
-            return d.length * d.height
-        if side in ("east", "west"):
-            return d.width * d.height
-        return d.length * d.width
+        box = self.box_dimensions("inside")
+        assert box is not None
+        return max(self._face(box, side), 0.0)
+
+    def transmission_area(self, side: str) -> tuple[float, str]:
+        """Area of *side* for U·A·ΔT [m²] and its basis, ``"given"`` or ``"outside"``.
+
+        The load method takes the outside surface area of each section (ASHRAE
+        Handbook—Refrigeration, "Refrigerated-Facility Loads", transmission load [mem])
+        [ref:ashrae-refrig-loads]: the faces of the insulated box over its outside
+        dimensions, so edges and corners are counted once on the outside. An explicit
+        ``area`` is taken as given.
+        """
+        surface = self.envelope.side(side)
+        if surface.area is not None:
+            return surface.area, "given"
+        box = self.box_dimensions("outside")
+        assert box is not None
+        return self._face(box, side), "outside"
 
     @property
     def floor_area(self) -> float:
@@ -849,12 +918,13 @@ class Room(Strict):
 
     @property
     def inside_volume(self) -> float:
-        """Inside volume [m³]."""
+        """Inside volume [m³]: given, or from the inside dimensions (0 if the walls leave no room)."""
         if self.volume is not None:
             return self.volume
-        d = self.dimensions
-        assert d is not None
-        return d.length * d.width * d.height
+        box = self.box_dimensions("inside")
+        assert box is not None
+        length, width, height = box
+        return length * width * height if min(box) > 0.0 else 0.0
 
 
 class ProjectModel(Strict):
@@ -869,6 +939,19 @@ class ProjectModel(Strict):
         max_length=50,
         description="Rooms sharing a compressor; a room in none forms a system of its own named after the room.",
     )
+
+    @model_validator(mode="after")
+    def _section_thickness(self) -> "ProjectModel":
+        # Each room learns how thick its sides are (for outside dimensions and areas); an
+        # unknown construction name counts 0 here and is refused by coldroom.checks.
+        for room in self.rooms:
+            thickness = {}
+            for side in SIDES:
+                ref = room.envelope.side(side).construction
+                construction = ref if isinstance(ref, Construction) else self.constructions.get(ref)
+                thickness[side] = construction.overall_thickness if construction is not None else 0.0
+            room._thickness = thickness
+        return self
 
     def construction(self, ref: Union[str, Construction]) -> Construction:
         """Resolve a surface's construction (a name from ``constructions`` or inline)."""

@@ -150,7 +150,13 @@ class RoomLoads:
     volume : float
         Inside volume [m³].
     floor_area : float
-        Floor area [m²].
+        Inside floor area [m²].
+    dimensions_measured : str or None
+        ``"inside"`` or ``"outside"``: how the room's dimensions were given (``None``
+        when the room is described by areas and a volume).
+    transmission_area_basis : str
+        The areas in U·A·ΔT: ``"outside"`` (outside surface of each section, the load
+        method's basis), ``"given"`` (areas from the project file) or ``"outside, given"``.
     """
 
     name: str
@@ -162,6 +168,8 @@ class RoomLoads:
     volume: float
     floor_area: float
     warnings: tuple[str, ...] = ()
+    dimensions_measured: str | None = None
+    transmission_area_basis: str = "outside"
 
     def component_energy(self, component: str) -> float:
         """Daily energy of one component [J]."""
@@ -216,6 +224,8 @@ class RoomLoads:
             "design_capacity_governed_by": self.governed_by,
             "volume_m3": self.volume,
             "floor_area_m2": self.floor_area,
+            "dimensions_measured": self.dimensions_measured,
+            "transmission_area_basis": self.transmission_area_basis,
             "lines": [
                 {
                     "component": line.component,

@@ -263,18 +263,27 @@ def _basis(model: "ProjectModel", room: "Room", loads: "RoomLoads", temps: Desig
     add(("Site: ground temperature", show(d.ground_temperature, "temperature", system)))
     add(("Site: barometric pressure", show(site_pressure(d), "pressure", system)))
     add(("Room: temperature and RH", f"{show(room.temperature, 'temperature', system)}, {room.rh:.0%} RH"))
-    if room.dimensions is not None:
-        dim = room.dimensions
+    length_unit = _units.DISPLAY_UNITS[system]["length"]
+    for where in ("inside", "outside"):
+        box = room.box_dimensions(where)
+        if box is None:
+            break
+        given = " (as given)" if room.dimensions is not None and room.dimensions.measured == where else ""
         add(
             (
-                "Room: inside dimensions (L × W × H)",
-                " × ".join(_units.format_number(_units.to_unit(x, "length", _units.DISPLAY_UNITS[system]["length"]))
-                           for x in (dim.length, dim.width, dim.height))
-                + f" {_units.DISPLAY_UNITS[system]['length']}",
+                f"Room: {where} dimensions (L × W × H){given}",
+                " × ".join(_units.format_number(_units.to_unit(x, "length", length_unit)) for x in box)
+                + f" {length_unit}",
             )
         )
-    add(("Room: volume and floor area",
+    add(("Room: inside volume and floor area",
          f"{show(loads.volume, 'volume', system)}, {show(loads.floor_area, 'area', system)}"))
+    add(("Room: transmission areas", {
+        "outside": "outside surface of each section (outside dimensions: "
+                   + ("as given)" if room.dimensions is not None and room.dimensions.measured == "outside"
+                      else "inside + construction thickness)"),
+        "given": "areas as given in the project file",
+    }.get(loads.transmission_area_basis, "outside surface of each section; given areas where stated")))
     # constructions: one row per construction used, with the sides it covers
     used: dict[str, list[str]] = {}
     u_of: dict[str, float] = {}

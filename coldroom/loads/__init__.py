@@ -24,6 +24,7 @@ if TYPE_CHECKING:  # pragma: no cover
     from coldroom.projectfile import Construction, DesignConditions, ProjectModel, Room
 
 DAY = 86400.0  # s
+SIDES = ("north", "east", "south", "west", "ceiling", "floor")
 
 #: Film coefficients used for constructions built from layers [W/(m²·K)]:
 #: still air inside and against another space, 24 km/h wind outdoors, none
@@ -85,11 +86,11 @@ def transmission_lines(model: "ProjectModel", room: "Room") -> list[LoadLine]:
 
     design = model.design
     lines: list[LoadLine] = []
-    for side in ("north", "east", "south", "west", "ceiling", "floor"):
+    for side in SIDES:
         surface = room.envelope.side(side)
         construction = model.construction(surface.construction)
         u = construction_u(construction, surface.facing)
-        area = room.surface_area(side)
+        area, area_basis = room.transmission_area(side)
         sun = 0.0
         if surface.facing == "outdoors":
             outside = design.outdoor_temperature
@@ -118,7 +119,8 @@ def transmission_lines(model: "ProjectModel", room: "Room") -> list[LoadLine]:
             q = transmission.surface_heat_gain(area, u, outside, room.temperature)
             beyond = "roof void" if surface.facing == "roof_void" else "adjacent space"
         dt = outside + sun - room.temperature
-        working = (T(u, "u_value", "U "), T(area, "area"), T(dt, "temperature_difference"))
+        area_words = " outside" if area_basis == "outside" else " as given"
+        working = (T(u, "u_value", "U "), T(area, "area", suffix=area_words), T(dt, "temperature_difference"))
         if sun:
             working += (T(sun, "temperature_difference", "incl. sun ", sep=" "),)
         counted = transmission.credited_heat_gain(q, surface.credit)
@@ -431,6 +433,10 @@ def room_loads(model: "ProjectModel", room: "Room") -> RoomLoads:
         volume=room.inside_volume,
         floor_area=room.floor_area,
         warnings=tuple(warnings),
+        dimensions_measured=room.dimensions.measured if room.dimensions is not None else None,
+        transmission_area_basis=", ".join(
+            dict.fromkeys(basis for basis in ("outside", "given") for side in SIDES if room.transmission_area(side)[1] == basis)
+        ),
     )
 
 

@@ -10,7 +10,7 @@ from __future__ import annotations
 import copy
 
 import pytest
-from hypothesis import given
+from hypothesis import given, settings
 from hypothesis import strategies as st
 
 from coldroom.loads import room_loads
@@ -102,3 +102,34 @@ def test_components_add_up_and_capacity_follows_the_method() -> None:
     assert sum(loads.components_w.values()) * 86400.0 == pytest.approx(loads.daily_energy, rel=1e-12)
     # ASHRAE Refrigeration, "Refrigerated-Facility Loads": capacity = (1 + SF) × daily energy / run time.
     assert loads.required_capacity == pytest.approx(1.1 * loads.daily_energy / (18 * 3600.0), rel=1e-12)
+
+
+@settings(max_examples=20)  # each example parses two projects
+@given(panel=st.floats(40, 250), length=st.floats(2, 12), width=st.floats(2, 8), height=st.floats(2, 6))
+def test_inside_and_outside_dimensions_describe_the_same_room(panel, length, width, height) -> None:
+    """Inside dimensions + construction thickness = outside dimensions: same volume, same load;
+    outside areas are never smaller than the inside faces."""
+    t = panel / 1000.0
+
+    def dims(measured):
+        def edit(d):
+            d["constructions"]["panel"]["layers"][0]["thickness"] = panel
+            grow = measured == "outside"
+            d["rooms"][0]["dimensions"] = {
+                "length": length + 2 * t * grow, "width": width + 2 * t * grow,
+                "height": height + t * grow, "measured": measured,
+            }
+            d["rooms"][0]["doors"] = []
+
+        return edit
+
+    inside = _with(_base(), dims("inside"))
+    outside = _with(_base(), dims("outside"))
+    assert outside.volume == pytest.approx(inside.volume, rel=1e-9)
+    assert outside.daily_energy == pytest.approx(inside.daily_energy, rel=1e-9)
+    for line in inside.lines:
+        if line.component == "transmission":
+            area = line.basis[1].value
+            face = {"north": length * height, "south": length * height, "east": width * height,
+                    "west": width * height, "ceiling": length * width, "floor": length * width}
+            assert area >= face[line.item.split()[0]] * (1 - 1e-12)
