@@ -232,7 +232,7 @@ def _size_summary(result, model) -> str:  # type: ignore[no-untyped-def]
             lines.append(
                 f"  {c['refrigerant']}: mass flow {q(c['mass_flow_kg_s'], 'mass_flow', s)}   "
                 f"displacement {q(c['displacement_m3_h'] / 3600.0, 'volume_flow', s)}   "
-                f"compressor power {capacity(c['compressor_power_w'], s)}"
+                f"compressor input {capacity(c['compressor_power_w'], s)}"
             )
             lines.append(
                 f"  heat of rejection {capacity(c['condenser_duty_w'], s)}   COP {c['cop']:.2f}   "
@@ -249,6 +249,14 @@ def _size_summary(result, model) -> str:  # type: ignore[no-untyped-def]
             )
         for message in list(loads.warnings) + list(room.warnings):
             lines.append(f"  warning: {format_terms(message, s)}")
+    if result.systems:
+        from coldroom.textreport import systems_report
+
+        lines += ["", "Systems (compressor input, connected load and kWh/day are electrical)"]
+        lines.append(systems_report(result.systems, s))
+        for system in result.systems:
+            if len(system.members) > 1:  # a one-room system's warnings are the room's, printed above
+                lines += [f"warning: {format_terms(message, s)}" for message in system.warnings]
     for message in result.warnings:
         lines.append(f"warning: {format_terms(message, s)}")
     return "\n".join(lines)

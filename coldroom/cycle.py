@@ -27,6 +27,25 @@ Energy balance: refrigerating capacity + suction-line heat gain + compressor
 power = condenser duty, exactly (h₄ = h₃ by construction). With no suction-line
 superheat the suction-line gain is zero and Q + P = heat of rejection.
 
+Several evaporators on one compressor (:func:`solve_system_cycle`): each coil
+evaporates at its own dew temperature; the warmer ones sit behind an
+evaporator pressure regulator (EPR), an isenthalpic throttle down to the
+coldest coil's pressure. Each coil's flow is ṁᵢ = Qᵢ/(h_out,i − h₃); the
+streams mix adiabatically at the coldest coil's pressure, h_mix = Σṁᵢh_out,i/Σṁᵢ
+(steady-flow energy balance of a mixing tee; two evaporators on one compressor
+with a back-pressure valve, Stoecker & Jones 2nd ed. ch. 16 multipressure
+systems [mem] [ref:stoecker-jones]); state 1 is then the mixture heated by
+the suction-line superheat at the suction pressure. The cycle reports the
+coldest coil's evaporating temperature, the total capacity and the mixture as
+the evaporator outlet (its superheat over the coldest dew point as
+``superheat``).
+
+Compressor power basis: ``isentropic_efficiency`` is the *overall* isentropic
+efficiency on the electrical input (motor included), so ``compressor_power``
+ṁ(h₂ − h₁) is the compressor's electrical input; for a suction-gas-cooled
+hermetic or semi-hermetic compressor the motor losses go into the refrigerant
+and the energy balance above still holds [trade].
+
 Examples
 --------
 >>> r = solve_cycle("R134a", -10.0, 40.0, 5000.0)
@@ -119,7 +138,8 @@ class CycleResult:
     displacement : float
         Required swept volume rate [m³/s].
     compressor_power : float
-        Power to the refrigerant, ṁ(h₂ − h₁) [W].
+        Compressor electrical input, ṁ(h₂ − h₁) with the overall isentropic
+        efficiency (motor included; see the module note) [W].
     condenser_duty : float
         Heat of rejection, ṁ(h₂ − h₃) [W].
     suction_line_heat_gain : float
@@ -146,6 +166,9 @@ class CycleResult:
     warnings : tuple of str
         Plain-language advisories (discharge temperature, pressure ratio,
         sub-atmospheric suction, flammability/toxicity, GWP).
+    evaporator_flows : tuple of float
+        Mass flow through each evaporator [kg/s], in the order given to
+        :func:`solve_system_cycle` (one entry, the total, for a single coil).
     """
 
     refrigerant: str
@@ -187,6 +210,7 @@ class CycleResult:
     safety_class: str
     gwp_ar4: float
     warnings: tuple[str, ...]
+    evaporator_flows: tuple[float, ...] = ()
 
     def to_json(self) -> dict:
         """JSON-ready dict; every numeric key names its unit (DEVELOPERS.md "Contracts").
@@ -310,6 +334,7 @@ def solve_cycle(
     polytropic_exponent: float | None = None,
     gas_cooler_outlet_temperature: float | None = None,
     high_side_pressure: float | None = None,
+    _warmer: tuple[tuple[float, float, float], ...] = (),
 ) -> CycleResult:
     """Solve a single-stage vapour-compression cycle for a refrigerating capacity.
 
@@ -425,11 +450,32 @@ def solve_cycle(
     p_suction = fluid.dew_pressure(te - suction_pressure_drop) if suction_pressure_drop > 0 else p_evap
     # evaporator outlet: dew + useful superheat (blends: superheat counted from dew [trade])
     evap_out = evap_dew if superheat == 0 else fluid.state_pt(p_evap, te + superheat, phase="gas")
-    # compressor suction: dew + superheat + suction-line superheat, at the suction pressure
-    if suction_line_superheat == 0 and suction_pressure_drop == 0:
-        state1 = evap_out
-    else:
-        state1 = fluid.state_pt(p_suction, te + superheat + suction_line_superheat, phase="gas")
+    coil_out = evap_out  # the coldest coil's own outlet
+    warm_outlets = tuple(
+        fluid.saturated_vapour(temperature=t) if sh == 0 else fluid.state_pt(
+            fluid.saturated_vapour(temperature=t).p, t + sh, phase="gas"
+        )
+        for t, sh, _q in _warmer
+    )
+
+    def suction_states(h_liquid: float) -> tuple[StatePoint, StatePoint, tuple[float, ...]]:
+        """Evaporator outlet (mixed), state 1 and each coil's mass flow for a liquid enthalpy."""
+        if not _warmer:
+            out = evap_out
+            flows: tuple[float, ...] = ()
+        else:  # EPR throttles are isenthalpic; adiabatic mixing at the coldest coil's pressure [mem] [ref:stoecker-jones]
+            duties = (capacity - sum(q for _t, _sh, q in _warmer),) + tuple(q for _t, _sh, q in _warmer)
+            outlets = (coil_out,) + warm_outlets
+            flows = tuple(q / (o.h - h_liquid) for q, o in zip(duties, outlets))
+            h_mix = sum(m * o.h for m, o in zip(flows, outlets)) / sum(flows)
+            out = replace(fluid.state_ph(p_evap, h_mix), h=h_mix)
+        # compressor suction: outlet + suction-line superheat, at the suction pressure
+        if suction_line_superheat == 0 and suction_pressure_drop == 0:
+            first = out
+        else:
+            first = fluid.state_pt(p_suction, out.t + suction_line_superheat, phase="gas")
+        return out, first, flows
+
     glide_evap = te - fluid.bubble_temperature(p_evap) if info.is_blend else 0.0
 
     # --- high side --------------------------------------------------------
@@ -437,14 +483,23 @@ def solve_cycle(
     if transcritical:
         tgc = gas_cooler_outlet_temperature
         liao = liao_optimum_pressure(te, tgc)
+        h_liquid_guess = fluid.state_pt(1.02 * fluid.critical_pressure, tgc).h
+        for _ in range(1 if not _warmer else 6):  # the mixture depends on h3, h3 on the optimum pressure
+            evap_out, state1, flows = suction_states(h_liquid_guess)
 
-        def cop_at(p: float) -> float:
-            s2s, s2, s3 = _high_side(fluid, state1, p, isentropic_efficiency, None, tgc)
-            return (evap_out.h - s3.h) / (s2.h - state1.h)
+            def cop_at(p: float) -> float:
+                s2s, s2, s3 = _high_side(fluid, state1, p, isentropic_efficiency, None, tgc)
+                return (evap_out.h - s3.h) / (s2.h - state1.h)
 
-        p_high = high_side_pressure if high_side_pressure is not None else _golden_max(
-            cop_at, 1.02 * fluid.critical_pressure, 14e6
-        )
+            p_high = high_side_pressure if high_side_pressure is not None else _golden_max(
+                cop_at, 1.02 * fluid.critical_pressure, 14e6
+            )
+            s2s, state2, state3 = _high_side(fluid, state1, p_high, isentropic_efficiency, None, tgc)
+            converged = abs(state3.h - h_liquid_guess) < 1.0
+            h_liquid_guess = state3.h
+            if converged:
+                break
+        evap_out, state1, flows = suction_states(state3.h)
         s2s, state2, state3 = _high_side(fluid, state1, p_high, isentropic_efficiency, None, tgc)
         glide_cond = None
         t_reject = tgc
@@ -453,6 +508,7 @@ def solve_cycle(
         p_high = fluid.dew_pressure(tc)
         bubble = fluid.saturated_liquid(pressure=p_high)
         liquid = bubble if subcooling == 0 else fluid.state_pt(p_high, bubble.t - subcooling, phase="liquid")
+        evap_out, state1, flows = suction_states(liquid.h)
         s2s, state2, state3 = _high_side(fluid, state1, p_high, isentropic_efficiency, liquid, None)
         glide_cond = tc - bubble.t if info.is_blend else 0.0
         t_reject = tc
@@ -498,7 +554,7 @@ def solve_cycle(
         gas_cooler_outlet_temperature=gas_cooler_outlet_temperature if transcritical else None,
         transcritical=transcritical,
         capacity=capacity,
-        superheat=superheat,
+        superheat=superheat if not _warmer else evap_out.t - te,
         subcooling=0.0 if transcritical else subcooling,
         isentropic_efficiency=isentropic_efficiency,
         suction_line_superheat=suction_line_superheat,
@@ -530,7 +586,72 @@ def solve_cycle(
         safety_class=info.safety_class,
         gwp_ar4=info.gwp_ar4,
         warnings=warnings,
+        evaporator_flows=flows if _warmer else (mass_flow,),
     )
+
+
+def solve_system_cycle(
+    refrigerant: str,
+    evaporators: "list[tuple[float, float, float]] | tuple[tuple[float, float, float], ...]",
+    condensing_temperature: float | None,
+    **options: float | None,
+) -> CycleResult:
+    """One compressor serving several evaporators, the warmer ones behind EPRs.
+
+    Parameters
+    ----------
+    refrigerant : str
+        Catalogue name.
+    evaporators : sequence of (float, float, float)
+        Each coil's evaporating dew temperature [°C], superheat at its outlet
+        [K] and duty [W] (> 0).
+    condensing_temperature : float or None
+        Condensing dew temperature [°C] (``None`` for transcritical R-744 with
+        ``gas_cooler_outlet_temperature``).
+    **options
+        The other keywords of :func:`solve_cycle` (subcooling, isentropic
+        efficiency, suction-line superheat, suction pressure drop, clearance,
+        gas-cooler outlet temperature, high-side pressure).
+
+    Returns
+    -------
+    CycleResult
+        At the coldest coil's evaporating temperature, capacity = Σ duties;
+        ``evaporator_flows`` in the order of *evaporators*. One coil gives
+        exactly :func:`solve_cycle`.
+
+    Examples
+    --------
+    >>> r = solve_system_cycle("R134a", [(-10.0, 5.0, 3000.0), (-2.0, 5.0, 2000.0)], 40.0)
+    >>> r.evaporating_temperature, r.capacity
+    (-10.0, 5000.0)
+    >>> abs(sum(r.evaporator_flows) - r.mass_flow) < 1e-12
+    True
+    """
+    coils = [tuple(float(x) for x in coil) for coil in evaporators]
+    if not coils:
+        raise CalculationError("a system needs at least one evaporator")
+    for t, sh, q in coils:
+        _check("evaporator duty", q, 0.0, 1e9, "W", low_open=True)
+        _check("evaporating temperature", t, -100.0, 60.0, "°C")
+        _check("superheat", sh, 0.0, 60.0, "K")
+    coldest = min(range(len(coils)), key=lambda i: coils[i][0])
+    others = tuple(coils[i] for i in range(len(coils)) if i != coldest)
+    te, superheat, _q = coils[coldest]
+    total = sum(q for _t, _sh, q in coils)
+    result = solve_cycle(
+        refrigerant, te, condensing_temperature, total, superheat=superheat, _warmer=others, **options  # type: ignore[arg-type]
+    )
+    if not others:
+        return result
+    flows = list(result.evaporator_flows)
+    ordered = [0.0] * len(coils)
+    ordered[coldest] = flows[0]
+    rest = iter(flows[1:])
+    for i in range(len(coils)):
+        if i != coldest:
+            ordered[i] = next(rest)
+    return replace(result, evaporator_flows=tuple(ordered))
 
 
 def _golden_max(func, low: float, high: float, tolerance: float = 500.0) -> float:

@@ -250,9 +250,10 @@ class RoomResult:
     condensing_temperature: Optional[float] = None  # °C, saturated dew point
     condenser_air_temperature: Optional[float] = None  # °C
     sizing_basis: tuple[tuple[str, str], ...] = ()  # (what, value and source) pairs for the sheet
-    cycle: Any = None  # coldroom.cycle.CycleResult
+    cycle: Any = None  # coldroom.cycle.CycleResult; None for a member of a system of several rooms
     check: Any = None  # coldroom.equipment.CheckResult
     warnings: tuple[str, ...] = ()
+    system: str = ""  # the name of the room's system
 
     @property
     def name(self) -> str:
@@ -260,6 +261,7 @@ class RoomResult:
 
     def to_json(self) -> dict[str, Any]:
         out = self.loads.to_json()
+        out["system"] = self.system or self.name
         out["evaporating_temperature_c"] = self.evaporating_temperature
         out["condensing_temperature_c"] = self.condensing_temperature
         out["condenser_air_temperature_c"] = self.condenser_air_temperature
@@ -269,6 +271,185 @@ class RoomResult:
             out["existing_unit"] = self.check.to_json()
         out["warnings"] = list(self.loads.warnings) + list(self.warnings)
         return out
+
+
+@dataclass(frozen=True)
+class SystemMember:
+    """One room on a system: its own evaporator.
+
+    Attributes
+    ----------
+    room : str
+        Room name.
+    evaporating_temperature : float
+        The coil's saturated evaporating (dew) temperature [°C].
+    duty : float
+        The coil's (evaporator's) duty: the room's design capacity [W]; the
+        system's diversity applies to the compressor, not to the coils.
+    superheat : float
+        Superheat at the coil outlet [K].
+    mass_flow : float
+        Refrigerant through the coil at the system's design point (duty ×
+        diversity) [kg/s].
+    regulated : bool
+        Behind an evaporator pressure regulator (warmer than the system's coldest coil).
+    """
+
+    room: str
+    evaporating_temperature: float
+    duty: float
+    superheat: float
+    mass_flow: float
+    regulated: bool
+
+    def to_json(self) -> dict[str, Any]:
+        return {
+            "room": self.room,
+            "evaporating_temperature_c": self.evaporating_temperature,
+            "duty_w": self.duty,
+            "superheat_k": self.superheat,
+            "mass_flow_kg_s": self.mass_flow,
+            "evaporator_pressure_regulator": self.regulated,
+        }
+
+
+@dataclass(frozen=True)
+class SystemElectrical:
+    """What the electrician must supply for one system, SI.
+
+    Attributes
+    ----------
+    compressor_input_power : float
+        Compressor electrical input at the design point [W] (overall
+        isentropic efficiency, motor included; :mod:`coldroom.cycle`).
+    evaporator_fan_power, condenser_fan_power : float
+        Electrical input of the fans [W].
+    condenser_fan_basis : str
+        ``given`` or how the condenser fans were estimated.
+    defrost_heater_power : float
+        Electric defrost heaters of all members [W].
+    other_heater_power : float
+        Door-frame, drain-line and other heaters of the members [W].
+    refrigerating_load, defrost_load : float
+        Simultaneous draw while refrigerating and while defrosting [W].
+    compressor_run_time : float
+        Compressor running time per day at the design point [s].
+    daily_energy_parts : tuple of (str, float)
+        Electricity per day by consumer [J].
+    """
+
+    compressor_input_power: float
+    evaporator_fan_power: float
+    condenser_fan_power: float
+    condenser_fan_basis: str
+    defrost_heater_power: float
+    other_heater_power: float
+    refrigerating_load: float
+    defrost_load: float
+    compressor_run_time: float
+    daily_energy_parts: tuple[tuple[str, float], ...]
+
+    @property
+    def connected_load(self) -> float:
+        """The largest simultaneous draw [W]: refrigerating or defrosting."""
+        return max(self.refrigerating_load, self.defrost_load)
+
+    @property
+    def connected_load_case(self) -> str:
+        """``"refrigerating"`` or ``"defrost"``: which case sets the connected load."""
+        return "defrost" if self.defrost_load > self.refrigerating_load else "refrigerating"
+
+    @property
+    def daily_energy(self) -> float:
+        """Electricity used per day [J]."""
+        return sum(energy for _what, energy in self.daily_energy_parts)
+
+
+@dataclass(frozen=True)
+class SystemResult:
+    """One compressor (condensing unit) and the rooms it serves, SI.
+
+    Attributes
+    ----------
+    name : str
+        System name (a room's name for a room in no ``systems`` entry).
+    members : tuple of SystemMember
+        The rooms, in the order the system lists them.
+    refrigerant : str
+        Catalogue name.
+    suction_temperature : float
+        Saturated (dew) temperature at the compressor suction [°C]: the
+        coldest member's evaporating temperature less the suction-line drop.
+    condensing_temperature : float or None
+        Condensing dew temperature [°C]; ``None`` when transcritical.
+    condenser_air_temperature : float
+        Air entering the condenser [°C].
+    suction_line_drop : float
+        Suction-line loss as saturation temperature [K].
+    diversity : float
+        Share of the members' summed design capacity the system is sized for [-].
+    design_capacity : float
+        Σ member design capacities × diversity [W].
+    cycle : CycleResult
+        The cycle at the system's suction and condensing temperatures.
+    electrical : SystemElectrical
+    warnings : tuple of str
+    """
+
+    name: str
+    members: tuple[SystemMember, ...]
+    refrigerant: str
+    suction_temperature: float
+    condensing_temperature: Optional[float]
+    condenser_air_temperature: float
+    suction_line_drop: float
+    diversity: float
+    design_capacity: float
+    cycle: Any
+    electrical: SystemElectrical
+    warnings: tuple[str, ...] = ()
+
+    @property
+    def rooms(self) -> tuple[str, ...]:
+        return tuple(member.room for member in self.members)
+
+    @property
+    def heat_of_rejection(self) -> float:
+        """Condenser duty [W]."""
+        return self.cycle.condenser_duty
+
+    def to_json(self) -> dict[str, Any]:
+        """JSON object; the keys the systems contract names, plus the working behind them."""
+        e = self.electrical
+        return {
+            "name": self.name,
+            "rooms": list(self.rooms),
+            "refrigerant": self.refrigerant,
+            "suction_temperature_c": self.suction_temperature,
+            "condensing_temperature_c": self.condensing_temperature,
+            "condenser_air_temperature_c": self.condenser_air_temperature,
+            "suction_line_drop_k": self.suction_line_drop,
+            "diversity": self.diversity,
+            "design_capacity_w": self.design_capacity,
+            "heat_of_rejection_w": self.heat_of_rejection,
+            "cycle": self.cycle.to_json(),
+            "members": [member.to_json() for member in self.members],
+            "compressor_input_power_w": e.compressor_input_power,
+            "compressor_input_power_basis": "overall isentropic efficiency on the electrical input (motor included)",
+            "evaporator_fan_power_w": e.evaporator_fan_power,
+            "condenser_fan_power_w": e.condenser_fan_power,
+            "condenser_fan_power_basis": e.condenser_fan_basis,
+            "defrost_heater_power_w": e.defrost_heater_power,
+            "other_heater_power_w": e.other_heater_power,
+            "refrigerating_load_w": e.refrigerating_load,
+            "defrost_load_w": e.defrost_load,
+            "connected_load_w": e.connected_load,
+            "connected_load_case": e.connected_load_case,
+            "compressor_run_hours_per_day": e.compressor_run_time / 3600.0,
+            "electricity_kwh_per_day": e.daily_energy / 3.6e6,
+            "electricity_kwh_per_day_by_use": {what: energy / 3.6e6 for what, energy in e.daily_energy_parts},
+            "warnings": list(self.warnings),
+        }
 
 
 @dataclass(frozen=True)
@@ -286,6 +467,7 @@ class ProjectResult:
     rooms: tuple[RoomResult, ...]
     warnings: tuple[str, ...] = ()
     versions: dict[str, str] = field(default_factory=dict)
+    systems: tuple[SystemResult, ...] = ()
 
     def to_json(self) -> dict[str, Any]:
         return {
@@ -300,6 +482,7 @@ class ProjectResult:
                 "input_sha256": self.input_sha256,
             },
             "versions": dict(self.versions),
+            "systems": [system.to_json() for system in self.systems],
             "rooms": [room.to_json() for room in self.rooms],
             "warnings": list(self.warnings),
         }

@@ -14,12 +14,18 @@ For every room:
    bulb) plus a condenser TD (:data:`DEFAULT_CONDENSER_TD`, [trade] 8–15 K for
    air-cooled condensers) unless the project gives
    ``refrigeration.condenser_td``;
-4. one condensing unit per room: :func:`coldroom.cycle.solve_cycle` at those
-   temperatures and the design capacity, with the superheat, subcooling,
-   isentropic efficiency and clearance of the room's ``refrigeration`` block
-   (defaults documented in :class:`coldroom.projectfile.Refrigeration`:
-   superheat 5 K, suction-line superheat 5 K, subcooling 2 K, isentropic
-   efficiency 0.65, clearance 0.04 — common practice, no source).
+4. one compressor per system (:func:`size_system`; a room in no ``systems``
+   entry is a system of its own): :func:`coldroom.cycle.solve_system_cycle`
+   at the coldest member's evaporating temperature less the suction-line drop,
+   the system's condensing temperature and the system design capacity (Σ
+   member design capacities × diversity, :mod:`coldroom.systems`), the warmer
+   members' vapour mixed into the suction behind EPRs; superheat from each
+   room's ``refrigeration`` block, subcooling, isentropic efficiency and
+   clearance from the system's (defaults documented in
+   :class:`coldroom.projectfile.Refrigeration`: superheat 5 K, suction-line
+   superheat 5 K, subcooling 2 K, overall isentropic efficiency 0.65,
+   clearance 0.04 — common practice, no source);
+5. the system's electrical figures (:func:`coldroom.systems.electrical_figures`).
 
 Temperatures are in °C here (the trade states TDs against °C room
 temperatures); capacities in W.
@@ -51,7 +57,8 @@ from coldroom.errors import CalculationError
 
 if TYPE_CHECKING:  # pragma: no cover
     from coldroom.projectfile import ProjectModel, Room
-    from coldroom.results import ProjectResult, RoomLoads, RoomResult
+    from coldroom.results import ProjectResult, RoomLoads, RoomResult, SystemResult
+    from coldroom.systems import MemberDraw
 
 TD_SOURCE = "trade practice, evaporator TD vs room RH [trade]"
 
@@ -299,6 +306,23 @@ def _basis(model: "ProjectModel", room: "Room", loads: "RoomLoads", temps: Desig
     for key, sides in used.items():
         u_text = show(u_of[key], "u_value", system, 3 if system == "SI" else 4)
         add((f"Construction: {desc[key]}", f"U {u_text} ({', '.join(sides)})"))
+    neighbours = []
+    for side in ("north", "east", "south", "west", "ceiling", "floor"):
+        surface = room.envelope.side(side)
+        if surface.facing in ("space", "roof_void", "room"):
+            beyond = model.room_named(surface.room).temperature if surface.facing == "room" else surface.temperature
+            if beyond is not None and beyond < room.temperature:
+                neighbours.append(f"{side} {'credited (credit: true)' if surface.credit else 'not credited'}")
+    if any(room.envelope.side(x).facing in ("space", "roof_void", "room") for x in ("north", "east", "south", "west",
+                                                                                 "ceiling", "floor")):
+        add(
+            (
+                "Construction: heat lost to a colder neighbour",
+                "not credited unless the surface says credit: true (the neighbour may be off, defrosting or "
+                "emptied); the colder room always counts what it gains"
+                + (f" — here: {', '.join(neighbours)}" if neighbours else ""),
+            )
+        )
     for door in room.doors:
         w = show(door.width, "length", system)
         h = show(door.height, "length", system)
@@ -306,7 +330,8 @@ def _basis(model: "ProjectModel", room: "Room", loads: "RoomLoads", temps: Desig
             (
                 f"Door: {door.name}",
                 f"{w} × {h}, {door.passages_per_day:g} passages/day, open {door.open_time / 60:g} min/day, "
-                f"{door.protection.replace('_', ' ')}",
+                f"{door.protection.replace('_', ' ')}"
+                + (f"; into room {door.to_room} (its design temperature and RH)" if door.to_room else ""),
             )
         )
     if room.infiltration.method == "air_changes":
@@ -361,61 +386,183 @@ def _basis(model: "ProjectModel", room: "Room", loads: "RoomLoads", temps: Desig
     return tuple(rows)
 
 
-def size_room(model: "ProjectModel", room: "Room") -> "RoomResult":
-    """Loads, design temperatures and the cycle for one room.
+def _member_draw(room: "Room", loads: "RoomLoads") -> "MemberDraw":
+    """The electrical consumers of one room: evaporator fans, heaters, electric defrost."""
+    from coldroom.systems import MemberDraw
+
+    fans = room.fans
+    fan_power = fans.power * fans.count if fans is not None and fans.hours > 0 else 0.0
+    heaters = [a for a in room.appliances if a.kind == "heater" and a.hours > 0]
+    d = room.defrost
+    electric = d.type == "electric" and d.per_day > 0
+    return MemberDraw(
+        daily_heat_gain=loads.daily_energy,
+        evaporator_fan_power=fan_power,
+        evaporator_fan_time=fans.hours if fans is not None else 0.0,
+        heater_power=sum(a.power * a.count for a in heaters),
+        heater_energy=sum(a.power * a.count * a.hours for a in heaters),
+        defrost_heater_power=d.heater_power if electric else 0.0,
+        defrost_time=d.per_day * d.duration if electric else 0.0,
+    )
+
+
+def size_system(
+    model: "ProjectModel", name: str, indices: tuple[int, ...], diversity: float = 1.0
+) -> tuple["SystemResult", tuple["RoomResult", ...]]:
+    """Loads of the member rooms, the system's cycle and electrical figures, and each room's result.
+
+    Parameters
+    ----------
+    model : ProjectModel
+    name : str
+        The system's name.
+    indices : tuple of int
+        The member rooms' places in ``model.rooms``.
+    diversity : float
+        Share of the members' summed design capacity the system is sized for [-].
 
     Raises
     ------
     CalculationError
-        The cycle cannot be solved; the message names the room.
+        The cycle cannot be solved; the message names the room (one member) or the system.
     """
-    from coldroom.cycle import solve_cycle
+    from coldroom import cycle as _cycle
+    from coldroom import systems
     from coldroom.data import refrigerants
     from coldroom.equipment import check_room
     from coldroom.loads import room_loads
-    from coldroom.results import Note, RoomResult
+    from coldroom.results import Note, RoomResult, SystemMember, SystemResult
 
-    loads = room_loads(model, room)
-    r = model.refrigeration_for(room)
-    temps = room_design_temperatures(model, room)
+    rooms = [model.rooms[i] for i in indices]
+    loads = [room_loads(model, room) for room in rooms]
+    temps = [room_design_temperatures(model, room) for room in rooms]
+    settings = [model.refrigeration_for(room) for room in rooms]
+    r = settings[0]  # the condensing settings are the system's, the same for every member
     info = refrigerants.lookup(r.refrigerant)
-    condensing: Optional[float] = temps.condensing_temperature
+    capacity = systems.system_design_capacity([x.design_capacity for x in loads], diversity)
+    suction = systems.suction_temperature([t.evaporating_temperature for t in temps], r.suction_line_drop)
+    condensing: Optional[float] = temps[0].condensing_temperature
+    air = temps[0].condenser_air_temperature
     gas_cooler: Optional[float] = None
     if info.name == "R-744" and condensing >= TRANSCRITICAL_FROM:
         # transcritical: no condensing temperature; gas-cooler outlet = air + approach
-        condensing, gas_cooler = None, temps.condenser_air_temperature + GAS_COOLER_APPROACH
+        condensing, gas_cooler = None, air + GAS_COOLER_APPROACH
+    coils = [
+        (t.evaporating_temperature, s.superheat, x.design_capacity * diversity)
+        for t, s, x in zip(temps, settings, loads)
+    ]
     try:
-        cycle = solve_cycle(
+        cyc = _cycle.solve_system_cycle(
             info.name,
-            temps.evaporating_temperature,
+            coils,
             condensing,
-            loads.design_capacity,
-            superheat=r.superheat,
             subcooling=r.subcooling,
             isentropic_efficiency=r.isentropic_efficiency,
             suction_line_superheat=r.suction_line_superheat,
+            suction_pressure_drop=r.suction_line_drop,
             clearance=r.clearance,
             gas_cooler_outlet_temperature=gas_cooler,
         )
     except CalculationError as exc:
+        who = f"room {rooms[0].name!r}" if len(rooms) == 1 else f"system {name!r}"
         raise type(exc)(
-            f"room {room.name!r}: the {info.name} cycle at evaporating {temps.evaporating_temperature:.1f} °C / "
-            f"condensing {temps.condensing_temperature:.1f} °C cannot be sized: {exc}"
+            f"{who}: the {info.name} cycle at evaporating {min(c[0] for c in coils):.1f} °C / "
+            f"condensing {temps[0].condensing_temperature:.1f} °C cannot be sized: {exc}"
         ) from None
-    warnings = [
-        w.prefixed(f"{room.name}: ") if isinstance(w, Note) else f"{room.name}: {w}"
-        for w in getattr(cycle, "warnings", ()) or ()
-    ]
-    return RoomResult(
-        loads=loads,
-        evaporating_temperature=temps.evaporating_temperature,
-        condensing_temperature=condensing,
-        condenser_air_temperature=temps.condenser_air_temperature,
-        sizing_basis=_basis(model, room, loads, temps),
-        cycle=cycle,
-        check=check_room(model, room, loads),
-        warnings=tuple(warnings),
+    coldest = min(t.evaporating_temperature for t in temps)
+    members = tuple(
+        SystemMember(
+            room=room.name,
+            evaporating_temperature=t.evaporating_temperature,
+            duty=x.design_capacity,
+            superheat=s.superheat,
+            mass_flow=flow,
+            regulated=t.evaporating_temperature > coldest,
+        )
+        for room, t, s, x, flow in zip(rooms, temps, settings, loads, cyc.evaporator_flows)
     )
+    electrical = systems.electrical_figures(
+        cyc.compressor_power,
+        capacity,
+        systems.condenser_fan_power(cyc.condenser_duty, r.condenser_fan_power),
+        [_member_draw(room, x) for room, x in zip(rooms, loads)],
+    )
+    prefix = f"{rooms[0].name}: " if len(rooms) == 1 else f"system {name}: "
+    warnings = tuple(
+        w.prefixed(prefix) if isinstance(w, Note) else f"{prefix}{w}" for w in getattr(cyc, "warnings", ()) or ()
+    )
+    if electrical.compressor_run_time >= systems.DAY:
+        warnings += (
+            f"{prefix}at {diversity:.0%} diversity the design capacity cannot remove the rooms' daily heat in 24 h",
+        )
+    system = SystemResult(
+        name=name,
+        members=members,
+        refrigerant=info.name,
+        suction_temperature=suction,
+        condensing_temperature=condensing,
+        condenser_air_temperature=air,
+        suction_line_drop=r.suction_line_drop,
+        diversity=diversity,
+        design_capacity=capacity,
+        cycle=cyc,
+        electrical=electrical,
+        warnings=warnings,
+    )
+    results = tuple(
+        RoomResult(
+            loads=x,
+            evaporating_temperature=t.evaporating_temperature,
+            condensing_temperature=condensing,
+            condenser_air_temperature=air,
+            sizing_basis=_basis(model, room, x, t) + _system_basis(model, system),
+            cycle=cyc if len(rooms) == 1 else None,
+            check=check_room(model, room, x),
+            warnings=warnings if len(rooms) == 1 else (),
+            system=name,
+        )
+        for room, x, t in zip(rooms, loads, temps)
+    )
+    return system, results
+
+
+def _system_basis(model: "ProjectModel", system: "SystemResult") -> tuple:
+    """Sizing-basis rows about the room's system (only for a system of several rooms or with a drop)."""
+    if len(system.members) == 1 and system.suction_line_drop == 0.0 and system.diversity == 1.0:
+        return ()
+    show = _units.display
+    units = model.project.units
+    rows = [
+        (
+            "System: condensing unit",
+            f"{system.name}, serving {', '.join(system.rooms)}",
+        ),
+        (
+            "System: suction (dew)",
+            f"{show(system.suction_temperature, 'temperature', units)} = coldest evaporating temperature less the "
+            f"suction-line drop {show(system.suction_line_drop, 'temperature_difference', units)}",
+        ),
+    ]
+    if len(system.members) > 1:
+        rows.append(("System: warmer rooms", "evaporator pressure regulator; vapour mixed into the suction"))
+    if system.diversity != 1.0:
+        rows.append(("System: diversity", f"{system.diversity:.0%} of the rooms' summed design capacity"))
+    return tuple(rows)
+
+
+def size_room(model: "ProjectModel", room: "Room") -> "RoomResult":
+    """Loads, design temperatures and the cycle for one room (sized with the rest of its system).
+
+    Raises
+    ------
+    CalculationError
+        The cycle cannot be solved; the message names the room or its system.
+    """
+    for name, entry, indices in model.system_groups():
+        if model.rooms.index(room) in indices:
+            _system, rooms = size_system(model, name, indices, entry.diversity if entry is not None else 1.0)
+            return rooms[indices.index(model.rooms.index(room))]
+    raise CalculationError(f"room {room.name!r} is not in the project")  # pragma: no cover
 
 
 def size_project(model: "ProjectModel", input_path: str, input_bytes: bytes) -> "ProjectResult":
@@ -442,7 +589,13 @@ def size_project(model: "ProjectModel", input_path: str, input_bytes: bytes) -> 
     from coldroom.checks import project_warnings
     from coldroom.results import ProjectResult
 
-    rooms = tuple(size_room(model, room) for room in model.rooms)
+    by_index: dict[int, "RoomResult"] = {}
+    systems = []
+    for name, entry, indices in model.system_groups():
+        system, members = size_system(model, name, indices, entry.diversity if entry is not None else 1.0)
+        systems.append(system)
+        by_index.update(zip(indices, members))
+    rooms = tuple(by_index[i] for i in range(len(model.rooms)))
     info = model.project
     return ProjectResult(
         project_name=info.name,
@@ -456,4 +609,5 @@ def size_project(model: "ProjectModel", input_path: str, input_bytes: bytes) -> 
         rooms=rooms,
         warnings=tuple(message for _key, message in project_warnings(model)),
         versions=versions(),
+        systems=tuple(systems),
     )

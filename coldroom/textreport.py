@@ -2,9 +2,12 @@
 
 from __future__ import annotations
 
-from typing import Sequence
+from typing import TYPE_CHECKING, Sequence
 
 from coldroom.results import COMPONENTS, RoomLoads
+
+if TYPE_CHECKING:  # pragma: no cover
+    from coldroom.results import SystemResult
 from coldroom.units import display, format_number, format_terms
 
 
@@ -71,3 +74,78 @@ def loads_report(rooms: Sequence[RoomLoads], system: str, temperatures: Sequence
         for warning in loads.warnings:
             parts.append(f"  warning: {format_terms(warning, system)}")
     return "\n\n".join(parts)
+
+
+def electrical_text(watts: float) -> str:
+    """An electrical figure: W below 1 kW, else kW, in either unit system (electricians work in kW).
+
+    Examples
+    --------
+    >>> electrical_text(2310.0), electrical_text(150.0)
+    ('2.31 kW', '150 W')
+    """
+    return display(watts, "power_large", "SI", 2) if abs(watts) >= 1000 else display(watts, "power", "SI", 0)
+
+
+def systems_report(systems: Sequence["SystemResult"], system: str) -> str:
+    """The per-system table of ``coldroom size``: one row per system, a total row, then each system's working."""
+    def temp(value: float | None) -> str:
+        return "–" if value is None else display(value, "temperature", system, 1)
+
+    rows = []
+    for s in systems:
+        e = s.electrical
+        rows.append(
+            [
+                s.name,
+                ", ".join(s.rooms),
+                s.refrigerant,
+                f"{temp(s.suction_temperature)} / {temp(s.condensing_temperature)}",
+                power_text(s.design_capacity, system),
+                electrical_text(e.compressor_input_power),
+                power_text(s.heat_of_rejection, system),
+                electrical_text(e.connected_load),
+                format_number(e.daily_energy / 3.6e6, 1),
+            ]
+        )
+    if len(systems) > 1:
+        rows.append(
+            [
+                "total",
+                "",
+                "",
+                "",
+                power_text(sum(s.design_capacity for s in systems), system),
+                electrical_text(sum(s.electrical.compressor_input_power for s in systems)),
+                power_text(sum(s.heat_of_rejection for s in systems), system),
+                electrical_text(sum(s.electrical.connected_load for s in systems)),
+                format_number(sum(s.electrical.daily_energy for s in systems) / 3.6e6, 1),
+            ]
+        )
+    headers = [
+        "system", "rooms", "refrigerant", "SST / SCT (dew)", "design capacity", "compressor input",
+        "heat of rejection", "connected load", "kWh/day",
+    ]
+    lines = [table(headers, rows, "llllrrrrr")]
+    for s in systems:
+        e = s.electrical
+        if len(s.members) > 1:
+            coils = "; ".join(
+                f"{m.room} {temp(m.evaporating_temperature)} {power_text(m.duty, system)}"
+                + (" behind an EPR" if m.regulated else "")
+                for m in s.members
+            )
+            lines.append(f"{s.name}: coils {coils}; vapour mixed into the suction")
+        case = (
+            f"defrost: heaters {electrical_text(e.defrost_heater_power)} + evaporator fans "
+            f"{electrical_text(e.evaporator_fan_power)} + other heaters {electrical_text(e.other_heater_power)}"
+            if e.connected_load_case == "defrost"
+            else f"refrigerating: compressor {electrical_text(e.compressor_input_power)} + condenser fans "
+            f"{electrical_text(e.condenser_fan_power)} + evaporator fans {electrical_text(e.evaporator_fan_power)}"
+            f" + heaters {electrical_text(e.other_heater_power)}"
+        )
+        lines.append(
+            f"{s.name}: connected load {electrical_text(e.connected_load)} ({case}); compressor runs "
+            f"{e.compressor_run_time / 3600:.1f} h/day"
+        )
+    return "\n".join(lines)

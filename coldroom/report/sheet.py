@@ -249,28 +249,194 @@ def title_section(ctx: SheetContext) -> list:
     ]
 
 
+def _room_system(ctx: SheetContext, index: int) -> Any:
+    """The system result serving room *index* (None for results without systems)."""
+    name = ctx.result.rooms[index].system
+    return next((system for system in getattr(ctx.result, "systems", ()) if system.name == name), None)
+
+
+def _electrical(watts: float) -> str:
+    """Electrical power: W below 1 kW, else kW, in both unit systems (electricians work in kW)."""
+    from coldroom.textreport import electrical_text
+
+    return clean(electrical_text(watts))
+
+
+def systems_overview_section(ctx: SheetContext) -> list:
+    """The whole job: one row per system (compressor / condensing unit) and a total row."""
+    systems = getattr(ctx.result, "systems", ())
+    if not systems:
+        return []
+    s = ctx.system
+    rows: list[list[str]] = [
+        ["System", "Rooms", "Refrigerant", "SST / SCT (dew)", "Design capacity", "Electrical input",
+         "Heat of rejection"]
+    ]
+    for system in systems:
+        rows.append(
+            [
+                system.name,
+                ", ".join(system.rooms),
+                system.refrigerant,
+                f"{temperature(system.suction_temperature, s)} / {temperature(system.condensing_temperature, s)}",
+                capacity(system.design_capacity, s),
+                _electrical(system.electrical.compressor_input_power),
+                capacity(system.heat_of_rejection, s),
+            ]
+        )
+    rows.append(
+        [
+            f"Total, {len(systems)} system{'s' if len(systems) != 1 else ''}",
+            f"{len(ctx.result.rooms)} room{'s' if len(ctx.result.rooms) != 1 else ''}",
+            "",
+            "",
+            capacity(sum(x.design_capacity for x in systems), s),
+            _electrical(sum(x.electrical.compressor_input_power for x in systems)),
+            capacity(sum(x.heat_of_rejection for x in systems), s),
+        ]
+    )
+    w = ctx.width
+    widths = [0.13 * w, 0.17 * w, 0.115 * w, 0.165 * w, 0.135 * w, 0.13 * w, 0.155 * w]
+    return [
+        heading("The job: systems", H3),
+        note(
+            "One compressor or condensing unit per system. Electrical input is the compressor's, at the design "
+            "point (overall isentropic efficiency, motor included).",
+            TINY,
+        ),
+        Spacer(1, 2),
+        grid(rows, widths, align_right=(4, 5, 6), total_rows=(len(rows) - 1,)),
+        Spacer(1, 4),
+    ]
+
+
 def summary_section(ctx: SheetContext) -> list:
     """One line per room: the figures needed to pick the equipment."""
     s = ctx.system
     rows: list[list[str]] = [
-        ["Room", "Conditions", "Design capacity", "Refrigerant", "SST / SCT (dew)", "Compressor power", "Heat of rejection"]
+        ["Room", "Conditions", "Design capacity", "Refrigerant", "SST / SCT (dew)", "Compressor input", "Heat of rejection"]
     ]
     for i, room in enumerate(ctx.result.rooms):
         cyc = _room_cycle(ctx, i) or {}
+        system = _room_system(ctx, i)
+        shared = f"on {system.name}" if system is not None and not cyc else "–"
         rows.append(
             [
                 room.name,
                 _room_conditions(ctx, i) or "–",
                 capacity(room.loads.design_capacity, s),
-                str(cyc.get("refrigerant", "–")),
+                str(cyc.get("refrigerant", system.refrigerant if system is not None else "–")),
                 f"{temperature(room.evaporating_temperature, s)} / {temperature(room.condensing_temperature, s)}",
-                capacity(cyc["compressor_power_w"], s) if cyc else "–",
-                capacity(cyc["condenser_duty_w"], s) if cyc else "–",
+                capacity(cyc["compressor_power_w"], s) if cyc else shared,
+                capacity(cyc["condenser_duty_w"], s) if cyc else shared,
             ]
         )
     w = ctx.width
     widths = [0.15 * w, 0.17 * w, 0.13 * w, 0.11 * w, 0.17 * w, 0.135 * w, 0.135 * w]
-    return [heading("Summary", H3), grid(rows, widths, align_right=(2, 5, 6)), Spacer(1, 4)]
+    return [heading("Rooms", H3), grid(rows, widths, align_right=(2, 5, 6)), Spacer(1, 4)]
+
+
+def system_details_section(ctx: SheetContext) -> list:
+    """Per system: the coils it serves and what the electrician must supply."""
+    systems = getattr(ctx.result, "systems", ())
+    if not systems:
+        return []
+    s = ctx.system
+    w = ctx.width
+    out: list = [heading("Systems: coils and electrical supply", H3)]
+    shared = [system for system in systems if len(system.members) > 1]
+    if shared:
+        rows = [["System", "Room (coil)", "Evaporating (dew)", "Evaporator duty", "Mass flow", "Suction control"]]
+        for system in shared:
+            for m in system.members:
+                rows.append(
+                    [
+                        system.name,
+                        m.room,
+                        temperature(m.evaporating_temperature, s),
+                        capacity(m.duty, s),
+                        q(m.mass_flow, "mass_flow", s),
+                        "EPR to the suction; vapour mixed in" if m.regulated else "sets the suction",
+                    ]
+                )
+            rows.append(
+                [
+                    system.name,
+                    "compressor suction",
+                    temperature(system.suction_temperature, s),
+                    capacity(system.design_capacity, s),
+                    q(system.cycle.mass_flow, "mass_flow", s),
+                    f"coldest coil less {q(system.suction_line_drop, 'temperature_difference', s)} suction-line drop"
+                    + (f"; diversity {system.diversity:.0%}" if system.diversity != 1.0 else ""),
+                ]
+            )
+        out += [
+            grid(rows, [0.11 * w, 0.17 * w, 0.14 * w, 0.14 * w, 0.13 * w, 0.31 * w], align_right=(2, 3, 4)),
+            Spacer(1, 4),
+        ]
+    for start in range(0, len(systems), 4):
+        chunk = systems[start : start + 4]
+        col = 0.64 * w / len(chunk)
+        e = [x.electrical for x in chunk]
+        rows = [
+            ["Electrical", *(x.name for x in chunk)],
+            ["Compressor electrical input", *(_electrical(x.compressor_input_power) for x in e)],
+            ["Evaporator fans", *(_electrical(x.evaporator_fan_power) for x in e)],
+            ["Condenser fans", *(_electrical(x.condenser_fan_power) + ("" if x.condenser_fan_basis.startswith("given")
+                                  else " (est.)") for x in e)],
+            ["Door-frame, drain-line and other heaters", *(_electrical(x.other_heater_power) for x in e)],
+            ["Electric defrost heaters", *(_electrical(x.defrost_heater_power) for x in e)],
+            ["Draw while refrigerating (compressor, fans, heaters)", *(_electrical(x.refrigerating_load) for x in e)],
+            ["Draw while defrosting (defrost heaters, fans, heaters)", *(_electrical(x.defrost_load) for x in e)],
+            ["Compressor run time at design capacity", *(f"{x.compressor_run_time / 3600:.1f} h/day" for x in e)],
+            ["Electricity per day", *(f"{x.daily_energy / 3.6e6:.1f} kWh" for x in e)],
+            ["Connected load (the larger draw)", *(f"{_electrical(x.connected_load)} ({x.connected_load_case})" for x in e)],
+        ]
+        out += [grid(rows, [0.36 * w] + [col] * len(chunk), align_right=tuple(range(1, len(chunk) + 1)),
+                     total_rows=(len(rows) - 1,)), Spacer(1, 3)]
+    out.append(
+        note(
+            "Connected load: the larger of compressor + condenser fans + evaporator fans + heaters, and all the "
+            "system's electric defrost heaters at once with the fans and heaters (compressor stopped). "
+            "Electricity per day: the compressor and condenser fans for the time the design capacity needs to "
+            "remove the day's heat gain (design-point COP, no part-load correction); fans and heaters for their "
+            "hours; defrost heaters for defrosts x duration. Condenser fans marked (est.) are 20 W per kW "
+            "rejected [trade]. Supply, protection and cabling to the electrical codes by a qualified person.",
+            TINY,
+        )
+    )
+    return out
+
+
+def system_cycles_section(ctx: SheetContext) -> list:
+    """The cycle of each system of several rooms (one-room systems show theirs on the room's page)."""
+    out: list = []
+    for k, system in enumerate(getattr(ctx.result, "systems", ())):
+        if len(system.members) < 2:
+            continue
+        key = ("system cycle", k)
+        if key not in ctx.cache:
+            ctx.cache[key] = system.cycle.to_json()
+        cyc = ctx.cache[key]
+        out.append(PageBreak())
+        out.append(heading(f"System {system.name}: {', '.join(system.rooms)}", H2))
+        s = ctx.system
+        boxes = [
+            ("Design capacity", capacity(system.design_capacity, s),
+             f"sum of the rooms' design capacities x {system.diversity:.0%}"),
+            ("SST / SCT (dew)", f"{temperature(system.suction_temperature, s)} / "
+             f"{temperature(system.condensing_temperature, s)}",
+             f"condenser air {temperature(system.condenser_air_temperature, s)}"),
+            ("Electrical input", _electrical(system.electrical.compressor_input_power), f"COP {cyc['cop']:.2f}"),
+            ("Heat of rejection", capacity(system.heat_of_rejection, s), "condenser duty"),
+        ]
+        out += [figure_boxes(ctx, boxes), Spacer(1, 4)]
+        out += _duties_and_cycle(ctx, system.cycle, cyc,
+                                 "State 1 is the warmer coils' vapour (through their EPRs) mixed with the "
+                                 "coldest coil's, then the suction-line superheat and drop.")
+        if system.warnings:
+            out += [heading("Check these"), *_warning_box(ctx, system.warnings)]
+    return out
 
 
 def project_warnings_section(ctx: SheetContext) -> list:
@@ -324,9 +490,12 @@ def room_title_section(ctx: SheetContext, index: int) -> list:
             f"room air {cond}" if cond else "",
         ),
     ]
+    system = _room_system(ctx, index)
+    if not cyc and system is not None:
+        boxes += [("Condensing unit", system.name, f"shared with {len(system.members) - 1} other room(s)")]
     if cyc:
         boxes += [
-            ("Compressor power", capacity(cyc["compressor_power_w"], s), f"COP {cyc['cop']:.2f}"),
+            ("Compressor input", capacity(cyc["compressor_power_w"], s), f"COP {cyc['cop']:.2f}"),
             ("Heat of rejection", capacity(cyc["condenser_duty_w"], s),
              f"condenser air {temperature(room.condenser_air_temperature, s)}"),
         ]
@@ -451,42 +620,72 @@ def duties_section(ctx: SheetContext, index: int) -> list:
     air = temperature(room.condenser_air_temperature, s)
     room_in = ctx.room_input(index)
     room_air = temperature(room_in.temperature, s) if room_in is not None else "the room air"
+    system = _room_system(ctx, index)
     rows = [
         ["Equipment", "Required duty", "At"],
         ["Evaporator (unit cooler)", cap, f"evaporating {te} (dew), air on {room_air}"],
-        ["Condensing unit", cap, f"SST {te} / SCT {tc} (dew), condenser air {air}"],
     ]
+    if system is not None and len(system.members) > 1:
+        others = ", ".join(name for name in system.rooms if name != room.name)
+        rows.append(
+            [
+                f"Condensing unit: system {system.name}",
+                capacity(system.design_capacity, s),
+                f"shared with {others}; SST {temperature(system.suction_temperature, s)} / SCT {tc} (dew)"
+                + ("; this coil behind an evaporator pressure regulator" if any(
+                    m.regulated for m in system.members if m.room == room.name) else ""),
+            ]
+        )
+    else:
+        rows.append(["Condensing unit", cap, f"SST {te} / SCT {tc} (dew), condenser air {air}"])
     if cyc:
         rows.append(["Condenser: heat of rejection", capacity(cyc["condenser_duty_w"], s), f"SCT {tc}, air on {air}"])
     w = ctx.width
     out = [heading("Required equipment duties"), grid(rows, [0.3 * w, 0.22 * w, 0.48 * w], align_right=(1,))]
     if cyc:
-        perf = [
-            ["Compressor figures", "Value"],
-            ["Refrigerant", str(cyc.get("refrigerant", "–"))],
-            ["Mass flow", q(cyc["mass_flow_kg_s"], "mass_flow", s)],
-            ["Suction volume flow (state 1)", q(cyc["suction_volume_flow_m3_h"] / 3600.0, "volume_flow", s)],
-            ["Compressor displacement (swept volume)", q(cyc["displacement_m3_h"] / 3600.0, "volume_flow", s)],
-            ["Compressor power (shaft)", capacity(cyc["compressor_power_w"], s)],
-            ["Discharge temperature", temperature(cyc["discharge_temperature_c"], s)],
-            ["Pressure ratio", f"{cyc['pressure_ratio']:.2f}"],
-            ["COP (cooling / compressor power)", f"{cyc['cop']:.2f}"],
-        ]
-        out += [Spacer(1, 4), grid(perf, [0.52 * w, 0.48 * w], align_right=(1,))]
+        out += [Spacer(1, 4), _compressor_figures(ctx, cyc)]
     return [KeepTogether(out)]
+
+
+def _compressor_figures(ctx: SheetContext, cyc: dict) -> Any:
+    """Mass flow, volume flows, electrical input, discharge temperature, pressure ratio and COP."""
+    s = ctx.system
+    w = ctx.width
+    perf = [
+        ["Compressor figures", "Value"],
+        ["Refrigerant", str(cyc.get("refrigerant", "–"))],
+        ["Mass flow", q(cyc["mass_flow_kg_s"], "mass_flow", s)],
+        ["Suction volume flow (state 1)", q(cyc["suction_volume_flow_m3_h"] / 3600.0, "volume_flow", s)],
+        ["Compressor displacement (swept volume)", q(cyc["displacement_m3_h"] / 3600.0, "volume_flow", s)],
+        ["Compressor electrical input (overall isentropic efficiency)", capacity(cyc["compressor_power_w"], s)],
+        ["Discharge temperature", temperature(cyc["discharge_temperature_c"], s)],
+        ["Pressure ratio", f"{cyc['pressure_ratio']:.2f}"],
+        ["COP (cooling / compressor power)", f"{cyc['cop']:.2f}"],
+    ]
+    return grid(perf, [0.52 * w, 0.48 * w], align_right=(1,))
+
+
+def _duties_and_cycle(ctx: SheetContext, cycle: Any, cyc: dict, remark: str) -> list:
+    """A system's compressor figures, state table and p–h chart."""
+    return [KeepTogether([heading("Compressor"), _compressor_figures(ctx, cyc)]), *_cycle_flowables(ctx, cycle, remark)]
 
 
 def cycle_section(ctx: SheetContext, index: int) -> list:
     """The cycle's states and the pressure–enthalpy chart (on a page of their own when needed)."""
-    from coldroom.report.phchart import state_rows
-
     cycle = ctx.result.rooms[index].cycle
     if cycle is None:
         return []
+    return _cycle_flowables(ctx, cycle)
+
+
+def _cycle_flowables(ctx: SheetContext, cycle: Any, remark: str = "") -> list:
+    """State table and p–h chart of a solved cycle (a room's, or a system's of several rooms)."""
+    from coldroom.report.phchart import state_rows
+
     w = ctx.width
     rows = state_rows(cycle, ctx.system)
     table = grid(rows, [0.25 * w, 0.15 * w, 0.14 * w, 0.16 * w, 0.18 * w, 0.12 * w], align_right=(1, 2, 3, 4, 5))
-    chart = _ph_chart(ctx, index)
+    chart = _ph_chart(ctx, cycle)
     return [
         CondPageBreak(ctx.width * 0.95),
         KeepTogether(
@@ -494,7 +693,8 @@ def cycle_section(ctx: SheetContext, index: int) -> list:
                 heading("Refrigerant cycle"),
                 note(
                     "Pressures absolute. Enthalpy and entropy in the default reference state of the property "
-                    "library (IIR for halocarbons); quality shown only inside the two-phase region.",
+                    "library (IIR for halocarbons); quality shown only inside the two-phase region."
+                    + (f" {remark}" if remark else ""),
                     TINY,
                 ),
                 Spacer(1, 2),
@@ -506,11 +706,10 @@ def cycle_section(ctx: SheetContext, index: int) -> list:
     ]
 
 
-def _ph_chart(ctx: SheetContext, index: int) -> Any:
+def _ph_chart(ctx: SheetContext, cycle: Any) -> Any:
     from coldroom.errors import ColdroomError
     from coldroom.report.phchart import ph_chart
 
-    cycle = ctx.result.rooms[index].cycle
     try:
         return ph_chart(cycle, ctx.system, ctx.width, ctx.width * 0.78,
                         title=f"Pressure–enthalpy chart, {cycle.refrigerant}")
@@ -533,11 +732,13 @@ def safety_cautions(ctx: SheetContext, index: int) -> list[str]:
 
     room = ctx.result.rooms[index]
     cyc = _room_cycle(ctx, index) or {}
+    system = _room_system(ctx, index)
+    refrigerant = cyc.get("refrigerant") or (system.refrigerant if system is not None else None)
     cautions: list[str] = []
     info = None
-    if cyc.get("refrigerant"):
+    if refrigerant:
         try:
-            info = refrigerants.lookup(cyc["refrigerant"])
+            info = refrigerants.lookup(refrigerant)
         except Exception:  # noqa: BLE001 - an unknown name only drops the refrigerant cautions
             info = None
     if info is not None:
@@ -609,7 +810,14 @@ def cautions_section(ctx: SheetContext, index: int) -> list:
 
 
 #: Project-wide sections, printed first.
-PROJECT_SECTIONS: list[Callable[[SheetContext], list]] = [title_section, summary_section, project_warnings_section]
+PROJECT_SECTIONS: list[Callable[[SheetContext], list]] = [
+    title_section,
+    systems_overview_section,
+    summary_section,
+    project_warnings_section,
+    system_details_section,
+    system_cycles_section,
+]
 
 #: Sections printed for every room, in order. Insert new ones here.
 ROOM_SECTIONS: list[Callable[[SheetContext, int], list]] = [

@@ -206,3 +206,30 @@ def test_freezer_td_is_the_freezer_band():
 
     td, _source = evaporator_td_for(-25.0, 0.9)
     assert 5.0 <= td <= 6.0  # freezers ≈ 5–6 K [trade]
+
+
+def test_combo_sheet_page_one_shows_the_whole_job():
+    """Page 1 of a job with one system of two rooms: the systems table with its total row above the rooms."""
+    from coldroom.report.text import capacity, temperature
+
+    path = REPO / "project_files" / "combo_cooler_freezer.yaml"
+    model, result, pdf = _size(path)
+    pages = [_flat(t) for t in _pages_text(pdf)]
+    first = pages[0]
+    system = result.systems[0]
+    assert first.index("The job: systems") < first.index("Total, 1 system") < first.index("Room Conditions")
+    for shown in (
+        capacity(system.design_capacity, "SI"),
+        capacity(system.heat_of_rejection, "SI"),
+        temperature(system.suction_temperature, "SI"),
+        "Connected load",
+        "Electricity per day",
+        f"{system.electrical.daily_energy / 3.6e6:.1f} kWh",
+    ):
+        assert shown in first, shown
+    everything = " ".join(pages)
+    for member in system.members:  # each coil keeps its own evaporating temperature and duty
+        assert temperature(member.evaporating_temperature, "SI") in everything
+        assert capacity(member.duty, "SI") in everything
+    assert "not credited" in everything  # the cooler's partition to the freezer, with its working
+    assert any("System CU-1: Cooler, Freezer" in page and "Pressure" in page for page in pages[1:])
