@@ -268,8 +268,9 @@ def _catmull_rom(points: Sequence[tuple[float, float]], per_segment: int = 8) ->
         t1 = t0 + max(math.dist(p0, p1), 1e-9) ** 0.5
         t2 = t1 + max(math.dist(p1, p2), 1e-9) ** 0.5
         t3 = t2 + max(math.dist(p2, p3), 1e-9) ** 0.5
-        for k in range(1, per_segment + 1):
-            t = t1 + (t2 - t1) * k / per_segment
+        steps = max(1, min(per_segment, math.ceil(math.dist(p1, p2) / 2.5)))  # about every 2.5 pt
+        for k in range(1, steps + 1):
+            t = t1 + (t2 - t1) * k / steps
             a1 = _lerp(p0, p1, t0, t1, t)
             a2 = _lerp(p1, p2, t1, t2, t)
             a3 = _lerp(p2, p3, t2, t3, t)
@@ -333,15 +334,20 @@ class _Occupancy:
         self.cells: set[tuple[int, int]] = set()
 
     def line(self, points: Sequence[tuple[float, float]], pad: float = 0.6) -> None:
+        """Mark the cells under a polyline, widened by *pad* [pt] across it (sampled every 1.6 pt)."""
         c = self.CELL
+        add = self.cells.add
         for a, b in zip(points, points[1:]):
-            n = max(1, int(math.dist(a, b) / (c * 0.5)))
+            length = math.dist(a, b)
+            n = max(1, int(length / 1.6))
+            dx, dy = (b[0] - a[0]) / n, (b[1] - a[1]) / n
+            # the offset across the segment that widens it by pad
+            ox, oy = (-dy * pad / (length / n), dx * pad / (length / n)) if length > 0 else (pad, pad)
             for k in range(n + 1):
-                x = a[0] + (b[0] - a[0]) * k / n
-                y = a[1] + (b[1] - a[1]) * k / n
-                for px in (x - pad, x + pad):
-                    for py in (y - pad, y + pad):
-                        self.cells.add((int(px // c), int(py // c)))
+                x, y = a[0] + dx * k, a[1] + dy * k
+                add((int(x // c), int(y // c)))
+                add((int((x + ox) // c), int((y + oy) // c)))
+                add((int((x - ox) // c), int((y - oy) // c)))
 
     def box(self, x0: float, y0: float, x1: float, y1: float) -> None:
         c = self.CELL
@@ -404,11 +410,8 @@ def _draw(cycle: Any, data: Any, window: Window, system: str, width: float, heig
     p_unit = _units.DISPLAY_UNITS[system]["pressure"]
     s_unit = _units.DISPLAY_UNITS[system]["specific_heat"]
 
-    def hd(h: float) -> float:
-        return _units.to_unit(h, "specific_energy", h_unit)
-
-    def pd(p: float) -> float:
-        return _units.to_unit(p, "pressure", p_unit)
+    hd = _units.unit_for("specific_energy", h_unit).from_si  # display value of an SI enthalpy
+    pd = _units.unit_for("pressure", p_unit).from_si  # display value of an SI pressure
 
     drawing = Drawing(width, height)
     occupied = _Occupancy()  # everything drawn
