@@ -471,19 +471,36 @@ def cycle_command(
         from coldroom.cycle import solve_cycle
         from coldroom.refrigerant import get_fluid
 
+        from coldroom.errors import CalculationError
+
         fluid = get_fluid(refrigerant)
-        evap = te if te is not None else fluid.dew_temperature(p_suction)
+
+        def dew(pressure: float, option: str) -> float:
+            try:
+                return fluid.dew_temperature(pressure)
+            except ColdroomError as error:
+                raise CalculationError(f"{option} {pressure / 1e3:.1f} kPa absolute: {error}") from None
+
+        evap = te if te is not None else dew(p_suction, "--suction-pressure")
         cond, high_side = tc, None
         if p_discharge is not None:
             if fluid.info.name == "R-744" and p_discharge >= fluid.critical_pressure:
                 high_side = p_discharge
             else:
-                cond = fluid.dew_temperature(p_discharge)
-        result = solve_cycle(
-            refrigerant, evap, cond, q, superheat=sh, subcooling=sc, isentropic_efficiency=isentropic_efficiency,
-            suction_line_superheat=slsh, clearance=clearance, gas_cooler_outlet_temperature=tgc,
-            high_side_pressure=high_side,
-        )
+                cond = dew(p_discharge, "--discharge-pressure")
+        try:
+            result = solve_cycle(
+                refrigerant, evap, cond, q, superheat=sh, subcooling=sc, isentropic_efficiency=isentropic_efficiency,
+                suction_line_superheat=slsh, clearance=clearance, gas_cooler_outlet_temperature=tgc,
+                high_side_pressure=high_side,
+            )
+        except CalculationError as error:
+            if p_suction is None and p_discharge is None:
+                raise
+            given = [f"--suction-pressure {p_suction / 1e3:.1f} kPa absolute (dew {evap:.2f} °C)"] if p_suction else []
+            if p_discharge is not None and cond is not None:
+                given.append(f"--discharge-pressure {p_discharge / 1e3:.1f} kPa absolute (dew {cond:.2f} °C)")
+            raise CalculationError(f"{'; '.join(given)}: {error}") from None
         if as_json:
             print(json.dumps(result.to_json(), indent=2, ensure_ascii=False))
         else:

@@ -140,3 +140,12 @@ def test_r744_discharge_above_critical_is_the_gas_cooler_pressure():
 def test_pressure_usage_errors(args, text):
     result = run("cycle", "-r", "R134a", *args)
     assert result.returncode == 2 and text in result.stderr
+
+
+def test_impossible_pressures_name_the_reading():
+    result = run("cycle", "-r", "R134a", "--suction-pressure", "2 bar(g)", "--discharge-pressure", "1 bar(g)",
+                 "--capacity", "5 kW")
+    assert result.returncode == 1 and len(result.stderr.strip().splitlines()) == 1
+    assert "--suction-pressure 301.3 kPa absolute" in result.stderr and "--discharge-pressure" in result.stderr
+    above = run("cycle", "-r", "R134a", "--suction-pressure", "60 bar", "--condensing", "40", "--capacity", "5 kW")
+    assert above.returncode == 1 and "--suction-pressure 6000.0 kPa absolute" in above.stderr
