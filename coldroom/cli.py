@@ -510,7 +510,12 @@ def cycle_command(
             from coldroom.report.cyclepage import render_cycle_page
             from coldroom.sizing import sheet_date, versions
 
-            data = render_cycle_page(result, system, fmt, sheet_date(None), sys.argv[1:], versions())
+            # the footer's input hash: the options as given (not sys.argv, which an embedding caller owns)
+            given = [refrigerant, evaporating, condensing, suction_pressure, discharge_pressure, capacity, superheat,
+                     suction_line_superheat, subcooling, repr(isentropic_efficiency), repr(clearance),
+                     gas_cooler_outlet, system]
+            data = render_cycle_page(result, system, fmt, sheet_date(None), ["" if g is None else g for g in given],
+                                     versions())
             write_atomic(out, data, force=force)
             print(f"wrote {out}", file=sys.stderr if as_json else sys.stdout)
 
