@@ -27,7 +27,11 @@ Errors (exit 65), each naming the key, the value and why:
   :data:`PARTITION_AREA_TOLERANCE`;
 - a room in two systems, two systems of one name, a member room's
   ``refrigeration`` giving system-level keys, or a refrigerant other than its
-  system's (one system, one refrigerant).
+  system's (one system, one refrigerant);
+- a design-day schedule that disagrees with the room: door shares not adding
+  up to 100 %, windows that overlap, people or lighting windows whose hours
+  differ from ``hours``, deliveries whose masses differ from the daily
+  intake, defrost start times not one per defrost or overlapping.
 
 Warnings (:func:`project_warnings`, exit 0) for legal but implausible input.
 Thresholds for warnings are common practice, no source, unless noted.
@@ -164,6 +168,7 @@ def check_project(model: "ProjectModel", error: ErrorFactory) -> None:
         _check_refrigerant_range(model, room, info.name, at, error)
         _check_doors(room, at, error)
         _check_defrost(room, at, error)
+        _check_schedule(room, at, error)
         for j, product in enumerate(room.products):
             p_at = at + ("products", j)
             if product.daily_intake > 0 and product.final_temperature is not None:
@@ -467,6 +472,69 @@ def _check_defrost(room: "Room", at: tuple, error: ErrorFactory) -> None:
             f"{total / 3600:.3g} h, more than 24 h",
             at + ("defrost", "duration"),
         )
+
+
+SCHEDULE_HOURS_TOLERANCE = 0.05  # h: windows and ``hours`` agree within 3 min
+SCHEDULE_SHARE_TOLERANCE = 0.005  # door shares sum to 100 % within 0.5 %
+SCHEDULE_MASS_TOLERANCE = 0.01  # deliveries match the daily intake within 1 %
+
+
+def _check_schedule(room: "Room", at: tuple, error: ErrorFactory) -> None:
+    from coldroom.designday import window_coverage
+
+    schedule = room.schedule
+    if schedule is None:
+        return
+    s_at = at + ("schedule",)
+    for key in ("doors", "people", "lighting"):
+        windows = getattr(schedule, key)
+        if windows is None:
+            continue
+        cover = window_coverage((w.start, w.end) for w in windows)
+        if max(cover) > 1.0 + 1e-9:
+            hour = max(range(24), key=lambda h: cover[h])
+            raise error(f"the {key} windows overlap (hour {hour:02d}:00 is covered twice)", s_at + (key,))
+    if schedule.doors is not None:
+        if not room.doors and room.infiltration.method == "door":
+            raise error("a door schedule needs doors in the room", s_at + ("doors",))
+        total = sum(w.share for w in schedule.doors)
+        if abs(total - 1.0) > SCHEDULE_SHARE_TOLERANCE:
+            raise error(f"the door windows' shares add up to {total:.1%}; they must add up to 100 %", s_at + ("doors",))
+    for key, hours in (
+        ("people", room.people.hours if room.people.count > 0 else 0.0),
+        ("lighting", room.lighting.hours if room.lighting is not None else 0.0),
+    ):
+        windows = getattr(schedule, key)
+        if windows is None:
+            continue
+        covered = sum(w.hours for w in windows)
+        if abs(covered - hours / 3600.0) > SCHEDULE_HOURS_TOLERANCE:
+            there = f"{key}.hours is {hours / 3600.0:g} h" if hours > 0 else f"the room has no {key} hours"
+            raise error(
+                f"the {key} windows cover {covered:g} h but {there}; make them agree", s_at + (key,)
+            )
+    if schedule.deliveries is not None:
+        intake = sum(p.daily_intake for p in room.products)
+        delivered = sum(d.mass for d in schedule.deliveries)
+        if intake <= 0.0 or abs(delivered - intake) > SCHEDULE_MASS_TOLERANCE * intake:
+            raise error(
+                Note.fill(
+                    "the deliveries bring {d} a day but the products' daily_intake adds up to {i}; make them agree",
+                    d=(delivered, "mass"),
+                    i=(intake, "mass"),
+                ),
+                s_at + ("deliveries",),
+            )
+    if schedule.defrost is not None:
+        d = room.defrost
+        if len(schedule.defrost) != d.per_day:
+            raise error(
+                f"{len(schedule.defrost)} defrost start times but defrost.per_day is {d.per_day:g}; make them agree",
+                s_at + ("defrost",),
+            )
+        cover = window_coverage((t, t + d.duration / 3600.0) for t in schedule.defrost)
+        if d.duration > 0 and max(cover) > 1.0 + 1e-9:
+            raise error(f"defrosts of {d.duration / 60:g} min starting at these times overlap", s_at + ("defrost",))
 
 
 def _check_doors(room: "Room", at: tuple, error: ErrorFactory) -> None:

@@ -145,8 +145,10 @@ class RoomLoads:
     run_time_basis : str
         Where the run time came from (given, or the default for the defrost type).
     peak_load : float
-        Peak-hour load [W]: product at its pull-down rate, all internal loads on,
-        transmission and infiltration at their averages.
+        Peak-hour load [W]: with a schedule, the design day's largest hourly load
+        (defrost heat left out, :mod:`coldroom.designday`); without, product at its
+        pull-down rate, all internal loads on, transmission and infiltration at
+        their averages.
     volume : float
         Inside volume [m³].
     floor_area : float
@@ -157,6 +159,10 @@ class RoomLoads:
     transmission_area_basis : str
         The areas in U·A·ΔT: ``"outside"`` (outside surface of each section, the load
         method's basis), ``"given"`` (areas from the project file) or ``"outside, given"``.
+    warnings : tuple of str
+        Storage advice and doubts about the schedule.
+    design_day : DesignDay or None
+        The 24 hourly loads (:class:`coldroom.designday.DesignDay`).
     """
 
     name: str
@@ -170,6 +176,7 @@ class RoomLoads:
     warnings: tuple[str, ...] = ()
     dimensions_measured: str | None = None
     transmission_area_basis: str = "outside"
+    design_day: Any = None  # coldroom.designday.DesignDay
 
     def component_energy(self, component: str) -> float:
         """Daily energy of one component [J]."""
@@ -220,6 +227,16 @@ class RoomLoads:
             "run_hours_basis": self.run_time_basis,
             "required_capacity_w": self.required_capacity,
             "peak_load_w": self.peak_load,
+            "peak_load_basis": (
+                "design day schedule"
+                if self.design_day is not None and self.design_day.scheduled
+                else "product pull-down rate, internal loads all on, other loads at their averages"
+            ),
+            "hourly_load_w": list(self.design_day.hourly_load) if self.design_day is not None else None,
+            "peak_hour": self.design_day.peak_hour if self.design_day is not None else None,
+            "outdoor_temperature_hourly_c": (
+                list(self.design_day.outdoor_temperature) if self.design_day is not None else None
+            ),
             "design_capacity_w": self.design_capacity,
             "design_capacity_governed_by": self.governed_by,
             "volume_m3": self.volume,

@@ -423,6 +423,12 @@ def room_loads(model: "ProjectModel", room: "Room") -> RoomLoads:
     ) / DAY
     peak = steady + product_peak(model, room, products) + internal_peak(model, room)
     warnings = storage_advice(room)
+    from coldroom.designday import room_design_day
+
+    day = room_design_day(model, room)
+    if day.scheduled:  # the schedule replaces the all-at-once approximation
+        peak = day.peak_load
+    warnings += list(day.notes)
     return RoomLoads(
         name=room.name,
         lines=tuple(lines),
@@ -437,6 +443,7 @@ def room_loads(model: "ProjectModel", room: "Room") -> RoomLoads:
         transmission_area_basis=", ".join(
             dict.fromkeys(basis for basis in ("outside", "given") for side in SIDES if room.transmission_area(side)[1] == basis)
         ),
+        design_day=day,
     )
 
 
