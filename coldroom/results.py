@@ -271,6 +271,7 @@ class RoomResult:
     check: Any = None  # coldroom.equipment.CheckResult
     warnings: tuple[str, ...] = ()
     system: str = ""  # the name of the room's system
+    pulldown: Any = None  # coldroom.pulldown.PulldownResult (rooms that take product in)
 
     @property
     def name(self) -> str:
@@ -284,8 +285,10 @@ class RoomResult:
         out["condenser_air_temperature_c"] = self.condenser_air_temperature
         out["sizing_basis"] = [{"item": what, "value": value} for what, value in self.sizing_basis]
         out["cycle"] = self.cycle.to_json() if self.cycle is not None else None
+        out["pulldown"] = self.pulldown.to_json() if self.pulldown is not None else None
         if self.check is not None:
             out["existing_unit"] = self.check.to_json()
+
         out["warnings"] = list(self.loads.warnings) + list(self.warnings)
         return out
 

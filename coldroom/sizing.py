@@ -50,7 +50,7 @@ import datetime as _dt
 import hashlib
 import os
 from dataclasses import dataclass
-from typing import TYPE_CHECKING, Optional
+from typing import TYPE_CHECKING, Any, Optional
 
 from coldroom import units as _units
 from coldroom.errors import CalculationError
@@ -406,6 +406,93 @@ def _member_draw(room: "Room", loads: "RoomLoads") -> "MemberDraw":
     )
 
 
+#: Room air temperatures above and below the set point at which the design unit's capacity is
+#: computed for the pull-down; between them it is interpolated linearly [K].
+PULLDOWN_CAPACITY_OFFSETS = (-2.0, 0.0, 2.0, 5.0, 10.0, 20.0)
+
+
+def design_unit_capacity(cycle_at: Any, design_capacity: float, room: "Room", temps: DesignTemperatures) -> Any:
+    """Capacity [W] of the room's design unit as a function of the room air [°C], for the pull-down.
+
+    The compressor keeps the displacement it needs for *design_capacity* at the design
+    evaporating temperature; the evaporating temperature follows the room air at the design
+    evaporator TD; the condensing temperature stays at design. Capacity at another
+    evaporating temperature = design capacity × design displacement ÷ the displacement the
+    cycle needs there for the design capacity (the cycle's own volumetric efficiency and
+    refrigerating effect, :func:`coldroom.cycle.solve_cycle`). A room on a system of several
+    rooms is taken with its share of the compressor.
+    """
+    import numpy as np
+
+    reference = cycle_at(temps.evaporating_temperature, design_capacity).displacement
+    air, capacity = [], []
+    for offset in PULLDOWN_CAPACITY_OFFSETS:
+        t = room.temperature + offset
+        try:
+            other = cycle_at(t - temps.evaporator_td, design_capacity)
+        except CalculationError:
+            continue
+        air.append(t)
+        capacity.append(design_capacity * reference / other.displacement)
+    if not air:  # pragma: no cover - the design point itself solved
+        air, capacity = [room.temperature], [design_capacity]
+    xs, ys = np.asarray(air), np.asarray(capacity)
+
+    def at(air_temperature: float) -> float:
+        return float(np.interp(air_temperature, xs, ys))
+
+    return at
+
+
+def _design_unit_pulldown(
+    model: "ProjectModel",
+    room: "Room",
+    loads: "RoomLoads",
+    temps: DesignTemperatures,
+    settings: Any,
+    refrigerant: str,
+    condensing: Optional[float],
+    gas_cooler: Optional[float],
+) -> tuple[Any, tuple[str, ...]]:
+    """The pull-down after a delivery with the design unit, and a warning when the asked time is not met."""
+    if not any(p.daily_intake > 0 for p in room.products):
+        return None, ()
+    from coldroom.cycle import solve_cycle
+    from coldroom.pulldown import room_pulldown
+
+    def cycle_at(evaporating: float, capacity: float) -> Any:
+        return solve_cycle(
+            refrigerant,
+            evaporating,
+            condensing,
+            capacity,
+            superheat=settings.superheat,
+            subcooling=settings.subcooling,
+            isentropic_efficiency=settings.isentropic_efficiency,
+            suction_line_superheat=settings.suction_line_superheat,
+            clearance=settings.clearance,
+            gas_cooler_outlet_temperature=gas_cooler,
+        )
+
+    capacity = design_unit_capacity(cycle_at, loads.design_capacity, room, temps)
+    pulldown = room_pulldown(
+        model,
+        room,
+        capacity,
+        f"design unit: {loads.design_capacity:.0f} W at evaporating {temps.evaporating_temperature:.1f} °C, "
+        f"same compressor displacement as the room air moves (evaporator TD {temps.evaporator_td:g} K)",
+    )
+    if pulldown is None or pulldown.met:
+        return pulldown, ()
+    g = pulldown.governing
+    assert g is not None and g.asked_time is not None
+    reached = "is not reached" if g.time_to_final is None else f"takes {g.time_to_final / 3600:.1f} h"
+    return pulldown, (
+        f"{room.name}: pull-down: {g.name} to its final temperature {reached} with the design unit, "
+        f"more than the {g.asked_time / 3600:g} h asked",
+    )
+
+
 def size_system(
     model: "ProjectModel", name: str, indices: tuple[int, ...], diversity: float = 1.0
 ) -> tuple["SystemResult", tuple["RoomResult", ...]]:
@@ -509,6 +596,10 @@ def size_system(
         electrical=electrical,
         warnings=warnings,
     )
+    pulldowns = [
+        _design_unit_pulldown(model, room, x, t, s, info.name, condensing, gas_cooler)
+        for room, x, t, s in zip(rooms, loads, temps, settings)
+    ]
     results = tuple(
         RoomResult(
             loads=x,
@@ -518,10 +609,11 @@ def size_system(
             sizing_basis=_basis(model, room, x, t) + _system_basis(model, system),
             cycle=cyc if len(rooms) == 1 else None,
             check=check_room(model, room, x),
-            warnings=warnings if len(rooms) == 1 else (),
+            warnings=(warnings if len(rooms) == 1 else ()) + pull_warnings,
             system=name,
+            pulldown=pulldown,
         )
-        for room, x, t in zip(rooms, loads, temps)
+        for room, x, t, (pulldown, pull_warnings) in zip(rooms, loads, temps, pulldowns)
     )
     return system, results
 

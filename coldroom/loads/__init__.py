@@ -21,7 +21,7 @@ from coldroom.results import LoadLine, RoomLoads, Term
 from coldroom.results import Term as T
 
 if TYPE_CHECKING:  # pragma: no cover
-    from coldroom.projectfile import Construction, DesignConditions, ProjectModel, Room
+    from coldroom.projectfile import Construction, DesignConditions, Product, ProjectModel, Room
 
 DAY = 86400.0  # s
 SIDES = ("north", "east", "south", "west", "ceiling", "floor")
@@ -207,23 +207,29 @@ def infiltration_lines(model: "ProjectModel", room: "Room") -> list[LoadLine]:
     return lines
 
 
+def product_properties(item: "Product") -> tuple:
+    """(property model, respiration data or None, label) of one product entry of a room."""
+    from coldroom.data.products import get_product
+    from coldroom.loads.product import explicit_properties
+
+    if item.product is not None:
+        table = get_product(item.product)
+        return table.properties(), table.respiration, table.name
+    q = item.properties
+    assert q is not None
+    properties = explicit_properties(
+        q.freezing_point, q.water_content, q.specific_heat_above, q.specific_heat_below, q.latent_heat
+    )
+    return properties, None, "product (given properties)"
+
+
 def _product_loads(room: "Room") -> list:
     """One :class:`coldroom.loads.product.ProductLoad` per product entry of *room*."""
-    from coldroom.data.products import get_product
-    from coldroom.loads.product import explicit_properties, product_load
+    from coldroom.loads.product import product_load
 
     out = []
     for item in room.products:
-        if item.product is not None:
-            table = get_product(item.product)
-            properties, respiration, label = table.properties(), table.respiration, table.name
-        else:
-            q = item.properties
-            assert q is not None
-            properties = explicit_properties(
-                q.freezing_point, q.water_content, q.specific_heat_above, q.specific_heat_below, q.latent_heat
-            )
-            respiration, label = None, "product (given properties)"
+        properties, respiration, label = product_properties(item)
         pack = item.packaging
         material = pack.material if pack is not None and pack.material != "other" else "corrugated_board"
         out.append(

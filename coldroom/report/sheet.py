@@ -46,6 +46,7 @@ from reportlab.platypus import (
 from coldroom.report.charts import INK, MUTED, RULE, BarChart
 from coldroom.report.check_section import existing_unit_section
 from coldroom.report.text import capacity, clean, esc, q, temperature
+from coldroom.report.timecharts import design_day_section, pulldown_section
 from coldroom.units import format_terms
 
 ACCENT = colors.HexColor("#4F6D8A")
@@ -569,7 +570,12 @@ def loads_section(ctx: SheetContext, index: int) -> list:
         ["Safety factor", f"{loads.safety_factor:.0%}"],
         ["Compressor run time", f"{loads.run_time / 3600:g} h/day ({loads.run_time_basis})"],
         ["Required capacity (24-h energy x safety / run time)", capacity(loads.required_capacity, s)],
-        ["Peak-hour capacity (product pull-down, all internal loads on)", capacity(loads.peak_capacity, s)],
+        [
+            "Peak-hour capacity (design-day schedule, peak hour x safety)"
+            if loads.design_day is not None and loads.design_day.scheduled
+            else "Peak-hour capacity (product pull-down, all internal loads on)",
+            capacity(loads.peak_capacity, s),
+        ],
         [f"Design capacity (the larger; set by the {loads.governed_by})", capacity(loads.design_capacity, s)],
     ]
     w = ctx.width
@@ -824,7 +830,9 @@ ROOM_SECTIONS: list[Callable[[SheetContext, int], list]] = [
     room_title_section,
     basis_section,
     loads_section,
+    design_day_section,
     duties_section,
+    pulldown_section,
     cycle_section,
     existing_unit_section,
     room_warnings_section,

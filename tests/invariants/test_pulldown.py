@@ -1,0 +1,74 @@
+"""Invariants of the pull-down simulation (coldroom.pulldown).
+
+- more capacity never lengthens the pull-down (nor raises the product temperature at any time);
+- the heat the unit removes equals the enthalpy the masses and the air lose plus the steady load
+  (energy balance, freezing included).
+
+Each example integrates the model twice (≈0.1 s each): 15 examples keep a test near 3 s.
+"""
+
+from __future__ import annotations
+
+import numpy as np
+import pytest
+from hypothesis import given, settings
+from hypothesis import strategies as st
+
+from coldroom.data.products import get_product
+from coldroom.pulldown import ThermalMass, half_cooling_conductance, simulate, thermostat
+
+BEEF = get_product("beef_frozen").properties()
+
+
+def _masses(entering: float, mass: float) -> list[ThermalMass]:
+    c = BEEF.enthalpy(entering) - BEEF.enthalpy(entering - 1.0)
+    return [
+        ThermalMass("beef", mass, half_cooling_conductance(mass, c, 3 * 3600.0), entering,
+                    enthalpy=BEEF.enthalpy, final_temperature=-18.0, asked_time=24 * 3600.0),
+        ThermalMass("cartons", mass * 0.05, half_cooling_conductance(mass * 0.05, 1400.0, 3600.0), entering,
+                    specific_heat=1400.0),
+    ]
+
+
+def _capacity(scale: float):
+    # falls 3 % per kelvin as the room air falls, like a compressor at lower suction
+    return lambda air: scale * 4000.0 * max(0.2, 1.0 + 0.03 * (air + 20.0))
+
+
+@settings(max_examples=15)
+@given(
+    entering=st.floats(min_value=-10.0, max_value=5.0),  # from partly frozen to above freezing
+    mass=st.floats(min_value=100.0, max_value=3000.0),
+    scale=st.floats(min_value=0.6, max_value=2.0),
+    more=st.floats(min_value=1.01, max_value=2.0),
+)
+def test_more_capacity_never_lengthens_the_pulldown(entering, mass, scale, more) -> None:
+    runs = [
+        simulate(1.27 * 1006.0 * 80.0, _masses(entering, mass), _capacity(s), lambda t: 900.0 + 15.0 * (-20.0 - t),
+                 set_point=-20.0, initial_air_temperature=-20.0, duration=36 * 3600.0)
+        for s in (scale, scale * more)
+    ]
+    small, large = runs
+    for a, b in zip(small.products[0].temperature, large.products[0].temperature):
+        assert b <= a + 1e-3
+    if small.hours_to_final is not None:
+        assert large.hours_to_final is not None
+        assert large.hours_to_final <= small.hours_to_final + 1e-3
+    assert large.lowest_air_temperature <= small.lowest_air_temperature + 1e-3
+
+
+def test_energy_balance_with_freezing() -> None:
+    """Heat removed by the unit less the steady load = enthalpy lost by the product and the air (1 %)."""
+    c_air = 1.27 * 1006.0 * 80.0
+    masses = _masses(4.0, 1500.0)[:1]  # the product alone, entering above its freezing point
+    capacity = _capacity(1.0)
+    load = lambda t: 900.0 + 15.0 * (-20.0 - t)  # noqa: E731
+    r = simulate(c_air, masses, capacity, load, set_point=-20.0, initial_air_temperature=-20.0,
+                 duration=24 * 3600.0)
+    t = np.asarray(r.time)
+    air = np.asarray(r.air_temperature)
+    removed = np.trapezoid([thermostat(a, -20.0) * capacity(a) - load(a) for a in air], t)
+    lost_product = masses[0].mass * (BEEF.enthalpy(4.0) - BEEF.enthalpy(r.products[0].temperature[-1]))
+    lost_air = c_air * (air[0] - air[-1])
+    assert BEEF.freezing_point > r.products[0].temperature[-1]  # it froze on the way
+    assert removed == pytest.approx(lost_product + lost_air, rel=0.01)
