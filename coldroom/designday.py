@@ -5,7 +5,7 @@ day. This module places that energy in the hours of the design day:
 
 - **outdoor air** follows the design day's profile
   t(h) = t_design − f(h)·DR, f the fraction of the daily range of the hour
-  (:data:`FRACTION_OF_DAILY_RANGE`), DR ``design.daily_range``; the outdoor
+  (:data:`FRACTION_OF_DAILY_RANGE`, [ref:ashrae-fund-climate]), DR ``design.daily_range``; the outdoor
   humidity ratio stays at its design value through the day (RH rises as the
   air cools, capped at saturation) [trade]. Surfaces facing outdoors and
   doors or air changes that take outdoor air are recomputed for each hour by
@@ -57,7 +57,7 @@ DAY = 86400.0  # s
 #: hours 1 … 24 of the design day (hour 1 = 00:00–01:00 … hour 24 = 23:00–24:00,
 #: the value at the hour's end): ASHRAE Handbook—Fundamentals (2009), chapter
 #: 14 "Climatic Design Information", Table 6 "Fraction of Daily Temperature
-#: Range" [mem]. The warmest hour is 15 (f = 0), the coolest hour 5 (f = 1).
+#: Range" [ref:ashrae-fund-climate] [mem]. The warmest hour is 15 (f = 0), the coolest hour 5 (f = 1).
 FRACTION_OF_DAILY_RANGE: tuple[float, ...] = (
     0.87, 0.92, 0.96, 0.99, 1.00, 0.98, 0.93, 0.84, 0.71, 0.56, 0.39, 0.23,
     0.11, 0.03, 0.00, 0.03, 0.10, 0.21, 0.34, 0.47, 0.58, 0.68, 0.76, 0.82,

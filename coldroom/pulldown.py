@@ -2,7 +2,7 @@
 
 The model (heat balances, our formulation of the lumped-capacitance method;
 each mass uniform in temperature — Incropera & DeWitt, *Fundamentals of Heat
-and Mass Transfer*, 6th ed., §5.1 "The lumped capacitance method" [mem])::
+and Mass Transfer*, 6th ed., §5.1 "The lumped capacitance method" [ref:incropera-dewitt] [mem])::
 
     C_air · dT_a/dt = L(T_a) + Σ_i UA_i·(T_i − T_a) − s(T_a)·Q(T_a)
     m_i · dh_i/dt   = UA_i·(T_a − T_i),    T_i = T(h_i)
@@ -21,7 +21,7 @@ and Mass Transfer*, 6th ed., §5.1 "The lumped capacitance method" [mem])::
   centred on the set point (0 below, 1 above) [trade].
 
 The equations are integrated by scipy's ``solve_ivp`` (LSODA: the air node
-is fast, the product slow — a stiff system), imported only here. A product
+is fast, the product slow — a stiff system; [ref:petzold-1983]), imported only here. A product
 has reached its final temperature when it is within
 :data:`FINAL_TOLERANCE` of it [trade].
 
@@ -384,7 +384,7 @@ def simulate(
 def half_cooling_conductance(mass: float, specific_heat: float, half_cooling_time: float) -> float:
     """UA [W/K] of a lumped mass whose excess over steady air halves in *half_cooling_time*.
 
-    UA = ln 2 · m·c / t½ (exponential decay of the lumped capacitance method [mem]).
+    UA = ln 2 · m·c / t½ (exponential decay of the lumped capacitance method [ref:incropera-dewitt] [mem]).
 
     Examples
     --------

@@ -1,7 +1,7 @@
 """The design-day outdoor profile against the published fraction-of-daily-range table.
 
 Source: ASHRAE Handbook—Fundamentals (2009), chapter 14 "Climatic Design Information", Table 6
-"Fraction of Daily Temperature Range" (from memory; verify): the percentage of the daily range
+"Fraction of Daily Temperature Range" [ref:ashrae-fund-climate] (from memory; verify): the percentage of the daily range
 below the design dry bulb, by hour of the day. The same percentages stood in earlier editions'
 cooling-load chapter ("percentage of daily range"). Read here hour by hour, as printed:
 hour 1 87 %, 5 100 % (the coolest), 8 84 %, 12 23 %, 15 0 % (the warmest), 18 21 %, 21 58 %,

@@ -1,7 +1,7 @@
 """The pull-down model (coldroom.pulldown) against analytic solutions of the lumped capacitance method.
 
 Source of the method: Incropera & DeWitt, *Fundamentals of Heat and Mass Transfer*, 6th ed., §5.1
-"The lumped capacitance method" (from memory; verify): a body of uniform temperature exchanging
+"The lumped capacitance method" [ref:incropera-dewitt] (from memory; verify): a body of uniform temperature exchanging
 heat with its surroundings obeys C·dT/dt = Σ heat flows; with constant flows the temperature is
 linear in time, with a flow proportional to a temperature difference it is exponential.
 
