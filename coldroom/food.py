@@ -356,6 +356,9 @@ class PropertyModel(Protocol):
     def latent_heat(self) -> float:
         """Latent heat of fusion of the product (333.6 kJ/kg × water) [J/kg]."""
 
+    def latent_heat_between(self, warmer: float, colder: float) -> float:
+        """Latent heat released by the ice that forms from *warmer* down to *colder* [J/kg]."""
+
 
 @dataclass(frozen=True)
 class CompositionModel:
@@ -494,10 +497,52 @@ class CompositionModel:
             temperature
         ) * water_latent_heat(temperature)
 
-    def latent_heat_released(self, temperature: float) -> float:
-        """Latent heat removed from the product frozen down to *temperature*:
-        x_ice(t)·L(t) [J/kg]."""
-        return self.ice_fraction(temperature) * water_latent_heat(temperature)
+    def latent_heat_between(self, warmer: float, colder: float) -> float:
+        """Latent heat released by the ice that forms from *warmer* down to *colder* [J/kg].
+
+        Each kilogram of ice gives up the latent heat of water at the temperature where
+        it forms: q = ∫ L(t)·(−dx_ice/dt) dt over [colder, min(warmer, t_f)], with
+        L(t) of :func:`water_latent_heat` (Kirchhoff) and x_ice of Schwartzberg
+        [ref:ashrae-refrig-foods]. With x_ice = F(1 − t_f/t) and L(t) = L₀ + d₁t + d₂t²
+        + d₃t³ the integral is closed:
+        q = −F·t_f·[L₀(1/lo − 1/hi) + d₁ ln(hi/lo) + d₂(hi − lo) + d₃(hi² − lo²)/2].
+        The sensible heat below freezing is the rest of the enthalpy drop, so the two
+        lines always add up to it (dH/dt = Σ x_i c_i − L·dx_ice/dt exactly).
+
+        Parameters
+        ----------
+        warmer : float
+            Temperature at the start of the cooling [°C].
+        colder : float
+            Temperature at the end [°C], ≤ *warmer*.
+
+        Returns
+        -------
+        float
+            Latent heat [J/kg], ≥ 0; 0 when no ice forms in the range.
+
+        Examples
+        --------
+        >>> peas = CompositionModel(Composition.from_water(0.79), -0.6)
+        >>> round(peas.latent_heat_between(-12.0, -18.0))   # already frozen: ice still forms
+        3977
+        """
+        t_f = self.freezing_point
+        hi, lo = min(warmer, t_f), colder
+        if lo >= hi:
+            return 0.0
+        freezable = self._fractions["water"] - self.bound_water
+        if t_f == 0.0:  # pure water: all of it freezes at 0 °C
+            return freezable * water_latent_heat(0.0) if warmer >= 0.0 else 0.0
+        (a_w, b_w, c_w), (a_i, b_i, c_i) = _CP["water"], _CP["ice"]
+        d1, d2, d3 = 1000.0 * (a_w - a_i), 500.0 * (b_w - b_i), 1000.0 * (c_w - c_i) / 3.0
+        integral = (
+            LATENT_HEAT_WATER * (1.0 / lo - 1.0 / hi)
+            + d1 * math.log(hi / lo)
+            + d2 * (hi - lo)
+            + d3 * (hi * hi - lo * lo) / 2.0
+        )
+        return -freezable * t_f * integral
 
     def density(self, temperature: float) -> float:
         """Density 1/ρ = Σ x_i/ρ_i (no porosity) [kg/m³] (ASHRAE "Thermal
@@ -577,9 +622,14 @@ class ExplicitModel:
         """c₁ at or above t_f, c₂ below [J/(kg·K)] (latent heat is a step)."""
         return self.specific_heat_above if temperature >= self.freezing_point else self.specific_heat_below
 
-    def latent_heat_released(self, temperature: float) -> float:
-        """h_if below t_f, else 0 [J/kg]."""
-        return self.latent_heat if temperature < self.freezing_point else 0.0
+    def latent_heat_between(self, warmer: float, colder: float) -> float:
+        """h_if when the cooling crosses t_f (all of it released there), else 0 [J/kg].
+
+        In this model no more ice forms below t_f, so a product entering frozen has
+        no latent line.
+        """
+        t_f = self.freezing_point
+        return self.latent_heat if colder < t_f <= warmer else 0.0
 
 
 def siebel(water: float, freezing_point: float, name: str = "") -> ExplicitModel:

@@ -129,9 +129,13 @@ def product_pulldown(
 
     Q = m·[h(t₁) − h(t₃)] split at the initial freezing point t_f:
     sensible above = m·[h(t₁) − h(max(t₃, t_f))]; below t_f the latent part is
-    m·x_ice(t₃)·L(t₃) and the sensible part is the remainder (ASHRAE
-    "Refrigerated-Facility Loads", product load, with the enthalpy of
-    "Thermal Properties of Foods" [pub]; split convention of this module).
+    the heat released by the ice that forms between the two temperatures, each
+    kilogram at the latent heat of the temperature where it forms
+    (``properties.latent_heat_between``), and the sensible part below freezing is
+    the rest of the enthalpy drop (ASHRAE "Refrigerated-Facility Loads", product
+    load, with the enthalpy of "Thermal Properties of Foods" [pub]
+    [ref:ashrae-refrig-loads] [ref:ashrae-refrig-foods]). A product entering
+    already frozen has both lines when ice still forms as it cools.
 
     Parameters
     ----------
@@ -184,12 +188,7 @@ def product_pulldown(
         h_f = properties.enthalpy(t_f) if t1 >= t_f else h1
         above = h1 - h_f
         below_total = h_f - h3
-        released = getattr(properties, "latent_heat_released", None)
-        if released is not None:
-            latent_now = released(t3) - (released(t1) if t1 < t_f else 0.0)
-        else:  # pragma: no cover - every model in coldroom.food has it
-            latent_now = 0.0
-        latent = min(max(latent_now, 0.0), below_total)
+        latent = properties.latent_heat_between(t1, t3)
         below = below_total - latent
     return ProductPulldown(
         mass=mass,

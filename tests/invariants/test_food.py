@@ -10,7 +10,7 @@ from __future__ import annotations
 import math
 
 import pytest
-from hypothesis import given
+from hypothesis import given, settings
 from hypothesis import strategies as st
 
 from coldroom.data.products import (
@@ -138,6 +138,33 @@ def test_split_adds_up_to_enthalpy_difference(model, mass, a, b):
     assert r.pulldown_rate == pytest.approx(r.daily_energy / 7200.0)
     if t3 >= model.freezing_point:
         assert r.latent == 0.0 and r.sensible_below == 0.0
+    if model.ice_fraction(t3) > model.ice_fraction(t1):
+        assert r.latent > 0.0  # ice forms, so latent heat is released
+
+
+@settings(max_examples=30)  # each example integrates numerically
+@given(compositions(), st.floats(-35.0, 20.0), st.floats(0.5, 30.0))
+def test_latent_and_sensible_below_match_an_independent_integration(model, t1, drop):
+    """Energy balance by a second route: integrate the sensible specific heat Σ x_i c_i and the
+    heat of the forming ice L(t)·(−dx_ice/dt) numerically (scipy quad) and compare with the closed
+    forms behind the lines; also bound the latent line by Δx_ice × L at the two ends."""
+    from scipy.integrate import quad
+
+    from coldroom.food import water_latent_heat
+
+    t3 = t1 - drop
+    r = product_pulldown(1.0, t1, t3, 86400.0, model)
+    hi = min(t1, model.freezing_point)
+    if t3 >= hi:
+        assert r.latent == 0.0 and r.sensible_below == 0.0
+        return
+    sensible = quad(model.sensible_specific_heat, t3, hi, limit=200)[0]
+    ice = lambda t: -model._ice_fraction_slope(t) * water_latent_heat(t)  # noqa: E731
+    latent = quad(ice, t3, hi, limit=200)[0]
+    assert r.latent == pytest.approx(latent, rel=1e-6, abs=1e-3)
+    assert r.sensible_below == pytest.approx(sensible, rel=1e-6, abs=1e-3)
+    formed = model.ice_fraction(t3) - model.ice_fraction(t1)
+    assert formed * water_latent_heat(t3) - 1e-6 <= r.latent <= formed * water_latent_heat(hi) + 1e-6
 
 
 @given(st.floats(0.5, 0.95), st.floats(-5.0, -0.2), st.floats(1.0, 30.0), st.floats(-30.0, -6.0))

@@ -18,6 +18,7 @@ from __future__ import annotations
 import pytest
 
 from coldroom.data.products import get_product
+from coldroom.loads.product import product_pulldown
 from coldroom.food import (
     Composition,
     CompositionModel,
@@ -185,3 +186,24 @@ def test_respiration_heat_within_published_spread(key, index, temperature):
     low, high = RESPIRATION[key][index]
     q = respiration_heat(get_product(key).respiration, temperature) * 1000.0  # mW/kg
     assert 0.85 * low <= q <= 1.15 * high
+
+
+# --- frozen product: latent heat of the ice that still forms ------------------------------
+
+
+def test_peas_entering_frozen_still_release_latent_heat():
+    """Peas entering at −12 °C and held at −18 °C: below the initial freezing point the ice
+    fraction keeps rising (Schwartzberg's ice fraction, ASHRAE Handbook—Refrigeration, "Thermal
+    Properties of Foods" [pub] [ref:ashrae-refrig-foods]), so part of the load is latent heat.
+    The review that found this: the latent line read 0 W. Here the latent line lies between the
+    ice formed × the latent heat of water at −18 °C and at −12 °C (Kirchhoff, L0 = 333.6 kJ/kg
+    at 0 °C), and the two lines add up to the enthalpy drop."""
+    from coldroom.food import water_latent_heat
+
+    model = get_product("peas").properties()
+    r = product_pulldown(1000.0, -12.0, -18.0, 86400.0, model)
+    formed = model.ice_fraction(-18.0) - model.ice_fraction(-12.0)
+    assert formed > 0.01
+    assert 1000.0 * formed * water_latent_heat(-18.0) <= r.latent <= 1000.0 * formed * water_latent_heat(-12.0)
+    assert r.sensible_above == 0.0 and r.sensible_below > 0.0
+    assert r.latent + r.sensible_below == pytest.approx(1000.0 * (model.enthalpy(-12.0) - model.enthalpy(-18.0)))
