@@ -73,6 +73,9 @@ DEFAULT_ISENTROPIC_EFFICIENCY = 0.70
 #: Clearance volume ratio C [1]; 0.03–0.06 for reciprocating compressors
 #: [mem, textbooks, e.g. Stoecker & Jones 2nd ed. ch. 11] [ref:stoecker-jones].
 DEFAULT_CLEARANCE = 0.04
+#: What ``compressor_power`` is, said in the JSON beside it: the compressor's electrical
+#: input (the isentropic efficiency is the overall one, motor included; module note).
+COMPRESSOR_POWER_BASIS = "electrical"
 
 #: Discharge temperature above which a warning is given [°C]: 110–120 °C at the
 #: discharge line is the usual advice for oil stability [trade].
@@ -139,7 +142,8 @@ class CycleResult:
         Required swept volume rate [m³/s].
     compressor_power : float
         Compressor electrical input, ṁ(h₂ − h₁) with the overall isentropic
-        efficiency (motor included; see the module note) [W].
+        efficiency (motor included; see the module note,
+        :data:`COMPRESSOR_POWER_BASIS`) [W].
     condenser_duty : float
         Heat of rejection, ṁ(h₂ − h₃) [W].
     suction_line_heat_gain : float
@@ -250,6 +254,7 @@ class CycleResult:
             "volumetric_efficiency": self.volumetric_efficiency,
             "displacement_m3_h": self.displacement * 3600.0,
             "compressor_power_w": self.compressor_power,
+            "compressor_power_basis": COMPRESSOR_POWER_BASIS,
             "condenser_duty_w": self.condenser_duty,
             "suction_line_heat_gain_w": self.suction_line_heat_gain,
             "cop": self.cop,

@@ -86,6 +86,13 @@ def test_json_figures_are_on_the_sheet(sized):
         }
         for what, shown in expected.items():
             assert shown in text, f"{room['name']}: {what} {shown!r} not on the sheet"
+        # what the compressor power is, said beside it (JSON and sheet agree)
+        assert cycle["compressor_power_basis"] == "electrical"
+        assert "Compressor electrical input" in text
+        # which areas the transmission lines use, in the basis and in each line's working
+        assert room["transmission_area_basis"] == "outside"
+        assert "transmission areas outside surface of each section" in text
+        assert re.search(r"(m²|ft²) outside × ", text)
         # every load component's 24-h average, in the load table
         for component, watts in room["loads_w"].items():
             shown = q(watts, "power", s, 0).rsplit(" ", 1)[0]

@@ -197,6 +197,10 @@ def test_json_has_contract_keys_and_state_order():
     d = r.to_json()
     assert CONTRACT_KEYS <= set(d)
     assert d["refrigerant"] == "R-448A"
+    # the compressor power is ṁ(h₂ − h₁) (Stoecker & Jones ch. 10 [ref:stoecker-jones]) with the
+    # overall isentropic efficiency, i.e. the electrical input, and the JSON says so
+    assert d["compressor_power_basis"] == "electrical"
+    assert d["compressor_power_w"] == pytest.approx(r.mass_flow * (r.states[1].h - r.states[0].h), rel=1e-12)
     assert len(d["states"]) == 4
     for s, js in zip(r.states, d["states"]):
         assert set(js) == {"p_pa", "t_c", "h_j_kg", "s_j_kg_k", "quality"}
