@@ -36,7 +36,7 @@ from __future__ import annotations
 
 from dataclasses import dataclass
 
-from coldroom import errors
+from coldroom.registry import Registry
 
 INCH = 0.0254  # m, exact
 
@@ -125,8 +125,8 @@ def names() -> tuple[str, ...]:
     return tuple(SERIES)
 
 
-def _key(name: str) -> str:
-    return "".join(ch for ch in name.upper() if ch.isalnum())
+#: Series names compared with separators ignored (``EN12735-1`` = ``en 12735 1``).
+_SERIES_NAMES: Registry[tuple[Tube, ...]] = Registry("tube series", SERIES, compact=True)
 
 
 def series(name: str) -> tuple[Tube, ...]:
@@ -142,7 +142,4 @@ def series(name: str) -> tuple[Tube, ...]:
     coldroom.errors.LookupNameError
         Unknown series; the message lists the valid names.
     """
-    for known, tubes in SERIES.items():
-        if _key(known) == _key(str(name)):
-            return tubes
-    raise errors.unknown_name("tube series", str(name), names())
+    return _SERIES_NAMES.lookup(name)

@@ -11,7 +11,7 @@ import pytest
 from hypothesis import given
 from hypothesis import strategies as st
 
-from coldroom.data import materials, products, refrigerants
+from coldroom.data import materials, products, refrigerants, tubes
 from coldroom.errors import LookupNameError
 from coldroom.food import Composition, chang_tao_freezing_point, property_model
 from coldroom.loads import infiltration, internal, product, totals
@@ -33,6 +33,7 @@ REGISTRIES = [
     internal._MOTOR_LOCATION_NAMES,
     totals._DEFROST_NAMES,
     product._PACKAGING_NAMES,
+    tubes._SERIES_NAMES,
 ]
 
 
@@ -88,6 +89,7 @@ def test_public_look_ups_go_through_one_normalisation() -> None:
     assert products.get_product("Ice Cream") is products.get_product("ICE-CREAM")
     assert refrigerants.lookup("r 448 a") is refrigerants.lookup("R-448A")
     assert refrigerants.lookup("Carbon-Dioxide").name == "R-744"
+    assert tubes.series("en 12735-1") is tubes.series("EN12735 1")
     assert infiltration.infiltration_method("Air-Changes") is infiltration.air_change_infiltration
     assert totals.run_hours_for_defrost("HOT GAS") == totals.run_hours_for_defrost("hot_gas")
     assert product.packaging_specific_heat("Plastic-Crates") == product.packaging_specific_heat("plastic")
