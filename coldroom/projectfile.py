@@ -540,6 +540,79 @@ class Defrost(Strict):
     share_to_room: Fraction = Field(default=0.5, description="Share of the heater energy reaching the room (trade 50–100 %).")
 
 
+# --- pipework and charge (sized by coldroom.piping and coldroom.charge) ---------------------------
+
+FittingKind = Literal[
+    "elbow_90", "long_elbow_90", "elbow_45", "return_bend", "tee_run", "tee_branch",
+    "ball_valve", "globe_valve", "angle_valve", "check_valve",
+]
+
+
+class PipeRun(Strict):
+    """One refrigerant line: run length, vertical rise in the flow direction, fittings.
+
+    Give ``fittings`` (kind → count) or ``equivalent_length`` (the whole line's
+    equivalent length, fittings included), not both. ``limit`` overrides the
+    line's default limit on the drop in saturation temperature.
+    """
+
+    length: Q("length", gt=0.0, le=500.0)  # type: ignore[valid-type]
+    rise: Q("length", ge=-200.0, le=200.0) = 0.0  # type: ignore[valid-type]
+    fittings: dict[FittingKind, Annotated[int, Field(ge=0, le=200)]] = Field(default_factory=dict, max_length=20)
+    equivalent_length: Optional[Q("length", gt=0.0, le=2000.0)] = None  # type: ignore[valid-type]
+    limit: Optional[Q("temperature_difference", gt=0.0, le=5.0)] = None  # type: ignore[valid-type]
+
+    @field_validator("rise")
+    @classmethod
+    def _rise_within_run(cls, rise: float, info: ValidationInfo) -> float:
+        length = info.data.get("length")
+        if length is not None and abs(rise) > length:
+            raise ValueError("rise is longer than the run length (a line cannot climb more than its length)")
+        return rise
+
+    @field_validator("equivalent_length")
+    @classmethod
+    def _equivalent_covers_run(cls, value: Optional[float], info: ValidationInfo) -> Optional[float]:
+        length = info.data.get("length")
+        if value is not None and length is not None and value < length:
+            raise ValueError("equivalent_length is shorter than length (it includes the run and its fittings)")
+        if value is not None and info.data.get("fittings"):
+            raise ValueError("give fittings or equivalent_length, not both")
+        return value
+
+
+class Piping(Strict):
+    """The lines of a system. ``tube_series``: ``EN 12735-1`` (metric) or ``ASTM B280`` (inch ACR)."""
+
+    tube_series: Literal["EN 12735-1", "ASTM B280"] = "EN 12735-1"
+    suction: Optional[PipeRun] = None
+    liquid: Optional[PipeRun] = None
+    discharge: Optional[PipeRun] = None
+    minimum_load: Q("fraction", gt=0.0, le=1.0) = Field(  # type: ignore[valid-type]
+        default=1.0,
+        description="Share of the design mass flow at the system's minimum load (oil return in risers); "
+        "1 for a single on/off compressor.",
+    )
+
+
+class ChargeSettings(Strict):
+    """Inputs of the charge estimate and the charge-limit rules of a system."""
+
+    evaporator_volume: Optional[Q("volume", si="L", ip="ft³", gt=0.0, le=10.0)] = None  # type: ignore[valid-type]
+    condenser_volume: Optional[Q("volume", si="L", ip="ft³", gt=0.0, le=10.0)] = None  # type: ignore[valid-type]
+    receiver_volume: Optional[Q("volume", si="L", ip="ft³", gt=0.0, le=10.0)] = None  # type: ignore[valid-type]
+    receiver_level: Q("fraction", gt=0.0, le=1.0) = 0.2  # type: ignore[valid-type]
+    occupancy: Literal["a", "b", "c"] = Field(
+        default="a", description="EN 378-1 access category of the cold room (default a, the most restrictive)."
+    )
+    location_class: Literal["I", "II", "III", "IV"] = Field(
+        default="I", description="EN 378-1 location class of the system (default I, the most restrictive)."
+    )
+    self_contained: bool = Field(
+        default=False, description="A self-contained (plug-in / monoblock) appliance: IEC 60335-2-89 applies."
+    )
+
+
 # --- refrigeration (sizing) -------------------------------------------------------------------
 
 
@@ -566,6 +639,13 @@ class CondensingSettings(Strict):
     condenser_fan_power: Optional[Q("power", ge=0.0, le=1e5)] = Field(  # type: ignore[valid-type]
         default=None,
         description="Electrical input of the condenser fans; default estimated from the heat of rejection.",
+    )
+    piping: Optional[Piping] = Field(
+        default=None, description="The suction, liquid and discharge lines (sized by coldroom.piping)."
+    )
+    charge: ChargeSettings = Field(
+        default_factory=ChargeSettings,
+        description="Charge-estimate inputs and the EN 378-1 occupancy category and location class.",
     )
 
 
@@ -742,79 +822,6 @@ class ExistingUnit(Strict):
 
 
 # END existing-unit block
-
-
-# --- pipework and charge (sized by coldroom.piping and coldroom.charge) ---------------------------
-
-FittingKind = Literal[
-    "elbow_90", "long_elbow_90", "elbow_45", "return_bend", "tee_run", "tee_branch",
-    "ball_valve", "globe_valve", "angle_valve", "check_valve",
-]
-
-
-class PipeRun(Strict):
-    """One refrigerant line: run length, vertical rise in the flow direction, fittings.
-
-    Give ``fittings`` (kind → count) or ``equivalent_length`` (the whole line's
-    equivalent length, fittings included), not both. ``limit`` overrides the
-    line's default limit on the drop in saturation temperature.
-    """
-
-    length: Q("length", gt=0.0, le=500.0)  # type: ignore[valid-type]
-    rise: Q("length", ge=-200.0, le=200.0) = 0.0  # type: ignore[valid-type]
-    fittings: dict[FittingKind, Annotated[int, Field(ge=0, le=200)]] = Field(default_factory=dict, max_length=20)
-    equivalent_length: Optional[Q("length", gt=0.0, le=2000.0)] = None  # type: ignore[valid-type]
-    limit: Optional[Q("temperature_difference", gt=0.0, le=5.0)] = None  # type: ignore[valid-type]
-
-    @field_validator("rise")
-    @classmethod
-    def _rise_within_run(cls, rise: float, info: ValidationInfo) -> float:
-        length = info.data.get("length")
-        if length is not None and abs(rise) > length:
-            raise ValueError("rise is longer than the run length (a line cannot climb more than its length)")
-        return rise
-
-    @field_validator("equivalent_length")
-    @classmethod
-    def _equivalent_covers_run(cls, value: Optional[float], info: ValidationInfo) -> Optional[float]:
-        length = info.data.get("length")
-        if value is not None and length is not None and value < length:
-            raise ValueError("equivalent_length is shorter than length (it includes the run and its fittings)")
-        if value is not None and info.data.get("fittings"):
-            raise ValueError("give fittings or equivalent_length, not both")
-        return value
-
-
-class Piping(Strict):
-    """The lines of a system. ``tube_series``: ``EN 12735-1`` (metric) or ``ASTM B280`` (inch ACR)."""
-
-    tube_series: Literal["EN 12735-1", "ASTM B280"] = "EN 12735-1"
-    suction: Optional[PipeRun] = None
-    liquid: Optional[PipeRun] = None
-    discharge: Optional[PipeRun] = None
-    minimum_load: Q("fraction", gt=0.0, le=1.0) = Field(  # type: ignore[valid-type]
-        default=1.0,
-        description="Share of the design mass flow at the system's minimum load (oil return in risers); "
-        "1 for a single on/off compressor.",
-    )
-
-
-class ChargeSettings(Strict):
-    """Inputs of the charge estimate and the charge-limit rules of a system."""
-
-    evaporator_volume: Optional[Q("volume", si="L", ip="ft³", gt=0.0, le=10.0)] = None  # type: ignore[valid-type]
-    condenser_volume: Optional[Q("volume", si="L", ip="ft³", gt=0.0, le=10.0)] = None  # type: ignore[valid-type]
-    receiver_volume: Optional[Q("volume", si="L", ip="ft³", gt=0.0, le=10.0)] = None  # type: ignore[valid-type]
-    receiver_level: Q("fraction", gt=0.0, le=1.0) = 0.2  # type: ignore[valid-type]
-    occupancy: Literal["a", "b", "c"] = Field(
-        default="a", description="EN 378-1 access category of the cold room (default a, the most restrictive)."
-    )
-    location_class: Literal["I", "II", "III", "IV"] = Field(
-        default="I", description="EN 378-1 location class of the system (default I, the most restrictive)."
-    )
-    self_contained: bool = Field(
-        default=False, description="A self-contained (plug-in / monoblock) appliance: IEC 60335-2-89 applies."
-    )
 
 
 # --- design-day schedules (coldroom.designday) ----------------------------------------------------
