@@ -1206,7 +1206,7 @@ def _refined_location(error: dict[str, Any]) -> tuple:
     refrigerant) is reported by pydantic at the object; point at the key whose
     text the message quotes instead, so the position is that key's line.
     """
-    loc = tuple(error.get("loc", ()))
+    loc = tuple(part for part in error.get("loc", ()) if part != "[key]")  # a bad mapping key: at the key
     value = error.get("input")
     cause = (error.get("ctx") or {}).get("error")
     if isinstance(cause, ColdroomError) and isinstance(value, dict):
