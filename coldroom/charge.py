@@ -48,6 +48,7 @@ import math
 from dataclasses import dataclass
 
 from coldroom.data.refrigerants import RefrigerantInfo
+from coldroom.results import Note
 
 VERIFY = "from memory; verify against the current edition"
 
@@ -177,7 +178,9 @@ def line_part(name: str, inside_area: float, length: float, density: float, what
     1.327
     """
     volume = inside_area * length
-    return ChargePart(name, volume * density, f"{volume * 1e3:.3g} L of {what} at {density:.4g} kg/m³")
+    return ChargePart(
+        name, volume * density, Note.fill(f"{{v}} of {what} at {{d}}", v=(volume, "internal_volume"), d=(density, "density"))
+    )
 
 
 def exchanger_part(
@@ -208,11 +211,14 @@ def exchanger_part(
     """
     if volume is None:
         volume = duty * volume_per_w
-        origin = f"rule of thumb {volume_per_w * 1e6:.2g} L/kW [trade]: {volume * 1e3:.3g} L"
+        origin = f"rule of thumb {volume_per_w * 1e6:.2g} L per kW [trade]: "
     else:
-        origin = f"internal volume {volume * 1e3:.3g} L"
+        origin = "internal volume "
     mean = liquid_fraction * liquid_density + (1.0 - liquid_fraction) * vapour_density
-    return ChargePart(name, volume * mean, f"{origin}, {liquid_fraction:.0%} liquid [trade]: {mean:.4g} kg/m³")
+    basis = Note.fill(
+        origin + f"{{v}}, {liquid_fraction:.0%} liquid [trade]: mean {{d}}", v=(volume, "internal_volume"), d=(mean, "density")
+    )
+    return ChargePart(name, volume * mean, basis)
 
 
 def receiver_part(volume: float, level: float, liquid_density: float) -> ChargePart:
@@ -229,7 +235,7 @@ def receiver_part(volume: float, level: float, liquid_density: float) -> ChargeP
     """
     return ChargePart(
         "receiver", volume * level * liquid_density,
-        f"{volume * 1e3:.3g} L at {level:.0%} level, liquid {liquid_density:.4g} kg/m³",
+        Note.fill(f"{{v}} at {level:.0%} level, liquid {{d}}", v=(volume, "internal_volume"), d=(liquid_density, "density")),
     )
 
 
@@ -315,7 +321,10 @@ def charge_limits(
                     f"EN 378-1 Annex C / ISO 5149-1 toxicity, {where}",
                     limit,
                     verdict,
-                    f"practical limit {limit_per_m3:g} kg/m³ × room {room_volume:.3g} m³ = {limit:.3g} kg ({VERIFY})",
+                    Note.fill(
+                        f"practical limit {{pl}} × room {{v}} = {{m}} ({VERIFY})",
+                        pl=(limit_per_m3, "density"), v=(room_volume, "volume"), m=(limit, "mass"),
+                    ),
                 )
             )
         elif limit_per_m3 is not None:
@@ -332,13 +341,18 @@ def charge_limits(
         m1, m2, m3 = flammability_masses(info)
         cap = m2 if occupancy == "a" else m3
         lfl = info.lfl_kg_m3
-        masses = f"m1 {m1:.3g} kg, m2 {m2:.3g} kg, m3 {m3:.3g} kg"
+        masses = Note.fill("m1 {m1}, m2 {m2}, m3 {m3}", m1=(m1, "mass"), m2=(m2, "mass"), m3=(m3, "mass"))
         if in_room:
             room = 0.2 * lfl * room_volume
             limit = max(m1, min(room, cap))
-            working = (
-                f"max(m1, min(0.2 × LFL {lfl:g} kg/m³ × room {room_volume:.3g} m³ = {room:.3g} kg, "
-                f"cap {cap:.3g} kg)) = {limit:.3g} kg; {masses} ({VERIFY})"
+            working = Note(
+                *Note.fill(
+                    "max(m1, min(0.2 × LFL {lfl} × room {v} = {room}, cap {cap})) = {lim}; ",
+                    lfl=(lfl, "density"), v=(room_volume, "volume"), room=(room, "mass"), cap=(cap, "mass"),
+                    lim=(limit, "mass"),
+                ).phrase,
+                *masses.phrase,
+                f" ({VERIFY})",
             )
             results.append(
                 ChargeLimit(
@@ -354,21 +368,21 @@ def charge_limits(
                     f"EN 378-1 Annex C / ISO 5149-1 flammability, {where}",
                     cap,
                     _verdict(charge, cap, None),
-                    f"outside the occupied space: cap {cap:.3g} kg; {masses} ({VERIFY})",
+                    Note("outside the occupied space: the cap applies; ", *masses.phrase, f" ({VERIFY})"),
                 )
             )
         if self_contained:
             limit = IEC_FACTOR * lfl
-            working = f"13 × LFL {lfl:g} kg/m³ = {limit:.3g} kg"
+            working = Note.fill("13 m³ × LFL {lfl} = {m}", lfl=(lfl, "density"), m=(limit, "mass"))
             if info.safety_class.endswith("2L") and limit > IEC_2L_CAP:
                 limit = IEC_2L_CAP
-                working += f", class 2L cap {IEC_2L_CAP:g} kg"
+                working = Note(*working.phrase, *Note.fill(", class 2L cap {c}", c=(IEC_2L_CAP, "mass")).phrase)
             results.append(
                 ChargeLimit(
                     "IEC 60335-2-89:2019 self-contained appliance, per circuit",
                     limit,
                     WITHIN if charge <= limit else NOT_PERMITTED,
-                    f"{working} ({VERIFY})",
+                    Note(*working.phrase, f" ({VERIFY})"),
                 )
             )
     return tuple(results)

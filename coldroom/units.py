@@ -27,6 +27,7 @@ power_per_area              W/m²
 density                     kg/m³
 volume_flow                 m³/s
 velocity                    m/s
+internal_volume             m³          shown in L (lines, coils, receivers)
 fraction                    1           "85 %" → 0.85
 ==========================  ==========  ==========================================
 
@@ -229,6 +230,10 @@ _add("volume_flow", ("m³/s", "m3/s"), _u("m³/s", 1.0))
 _add("volume_flow", ("m³/h", "m3/h", "cmh"), _u("m³/h", 1.0 / 3600.0))
 _add("volume_flow", ("L/s", "l/s"), _u("L/s", 1e-3))
 _add("volume_flow", ("cfm", "ft³/min", "ft3/min"), _u("cfm", FOOT**3 / 60.0))
+# internal volume of lines, coils and receivers (shown in litres)
+_add("internal_volume", ("L", "l", "litre", "liter"), _u("L", 1e-3))
+_add("internal_volume", ("m³", "m3"), _u("m³", 1.0))
+_add("internal_volume", ("ft³", "ft3", "cu ft"), _u("ft³", FOOT**3))
 # velocity (refrigerant lines)
 _add("velocity", ("m/s",), _u("m/s", 1.0))
 _add("velocity", ("ft/min", "fpm"), _u("ft/min", FOOT / 60.0))
@@ -262,6 +267,7 @@ DEFAULT_UNITS: dict[str, dict[str, str]] = {
         "energy_density": "kJ/m³",
         "conductance": "W/K",
         "velocity": "m/s",
+        "internal_volume": "L",
         "fraction": "-",
     },
     "IP": {
@@ -285,6 +291,7 @@ DEFAULT_UNITS: dict[str, dict[str, str]] = {
         "energy_density": "Btu/ft³",
         "conductance": "Btu/(h·°F)",
         "velocity": "ft/min",
+        "internal_volume": "ft³",
         "fraction": "-",
     },
 }
@@ -412,6 +419,7 @@ def _example(kind: str) -> str:
         "energy_density": "40 kJ/m³",
         "conductance": "500 W/K",
         "velocity": "5 m/s",
+        "internal_volume": "2.5 L",
         "fraction": "85 %",
     }
     return examples.get(kind, "1")
