@@ -8,6 +8,8 @@ from __future__ import annotations
 
 import dataclasses
 
+import pytest
+
 from hypothesis import given
 from hypothesis import strategies as st
 
@@ -84,3 +86,45 @@ def test_default_limits_and_override():
     assert spec.limit_k == 0.5
     assert dataclasses.replace(spec, limit=0.2).limit_k == 0.2
 
+
+
+class _Run:
+    def __init__(self, length, rise=0.0):
+        self.length, self.rise, self.fittings, self.equivalent_length, self.limit = length, rise, {}, None, None
+
+
+class _Piping:
+    tube_series = "EN 12735-1"
+    minimum_load = 1.0
+
+    def __init__(self, liquid_rise):
+        self.suction = _Run(20.0, 4.0)
+        self.liquid = _Run(20.0, liquid_rise)
+        self.discharge = _Run(3.0)
+
+
+@given(st.floats(min_value=-15.0, max_value=15.0), st.floats(min_value=0.0, max_value=5.0))
+def test_liquid_rise_eats_subcooling_and_a_drop_restores_it(rise, more):
+    from coldroom.pipework import size_system_lines, valve_subcooling
+
+    low = valve_subcooling(CYCLE, size_system_lines(CYCLE, _Piping(rise)))
+    high = valve_subcooling(CYCLE, size_system_lines(CYCLE, _Piping(min(rise + more, 20.0))))
+    assert high <= low + 1e-9
+    if rise <= 0.0:  # friction only ever takes away; a falling line gives back static head
+        flat = valve_subcooling(CYCLE, size_system_lines(CYCLE, _Piping(0.0)))
+        assert low >= flat - 1e-9
+
+
+def test_flash_gas_is_warned_when_the_liquid_line_climbs_too_far():
+    from coldroom.pipework import cycle_drops, pipework, size_system_lines, valve_subcooling
+    from coldroom.projectfile import ChargeSettings
+
+    piping = size_system_lines(CYCLE, _Piping(15.0))
+    sub = valve_subcooling(CYCLE, piping)
+    assert sub < 0.0  # 2 K of subcooling cannot lift R-404A liquid 15 m
+    suction, discharge = cycle_drops(CYCLE, piping)
+    assert 0.0 < suction and 0.0 <= discharge
+    result = pipework(CYCLE, piping, ChargeSettings(), "room", 30.0, suction, discharge, sub)
+    assert any("flash gas" in w for w in result.warnings)
+    assert result.defaults_used == ("occupancy category", "location class")
+    assert result.to_json()["charge"]["total_kg"] == pytest.approx(result.charge.total)
