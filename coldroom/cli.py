@@ -252,7 +252,11 @@ def _size_summary(result, model) -> str:  # type: ignore[no-untyped-def]
     if result.systems:
         from coldroom.textreport import systems_report
 
-        lines += ["", "Systems (compressor input, connected load and kWh/day are electrical)"]
+        lines += [
+            "",
+            "Systems: design capacity, SST / SCT (dew), compressor electrical input, heat of rejection, "
+            "connected load, electricity per day",
+        ]
         lines.append(systems_report(result.systems, s))
         for system in result.systems:
             if len(system.members) > 1:  # a one-room system's warnings are the room's, printed above

@@ -122,10 +122,7 @@ def systems_report(systems: Sequence["SystemResult"], system: str) -> str:
                 format_number(sum(s.electrical.daily_energy for s in systems) / 3.6e6, 1),
             ]
         )
-    headers = [
-        "system", "rooms", "refrigerant", "SST / SCT (dew)", "design capacity", "compressor input",
-        "heat of rejection", "connected load", "kWh/day",
-    ]
+    headers = ["system", "rooms", "refrigerant", "SST / SCT", "capacity", "compressor", "rejection", "connected", "kWh/day"]
     lines = [table(headers, rows, "llllrrrrr")]
     for s in systems:
         e = s.electrical

@@ -673,7 +673,7 @@ def _compressor_figures(ctx: SheetContext, cyc: dict) -> Any:
 
 def _duties_and_cycle(ctx: SheetContext, cycle: Any, cyc: dict, remark: str) -> list:
     """A system's compressor figures, state table and p–h chart."""
-    return [KeepTogether([heading("Compressor"), _compressor_figures(ctx, cyc)]), *_cycle_flowables(ctx, cycle, remark)]
+    return [*_cycle_flowables(ctx, cycle, remark), KeepTogether([heading("Compressor"), _compressor_figures(ctx, cyc)])]
 
 
 def cycle_section(ctx: SheetContext, index: int) -> list:

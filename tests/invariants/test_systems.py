@@ -157,3 +157,16 @@ def test_diversity_scales_the_compressor_not_the_coils() -> None:
     b, _ = size_system(part, "S1", (0, 1), 0.8)
     assert b.design_capacity == pytest.approx(0.8 * a.design_capacity, rel=1e-12)
     assert [m.duty for m in b.members] == [m.duty for m in a.members]
+
+
+def test_transcritical_r744_system_balances_and_its_flows_add_up() -> None:
+    # the mixture depends on the gas-cooler outlet enthalpy, which depends on the optimum pressure
+    r = solve_system_cycle("R744", [(-4.0, 5.0, 1000.0), (-28.0, 5.0, 2000.0)], None, gas_cooler_outlet_temperature=35.0)
+    assert r.transcritical
+    assert sum(r.evaporator_flows) == pytest.approx(r.mass_flow, rel=1e-12)
+    assert r.capacity + r.suction_line_heat_gain + r.compressor_power == pytest.approx(r.condenser_duty, rel=1e-9)
+    # each coil's flow carries its own duty from the common liquid state
+    liquid = r.states[2].h
+    cold = solve_cycle("R744", -28.0, None, 2000.0, gas_cooler_outlet_temperature=35.0,
+                       high_side_pressure=r.discharge_pressure)
+    assert r.evaporator_flows[1] == pytest.approx(2000.0 / (cold.evaporator_outlet.h - liquid), rel=1e-9)
