@@ -8,21 +8,34 @@ halocarbons: h = 200 kJ/kg, s = 1 kJ/kg·K for saturated liquid at 0 °C).
 
 Speed. Pure and pseudo-pure fluids use CoolProp's own flashes through
 ``AbstractState`` (microseconds). Predefined mixtures (``R448A.mix`` …) are
-slow in CoolProp's P–H and P–S flashes (0.3–0.5 s each in CoolProp 8.0), so
-for them :meth:`Fluid.state_ph` / :meth:`Fluid.state_ps` take a fast path:
+slow in CoolProp: a P–Q saturation flash costs 1.5–4 ms, a P–H or P–S flash
+0.3–0.5 s. For them:
 
-* the saturation states at the pressure (P–Q flash, ~1 ms, memoised) decide
-  the region;
+* saturation comes from a table built once per process and refrigerant
+  (:class:`_MixtureTable`): dew and bubble temperature and the incipient
+  phase's composition against ln p, as Chebyshev series on segments 0.25 wide
+  in ln p, each segment fitted to eight of CoolProp's own P–Q solutions the
+  first time a pressure in it is asked for. The series reproduce CoolProp's
+  saturation temperatures to about 1e-9 K. The saturated state itself is then
+  the equation of state evaluated at the table's (p, T) with the phase
+  imposed, so h, s and ρ are the EOS's; pressures outside the table (or a
+  segment CoolProp cannot fit) fall back to CoolProp's flash;
 * superheated vapour / subcooled liquid: Newton iteration on temperature with
   a P–T update whose phase is *imposed* (``specify_phase``; ~0.07 ms instead of
   ~12 ms, because CoolProp then skips its stability analysis), using
   (∂h/∂T)_p = c_p and (∂s/∂T)_p = c_p/T, safeguarded by a bracket; the imposed
   phase is valid because the bracket lies on the right side of the dew/bubble
   point found first;
-* two-phase: secant iteration on the vapour quality with P–Q updates.
+* two-phase: an isobaric flash by successive substitution on the
+  equilibrium ratios K = φ_L/φ_V (fugacity coefficients of the two phases
+  from the EOS at imposed phase) with the Rachford–Rice equation for the
+  vapour fraction, and a Newton/secant step on temperature for a given h or s
+  (Michelsen & Mollerup, *Thermodynamic Models: Fundamentals and
+  Computational Aspects*, 2nd ed., ch. 10 (successive substitution) [mem]).
+  Its start comes from the table's end compositions.
 
 The result is the same equation-of-state state CoolProp's flash finds (the
-tests compare both over the working envelope to 0.05 K and 0.1 % in h).
+tests compare both over the working envelope to 1e-6 K).
 ``method="flash"`` forces CoolProp's own flash (the reference).
 
 Guards: every entry point checks its inputs against the triple (or minimum)
@@ -135,6 +148,267 @@ def _finite(*values: float) -> bool:
     return all(math.isfinite(v) for v in values)
 
 
+#: Gas constant [J/(mol·K)] (CODATA 2018, exact since the 2019 SI).
+GAS_CONSTANT = 8.314462618
+
+# Saturation table of a mixture: width of one segment in ln(p/Pa) and the
+# number of Chebyshev nodes in it. Eight nodes on 0.25 reproduce CoolProp's
+# dew and bubble temperatures to ~1e-9 K over the working range (checked by
+# tests/validation/test_refrigerant.py) (common practice, no source).
+_SEGMENT_WIDTH = 0.25
+_SEGMENT_NODES = 8
+
+
+def _chebyshev_fit(values: list[float]) -> list[float]:
+    """Coefficients of the Chebyshev series through *values* at the Gauss
+    nodes cos(π(k + ½)/N) (discrete cosine transform; any numerical-methods
+    text, e.g. Press et al., *Numerical Recipes*, 3rd ed., §5.8 [mem])."""
+    n = len(values)
+    return [
+        (2.0 if j else 1.0) / n * sum(v * math.cos(math.pi * j * (k + 0.5) / n) for k, v in enumerate(values))
+        for j in range(n)
+    ]
+
+
+def _chebyshev(coefficients: list[float], x: float) -> float:
+    """Clenshaw's recurrence for Σ c_j T_j(x), x in [−1, 1] (same source)."""
+    b1 = b2 = 0.0
+    two_x = 2.0 * x
+    for c in coefficients[:0:-1]:
+        b1, b2 = two_x * b1 - b2 + c, b1
+    return x * b1 - b2 + coefficients[0]
+
+
+class _MixtureTable:
+    """Saturation table and two-phase flash of one predefined mixture.
+
+    Segment *k* covers ln p in [u₀ + k·w, u₀ + (k+1)·w] (w = 0.25, u₀ = ln of
+    the minimum pressure, top at 0.95 × the critical pressure) and holds, for
+    the dew line and for the bubble line separately, Chebyshev series of the
+    saturation temperature [K] and of the incipient phase's mole fractions
+    (liquid at the dew point, vapour at the bubble point). A segment is fitted
+    the first time it is needed, from CoolProp's P–Q solutions at its nodes; a
+    segment CoolProp cannot fit is remembered as missing (the caller falls
+    back to CoolProp's flash at the point asked).
+    """
+
+    def __init__(self, fluid: "Fluid") -> None:
+        self.fluid = fluid
+        st = fluid._state
+        self.z = list(st.get_mole_fractions())
+        self.molar_mass = st.molar_mass()
+        components = "&".join(st.fluid_names())
+        self.liquid = AbstractState("HEOS", components)
+        self.vapour = AbstractState("HEOS", components)
+        for phase_state, phase in ((self.liquid, CP.iphase_liquid), (self.vapour, CP.iphase_gas)):
+            phase_state.set_mole_fractions(self.z)
+            phase_state.specify_phase(phase)
+        self.u_low = math.log(fluid.minimum_pressure)
+        self.u_high = math.log(0.95 * fluid.critical_pressure)
+        self.last = max(0, math.ceil((self.u_high - self.u_low) / _SEGMENT_WIDTH) - 1)
+        # (segment index, quality) -> (a, b, temperature series, composition series) or None
+        self.segments: dict[tuple[int, float], tuple | None] = {}
+
+    # ------------------------------------------------------------- the table
+    def _segment(self, k: int, quality: float) -> tuple | None:
+        key = (k, quality)
+        if key in self.segments:
+            return self.segments[key]
+        a = self.u_low + k * _SEGMENT_WIDTH
+        b = min(a + _SEGMENT_WIDTH, self.u_high)
+        st = self.fluid._state
+        temperatures, compositions = [], []
+        try:
+            for j in range(_SEGMENT_NODES):
+                u = 0.5 * (a + b) + 0.5 * (b - a) * math.cos(math.pi * (j + 0.5) / _SEGMENT_NODES)
+                self.fluid._saturation_raw("P", math.exp(u), quality)
+                temperatures.append(st.T())
+                compositions.append(list(st.mole_fractions_liquid() if quality == 1.0 else st.mole_fractions_vapor()))
+        except (PropertyRangeError, ValueError):
+            segment = None
+        else:
+            series = [_chebyshev_fit([c[i] for c in compositions]) for i in range(len(self.z))]
+            segment = (a, b, _chebyshev_fit(temperatures), series)
+        self.segments[key] = segment
+        return segment
+
+    def _locate(self, u: float, quality: float) -> tuple | None:
+        if not self.u_low <= u <= self.u_high:
+            return None
+        k = min(int((u - self.u_low) / _SEGMENT_WIDTH), self.last)
+        return self._segment(k, quality)
+
+    def temperature(self, u: float, quality: float) -> float | None:
+        """Dew (quality 1) or bubble (0) temperature [K] at ln p = *u*, or None."""
+        segment = self._locate(u, quality)
+        if segment is None:
+            return None
+        a, b, series, _ = segment
+        return _chebyshev(series, (2.0 * u - a - b) / (b - a))
+
+    def incipient(self, u: float, quality: float) -> list[float] | None:
+        """Mole fractions of the incipient phase at ln p = *u* (liquid at the
+        dew point, vapour at the bubble point), or None."""
+        segment = self._locate(u, quality)
+        if segment is None:
+            return None
+        a, b, _, series = segment
+        x = (2.0 * u - a - b) / (b - a)
+        values = [max(_chebyshev(c, x), 1e-300) for c in series]
+        total = sum(values)
+        return [v / total for v in values]
+
+    def log_pressure(self, temperature: float, quality: float) -> float | None:
+        """ln p at which the dew (bubble) temperature is *temperature* [K], or None.
+
+        Newton on the table; the first guess is a Clausius–Clapeyron line
+        (ln p linear in 1/T) through a segment already fitted for this line,
+        else through the minimum and critical points.
+        """
+        guess = None
+        for (k, q), segment in self.segments.items():
+            if q != quality or segment is None:
+                continue
+            a, b, series, _ = segment
+            t_a, t_b = _chebyshev(series, -1.0), _chebyshev(series, 1.0)
+            if guess is None or min(abs(temperature - t_a), abs(temperature - t_b)) < guess[0]:
+                slope = (b - a) / (1.0 / t_a - 1.0 / t_b)
+                guess = (min(abs(temperature - t_a), abs(temperature - t_b)), a + slope * (1.0 / t_a - 1.0 / temperature))
+        if guess is None:
+            t_low = self.fluid.minimum_temperature + KELVIN + 1.0
+            t_crit = self.fluid.critical_temperature + KELVIN
+            slope = (math.log(self.fluid.critical_pressure) - self.u_low) / (1.0 / t_low - 1.0 / t_crit)
+            u = self.u_low + slope * (1.0 / t_low - 1.0 / temperature)
+        else:
+            u = guess[1]
+        for _ in range(40):
+            u = min(max(u, self.u_low), self.u_high)
+            segment = self._locate(u, quality)
+            if segment is None:
+                return None
+            a, b, series, _ = segment
+            x = (2.0 * u - a - b) / (b - a)
+            t = _chebyshev(series, x)
+            dx = 1e-6
+            slope = (_chebyshev(series, x + dx) - _chebyshev(series, x - dx)) / (2.0 * dx) * 2.0 / (b - a)
+            step = (temperature - t) / slope
+            if abs(temperature - t) <= 1e-11 * temperature:
+                return u
+            if (u == self.u_low and step < 0) or (u == self.u_high and step > 0):
+                return None
+            u += step
+        return None  # pragma: no cover - Newton on a monotone smooth series
+
+    # --------------------------------------------------------- two-phase flash
+    def flash(self, pressure: float, spec: str, target: float, bub: StatePoint, dew: StatePoint) -> StatePoint | None:
+        """Two-phase state at *pressure* [Pa] with temperature (*spec* "t",
+        target in °C), enthalpy ("h", J/kg) or entropy ("s", J/(kg·K)).
+
+        Successive substitution on ln K with the Rachford–Rice vapour fraction
+        (see the module docstring); returns None when the table has no end
+        compositions at this pressure or the iteration fails (the caller then
+        uses CoolProp's flash).
+        """
+        u = math.log(pressure)
+        y_bub = self.incipient(u, 0.0)
+        x_dew = self.incipient(u, 1.0)
+        if y_bub is None or x_dew is None:
+            return None
+        z, n, mm = self.z, len(self.z), self.molar_mass
+        t_bub, t_dew = bub.t + KELVIN, dew.t + KELVIN
+        ln_k_bub = [math.log(y_bub[i] / z[i]) for i in range(n)]
+        ln_k_dew = [math.log(z[i] / x_dew[i]) for i in range(n)]
+        if spec == "t":
+            t = target + KELVIN
+        else:
+            v_bub, v_dew = (bub.h, dew.h) if spec == "h" else (bub.s, dew.s)
+            t = t_bub + (target - v_bub) / (v_dew - v_bub) * (t_dew - t_bub)
+            goal = target * mm  # molar
+            slope = (v_dew - v_bub) * mm / (t_dew - t_bub)
+        # d ln K_i/dT along the isobar, estimated across the glide: moves the
+        # equilibrium ratios with each temperature step (a predictor), so the
+        # secant on temperature sees h (or s) of nearly converged phases
+        drift = [(ln_k_dew[i] - ln_k_bub[i]) / (t_dew - t_bub) for i in range(n)]
+        ln_k = [ln_k_bub[i] + (t - t_bub) * drift[i] for i in range(n)]
+        beta = min(max((t - t_bub) / (t_dew - t_bub), 0.0), 1.0)
+        liquid, vapour = self.liquid, self.vapour
+        try:
+            for _ in range(80):
+                k_values = [math.exp(v) for v in ln_k]
+                beta = _rachford_rice(z, k_values, beta)
+                x = [z[i] / (1.0 + beta * (k_values[i] - 1.0)) for i in range(n)]
+                y = [k_values[i] * x[i] for i in range(n)]
+                sx, sy = sum(x), sum(y)
+                x = [v / sx for v in x]
+                y = [v / sy for v in y]
+                liquid.set_mole_fractions(x)
+                liquid.update(CP.PT_INPUTS, pressure, t)
+                vapour.set_mole_fractions(y)
+                vapour.update(CP.PT_INPUTS, pressure, t)
+                new = [math.log(liquid.fugacity_coefficient(i) / vapour.fugacity_coefficient(i)) for i in range(n)]
+                change = max(abs(new[i] - ln_k[i]) for i in range(n))
+                ln_k = new
+                if spec == "t":
+                    if change < 1e-10:
+                        break
+                    continue
+                if spec == "h":
+                    value = (1.0 - beta) * liquid.hmolar() + beta * vapour.hmolar()
+                else:
+                    value = (1.0 - beta) * liquid.smolar() + beta * vapour.smolar()
+                g = value - goal
+                step = -g / slope
+                if change < 1e-10 and abs(step) < 1e-9:
+                    break
+                t_new = min(max(t + step, t_bub), t_dew)
+                ln_k = [ln_k[i] + (t_new - t) * drift[i] for i in range(n)]
+                t = t_new
+            else:
+                return None
+        except ValueError:
+            return None
+        if not 0.0 <= beta <= 1.0:
+            return None
+        h = ((1.0 - beta) * liquid.hmolar() + beta * vapour.hmolar()) / mm
+        s = ((1.0 - beta) * liquid.smolar() + beta * vapour.smolar()) / mm
+        density = mm / (beta / vapour.rhomolar() + (1.0 - beta) / liquid.rhomolar())
+        return StatePoint(pressure, t - KELVIN, h, s, beta, density)
+
+
+def _rachford_rice(z: list[float], k_values: list[float], beta: float) -> float:
+    """Vapour mole fraction β in [0, 1] solving Σ zᵢ(Kᵢ − 1)/(1 + β(Kᵢ − 1)) = 0
+    (Rachford & Rice 1952; Newton safeguarded by bisection) [mem]."""
+    def f(b: float) -> tuple[float, float]:
+        value = slope = 0.0
+        for zi, ki in zip(z, k_values):
+            d = ki - 1.0
+            q = 1.0 + b * d
+            value += zi * d / q
+            slope -= zi * d * d / (q * q)
+        return value, slope
+
+    if f(0.0)[0] <= 0.0:
+        return 0.0
+    if f(1.0)[0] >= 0.0:
+        return 1.0
+    lo, hi = 0.0, 1.0
+    b = min(max(beta, 0.0), 1.0)
+    for _ in range(100):
+        value, slope = f(b)
+        if value > 0:
+            lo = b
+        else:
+            hi = b
+        step = -value / slope
+        b_new = b + step
+        if not lo < b_new < hi:
+            b_new = 0.5 * (lo + hi)
+        if abs(b_new - b) < 1e-15:
+            return b_new
+        b = b_new
+    return b
+
+
 class Fluid:
     """Properties of one catalogue refrigerant (use :func:`get_fluid`).
 
@@ -179,7 +453,14 @@ class Fluid:
         self.triple_temperature = t_min - KELVIN
         self.minimum_temperature = self.triple_temperature
         self._margin = _CRITICAL_MARGIN_MIXTURE if self._mixture else _CRITICAL_MARGIN_PURE
+        # highest temperature of a state [°C]: 1.5 × the EOS's stated maximum,
+        # where CoolProp's own single-phase flashes stop (CoolProp 8.0
+        # FlashRoutines) — one limit for the flash and for the blend path
+        self.maximum_temperature = 1.5 * st.Tmax() - KELVIN
         self._sat_cache: dict[tuple[str, float, float], StatePoint] = {}
+        # failed saturation look-ups, remembered so a failure costs once
+        self._sat_failures: dict[tuple[str, float, float], str] = {}
+        self._table: _MixtureTable | None = None
         if self._mixture:
             # dew pressure at the minimum temperature (a little above, where the
             # mixture saturation solver is reliable)
@@ -189,6 +470,8 @@ class Fluid:
                 self.minimum_pressure = st.trivial_keyed_output(CP.iP_triple)
             except ValueError:  # pragma: no cover
                 self.minimum_pressure = self._saturation_raw("T", t_min, 1.0).p
+        if self._mixture:
+            self._table = _MixtureTable(self)
 
     def __repr__(self) -> str:
         return f"Fluid({self.info.name!r}, {self.info.coolprop_name!r}, {self.info.model})"
@@ -202,8 +485,12 @@ class Fluid:
         return PropertyRangeError(f"{self.info.name}: {what}")
 
     def clear_cache(self) -> None:
-        """Forget memoised saturation states (used by benchmarks)."""
+        """Forget memoised saturation states and failures (used by benchmarks).
+
+        The mixture saturation table is kept: it is built once per process.
+        """
         self._sat_cache.clear()
+        self._sat_failures.clear()
 
     def _check_temperature(self, temperature: float, what: str = "temperature") -> None:
         if not _finite(temperature):
@@ -212,6 +499,11 @@ class Fluid:
             raise self._fail(
                 f"{what} {temperature:.2f} °C is below the triple/minimum temperature "
                 f"{self.minimum_temperature:.2f} °C of the property model"
+            )
+        if temperature > self.maximum_temperature:
+            raise self._fail(
+                f"{what} {temperature:.2f} °C is above the maximum temperature "
+                f"{self.maximum_temperature:.0f} °C of the property model"
             )
 
     # --------------------------------------------------------------- saturation
@@ -300,6 +592,54 @@ class Fluid:
             raise self._fail(f"saturation at {given} = {value_si:.6g} gave a non-finite result")
         return state
 
+    def _saturation(self, key: tuple[str, float, float], given: str, value_si: float, quality: float) -> StatePoint:
+        """Saturation state from the mixture table, else CoolProp; a failure is
+        remembered under *key* and raised again without a second attempt."""
+        failure = self._sat_failures.get(key)
+        if failure is not None:
+            raise self._fail(failure)
+        try:
+            state = None
+            if self._table is not None and quality in (0.0, 1.0):
+                state = self._table_saturation(given, value_si, quality)
+            if state is None:
+                state = self._saturation_raw(given, value_si, quality)
+            # check after: CoolProp may return states outside the model's range
+            if state.t < self.minimum_temperature - 1e-6 or state.t > self.critical_temperature + 5.0:
+                raise self._fail(
+                    f"saturation result {state.t:.2f} °C lies outside the model range "
+                    f"{self.minimum_temperature:.2f}…{self.critical_temperature:.2f} °C"
+                )
+        except PropertyRangeError as error:
+            if len(self._sat_failures) > 4096:
+                self._sat_failures.clear()
+            self._sat_failures[key] = str(error).removeprefix(f"{self.info.name}: ")
+            raise
+        return state
+
+    def _table_saturation(self, given: str, value_si: float, quality: float) -> StatePoint | None:
+        """Dew (quality 1) or bubble (0) state of a mixture from the table: the
+        table gives the saturation temperature (or pressure), the EOS the state
+        at that (p, T) with the bulk phase imposed. None outside the table."""
+        table = self._table
+        if given == "P":
+            pressure = value_si
+            t_k = table.temperature(math.log(pressure), quality)
+        else:
+            t_k = value_si
+            u = table.log_pressure(t_k, quality)
+            pressure = math.exp(u) if u is not None else None
+        if t_k is None or pressure is None:
+            return None
+        try:
+            self._update_pt(pressure, t_k, CP.iphase_gas if quality == 1.0 else CP.iphase_liquid)
+            state = self._read(quality)
+        except ValueError:
+            return None
+        if not _finite(state.p, state.t, state.h, state.s, state.density):
+            return None
+        return state
+
     def saturated_state(
         self, quality: float, temperature: float | None = None, pressure: float | None = None
     ) -> StatePoint:
@@ -348,7 +688,7 @@ class Fluid:
                     f"saturation temperature {temperature:.2f} °C is above {limit:.2f} °C "
                     f"(critical temperature {self.critical_temperature:.2f} °C): no liquid/vapour saturation"
                 )
-            state = self._saturation_raw("T", temperature + KELVIN, quality)
+            state = self._saturation(key, "T", temperature + KELVIN, quality)
         else:
             key = ("P", float(pressure), float(quality))
             hit = self._sat_cache.get(key)
@@ -367,13 +707,7 @@ class Fluid:
                     f"saturation pressure {pressure:.6g} Pa is above {limit:.6g} Pa "
                     f"(critical pressure {self.critical_pressure:.6g} Pa): no liquid/vapour saturation"
                 )
-            state = self._saturation_raw("P", pressure, quality)
-        # check after: CoolProp may return states outside the model's range
-        if state.t < self.minimum_temperature - 1e-6 or state.t > self.critical_temperature + 5.0:
-            raise self._fail(
-                f"saturation result {state.t:.2f} °C lies outside the model range "
-                f"{self.minimum_temperature:.2f}…{self.critical_temperature:.2f} °C"
-            )
+            state = self._saturation(key, "P", pressure, quality)
         if len(self._sat_cache) > 4096:
             self._sat_cache.clear()
         self._sat_cache[key] = state
@@ -465,30 +799,30 @@ class Fluid:
         phase: int | None = None
         if self._subcritical(pressure):
             dew = self.saturated_state(1.0, pressure=pressure)
-            bub = dew if not self.info.zeotropic else self.saturated_state(0.0, pressure=pressure)
-            if hint == "gas" and temperature >= dew.t - 1e-6:
-                phase = CP.iphase_gas
-            elif hint == "liquid" and temperature <= bub.t + 1e-6:
-                phase = CP.iphase_liquid
-            elif hint is not None:
-                raise self._fail(
-                    f"{temperature:.4f} °C at {pressure:.6g} Pa is not {hint}: dew {dew.t:.4f} °C, bubble {bub.t:.4f} °C"
-                )
-            elif temperature > dew.t:
-                phase = CP.iphase_gas
-            elif temperature < bub.t:
-                phase = CP.iphase_liquid
-            elif temperature == dew.t and self.info.zeotropic:
-                return dew  # a zeotrope's dew point is a unique state
-            elif temperature == bub.t and self.info.zeotropic:
-                return bub
-            elif not self.info.zeotropic or self.info.model != "mixture":
-                raise self._fail(
-                    f"{temperature:.4f} °C at {pressure:.6g} Pa is saturated (two-phase): "
-                    "pressure and temperature do not fix the state; give quality or enthalpy"
-                )
+            if (hint is None and temperature > dew.t) or (hint == "gas" and temperature >= dew.t - 1e-6):
+                phase = CP.iphase_gas  # vapour: no bubble point needed
             else:
-                return self._secant_quality(pressure, temperature, "t", bub, dew)
+                bub = dew if not self.info.zeotropic else self.saturated_state(0.0, pressure=pressure)
+                if hint == "liquid" and temperature <= bub.t + 1e-6:
+                    phase = CP.iphase_liquid
+                elif hint is not None:
+                    raise self._fail(
+                        f"{temperature:.4f} °C at {pressure:.6g} Pa is not {hint}: "
+                        f"dew {dew.t:.4f} °C, bubble {bub.t:.4f} °C"
+                    )
+                elif temperature < bub.t:
+                    phase = CP.iphase_liquid
+                elif temperature == dew.t and self.info.zeotropic:
+                    return dew  # a zeotrope's dew point is a unique state
+                elif temperature == bub.t and self.info.zeotropic:
+                    return bub
+                elif not self.info.zeotropic or self.info.model != "mixture":
+                    raise self._fail(
+                        f"{temperature:.4f} °C at {pressure:.6g} Pa is saturated (two-phase): "
+                        "pressure and temperature do not fix the state; give quality or enthalpy"
+                    )
+                else:
+                    return self._two_phase(pressure, temperature, "t", bub, dew)
         elif self._mixture:  # pragma: no cover - excluded by _check_pressure
             raise self._fail("supercritical states of mixtures are not supported")
         try:
@@ -497,6 +831,15 @@ class Fluid:
         except ValueError as error:
             raise self._fail(f"no state at {pressure:.6g} Pa, {temperature:.3f} °C: CoolProp: {error}") from None
         return state
+
+    def _two_phase(self, pressure: float, target: float, attr: str, bub: StatePoint, dew: StatePoint) -> StatePoint:
+        """Two-phase state of a mixture with t [°C], h or s given: the table's
+        flash, else the quality iteration on CoolProp's P–Q flash."""
+        if self._table is not None:
+            state = self._table.flash(pressure, attr, target, bub, dew)
+            if state is not None:
+                return state
+        return self._secant_quality(pressure, target, attr, bub, dew)
 
     def _secant_quality(self, pressure: float, target: float, attr: str, bub: StatePoint, dew: StatePoint) -> StatePoint:
         """Find the quality at which attribute *attr* (t, h or s) of the P–Q
@@ -535,6 +878,7 @@ class Fluid:
         t_sat = sat.t + KELVIN
         getter = st.hmass if prop == "h" else st.smass
         sat_value = sat.h if prop == "h" else sat.s
+        t_top = self.maximum_temperature + KELVIN
         if side == "gas":
             lo, hi = t_sat, None
         else:
@@ -550,6 +894,10 @@ class Fluid:
                 t = t_sat * math.exp((target - sat_value) / cp)
             tol_value = 1e-9 * max(abs(target), 1.0) + (1e-7 if prop == "h" else 1e-10)
             for _ in range(60):
+                if hi is None and t > t_top:
+                    self._guard_maximum(pressure, target, prop)  # raises when the root lies above
+                    st.specify_phase(phase)
+                    hi = t_top
                 if hi is not None and not lo < t < hi:
                     t = 0.5 * (lo + hi)
                 elif hi is None and t <= lo:
@@ -576,6 +924,8 @@ class Fluid:
             else:
                 raise self._fail(f"single-phase iteration at {pressure:.6g} Pa for {prop} = {target:.6g} did not converge")
             return self._read(None)
+        except PropertyRangeError:
+            raise
         except ValueError as error:
             raise self._fail(f"no {side} state at {pressure:.6g} Pa with {prop} = {target:.6g}: CoolProp: {error}") from None
         finally:
@@ -589,19 +939,22 @@ class Fluid:
             raise ValueError(f"method must be 'auto' or 'flash', not {method!r}")
         if method == "flash" or not self._mixture:
             return self._flash(pressure, target, prop)
-        bub = self.saturated_state(0.0, pressure=pressure)
         dew = self.saturated_state(1.0, pressure=pressure)
-        v_bub, v_dew = (bub.h, dew.h) if prop == "h" else (bub.s, dew.s)
-        if target > v_dew:
+        v_dew = dew.h if prop == "h" else dew.s
+        if target > v_dew:  # vapour: no bubble point needed
             state = self._solve_single_phase(pressure, target, prop, "gas", dew)
-        elif target < v_bub:
+            self._check_result(state)
+            return state
+        bub = self.saturated_state(0.0, pressure=pressure)
+        v_bub = bub.h if prop == "h" else bub.s
+        if target < v_bub:
             state = self._solve_single_phase(pressure, target, prop, "liquid", bub)
         elif target == v_dew:
             return dew
         elif target == v_bub:
             return bub
         else:
-            return self._secant_quality(pressure, target, prop, bub, dew)
+            return self._two_phase(pressure, target, prop, bub, dew)
         self._check_result(state)
         return state
 
@@ -616,13 +969,35 @@ class Fluid:
             two_phase = st.phase() == CP.iphase_twophase and 0.0 <= q <= 1.0
             state = self._read(q if two_phase else None)
         except ValueError as error:
+            self._guard_maximum(pressure, target, prop)
             raise self._fail(f"no state at {pressure:.6g} Pa with {prop} = {target:.6g}: CoolProp: {error}") from None
         self._check_result(state)
         return state
 
+    def _guard_maximum(self, pressure: float, target: float, prop: str) -> None:
+        """Refuse an enthalpy or entropy that puts the state above the maximum
+        temperature of the property model — the one range guard of the flash
+        and of the blend path. Leaves the phase unspecified."""
+        st = self._state
+        try:
+            self._update_pt(pressure, self.maximum_temperature + KELVIN, CP.iphase_gas)
+            top = st.hmass() if prop == "h" else st.smass()
+        except ValueError:
+            top = math.inf
+        if target > top:
+            raise self._fail(
+                f"no state at {pressure:.6g} Pa with {prop} = {target:.6g}: it lies above the maximum temperature "
+                f"{self.maximum_temperature:.0f} °C of the property model"
+            )
+
     def _check_result(self, state: StatePoint) -> None:
         if not _finite(state.p, state.t, state.h, state.s, state.density) or state.density <= 0:
             raise self._fail(f"CoolProp returned a non-physical state {state}")
+        if state.t > self.maximum_temperature + 1e-6:
+            raise self._fail(
+                f"state at {state.p:.6g} Pa lies at {state.t:.2f} °C, above the maximum temperature "
+                f"{self.maximum_temperature:.0f} °C of the property model"
+            )
         if state.t < self.minimum_temperature - 1e-6:
             raise self._fail(
                 f"state at {state.p:.6g} Pa lies at {state.t:.2f} °C, below the minimum temperature "
