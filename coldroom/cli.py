@@ -529,7 +529,7 @@ def cycle_command(
 # --- check (existing unit at the room's new conditions) ----------------------------
 
 
-def _check_text(model, checks) -> str:  # type: ignore[no-untyped-def]
+def _check_text(model, checks, limits=None) -> str:  # type: ignore[no-untyped-def]
     """The verdict per room in the project's unit system (our own layout)."""
     from coldroom.units import display, format_terms
 
@@ -549,7 +549,8 @@ def _check_text(model, checks) -> str:  # type: ignore[no-untyped-def]
         return "-" if x is None else display(x, "power_large", "SI")  # electrical input in kW in both systems
 
     lines = [f"{model.project.name}: existing-unit check"]
-    for loads, check in checks:
+    for k, (loads, check) in enumerate(checks):
+        limit = limits[k] if limits is not None else None
         lines.append("")
         lines.append(f"Room: {loads.name}")
         if check is None:
@@ -557,6 +558,8 @@ def _check_text(model, checks) -> str:  # type: ignore[no-untyped-def]
             continue
         c = check
         lines.append(f"  unit: {c.name} ({c.refrigerant}, {c.model} model)")
+        if limit is not None and limit.medium_at_low is not None:  # said first, before the margin
+            lines.append(f"  FIRST: {format_terms(limit.medium_at_low, system)}")
         lines.append(f"  verdict: {c.verdict}")
         lines.append(f"  room {t(c.room_temperature)}, condenser air {t(c.ambient_temperature)}")
         lines.append(f"  balance: evaporating {t(c.balance_evaporating)} / condensing {t(c.balance_condensing)} (dew)")
@@ -588,6 +591,36 @@ def _check_text(model, checks) -> str:  # type: ignore[no-untyped-def]
             lines.append(f"  compressor: {format_terms(note, system)}")
         for warning in c.warnings:
             lines.append(f"  WARNING: {format_terms(warning, system)}")
+        if limit is not None:
+            lines.append(f"  why: {format_terms(limit.reason(), system)}")
+            if limit.coldest_status == "found":
+                lines.append(f"  coldest room it holds   {t(limit.coldest_room_temperature_held)}")
+            elif limit.coldest_status == "never":
+                lines.append("  coldest room it holds   none in the room range")
+            else:
+                lines.append(f"  coldest room it holds   below {t(limit.coldest_room_temperature_held)}")
+            if limit.max_daily_intake is not None:
+                lines.append(
+                    f"  largest daily intake    {display(limit.max_daily_intake, 'mass', system, digits=0)}/day "
+                    f"at {t(limit.room_temperature)}"
+                )
+            lines.append(
+                f"  replacement duty        {q(limit.replacement_capacity)} at SST {t(limit.replacement_evaporating)}"
+                f" / SCT {t(limit.replacement_condensing)}"
+            )
+            pull = limit.pulldown
+            if pull is not None:
+                g = pull.governing
+                reached = (
+                    f"{pull.hours_to_final:.1f} h" if pull.hours_to_final is not None
+                    else f"not within {pull.duration / 3600:g} h"
+                )
+                asked = "" if g is None or g.asked_time is None else f" (asked {g.asked_time / 3600:g} h{'' if pull.met else ', NOT MET'})"
+                lines.append(f"  pull-down after a delivery with this unit: {reached}{asked}; "
+                             f"lowest room air {t(pull.lowest_air_temperature)}")
+            for sentence in limit.remedies():
+                if sentence is not limit.medium_at_low:
+                    lines.append(f"  - {format_terms(sentence, system)}")
     return "\n".join(lines)
 
 
@@ -608,9 +641,15 @@ def check_command(
         model = load_project(project)
         from coldroom.equipment import check_project  # CoolProp, lazily
 
+        from coldroom.unitlimits import unit_limits
+
         checks = check_project(model)
+        limits = [
+            None if check is None else unit_limits(model, i, loads, check.holds, pulldown=True)
+            for i, (loads, check) in enumerate(checks)
+        ]
         console = sys.stderr if json_out == "-" else sys.stdout
-        print(_check_text(model, checks), file=console)
+        print(_check_text(model, checks, limits), file=console)
         if json_out:  # build the payload only when asked
             data = {
                 "project": {"name": model.project.name, "unit_system": model.project.units, "input_file": project},
@@ -618,9 +657,9 @@ def check_command(
                     {
                         "name": loads.name,
                         "required_capacity_w": loads.required_capacity,
-                        "existing_unit": None if check is None else check.to_json(),
+                        "existing_unit": None if check is None else {**check.to_json(), **limit.to_json()},
                     }
-                    for loads, check in checks
+                    for (loads, check), limit in zip(checks, limits)
                 ],
             }
             emit_json(data, json_out, force=force, project=project, console=console)

@@ -272,6 +272,7 @@ class RoomResult:
     warnings: tuple[str, ...] = ()
     system: str = ""  # the name of the room's system
     pulldown: Any = None  # coldroom.pulldown.PulldownResult (rooms that take product in)
+    limits: Any = None  # coldroom.unitlimits.UnitLimits (rooms with an existing unit)
 
     @property
     def name(self) -> str:
@@ -288,6 +289,8 @@ class RoomResult:
         out["pulldown"] = self.pulldown.to_json() if self.pulldown is not None else None
         if self.check is not None:
             out["existing_unit"] = self.check.to_json()
+            if self.limits is not None:
+                out["existing_unit"].update(self.limits.to_json())
 
         out["warnings"] = list(self.loads.warnings) + list(self.warnings)
         return out

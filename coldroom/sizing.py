@@ -519,6 +519,7 @@ def size_system(
     from coldroom.equipment import check_room
     from coldroom.loads import room_loads
     from coldroom.results import Note, RoomResult, SystemMember, SystemResult
+    from coldroom.unitlimits import unit_limits
 
     rooms = [model.rooms[i] for i in indices]
     loads = [room_loads(model, room) for room in rooms]
@@ -600,6 +601,11 @@ def size_system(
         _design_unit_pulldown(model, room, x, t, s, info.name, condensing, gas_cooler)
         for room, x, t, s in zip(rooms, loads, temps, settings)
     ]
+    checks = [check_room(model, room, x) for room, x in zip(rooms, loads)]
+    limits = [
+        None if check is None else unit_limits(model, i, x, check.holds, pulldown=True)
+        for i, x, check in zip(indices, loads, checks)
+    ]
     results = tuple(
         RoomResult(
             loads=x,
@@ -608,12 +614,13 @@ def size_system(
             condenser_air_temperature=air,
             sizing_basis=_basis(model, room, x, t) + _system_basis(model, system),
             cycle=cyc if len(rooms) == 1 else None,
-            check=check_room(model, room, x),
+            check=check,
             warnings=(warnings if len(rooms) == 1 else ()) + pull_warnings,
             system=name,
             pulldown=pulldown,
+            limits=limit,
         )
-        for room, x, t, (pulldown, pull_warnings) in zip(rooms, loads, temps, pulldowns)
+        for room, x, t, (pulldown, pull_warnings), check, limit in zip(rooms, loads, temps, pulldowns, checks, limits)
     )
     return system, results
 

@@ -47,6 +47,7 @@ from coldroom.report.charts import INK, MUTED, RULE, BarChart
 from coldroom.report.check_section import existing_unit_section
 from coldroom.report.text import capacity, clean, esc, q, temperature
 from coldroom.report.timecharts import design_day_section, pulldown_section
+from coldroom.report.verdict_section import verdict_section
 from coldroom.units import format_terms
 
 ACCENT = colors.HexColor("#4F6D8A")
@@ -820,6 +821,7 @@ PROJECT_SECTIONS: list[Callable[[SheetContext], list]] = [
     title_section,
     systems_overview_section,
     summary_section,
+    verdict_section,
     project_warnings_section,
     system_details_section,
     system_cycles_section,

@@ -237,35 +237,44 @@ def design_day_section(ctx: object, index: int) -> list:
 
 
 def pulldown_section(ctx: object, index: int) -> list:
-    """The pull-down after a delivery: the time–temperature chart and the figures."""
+    """The pull-down after a delivery: with the design unit and, when there is one, the existing unit."""
+    room = ctx.result.rooms[index]  # type: ignore[attr-defined]
+    out: list = []
+    limits = getattr(room, "limits", None)
+    for title, p in (
+        ("Pull-down after a delivery (design unit)", room.pulldown),
+        ("Pull-down after a delivery (existing unit)", getattr(limits, "pulldown", None)),
+    ):
+        if p is not None:
+            out += _pulldown_block(ctx, title, p)
+    return out
+
+
+def _pulldown_block(ctx: object, title: str, p: object) -> list:
     from reportlab.platypus import KeepTogether, Spacer
 
     from coldroom.report.sheet import heading, note
 
-    room = ctx.result.rooms[index]  # type: ignore[attr-defined]
-    p = room.pulldown
-    if p is None:
-        return []
     s = ctx.system  # type: ignore[attr-defined]
-    g = p.governing
-    time_h = [t / 3600.0 for t in p.time]
+    g = p.governing  # type: ignore[attr-defined]
+    time_h = [t / 3600.0 for t in p.time]  # type: ignore[attr-defined]
     chart = PulldownChart(
         time_h,
-        p.air_temperature,
-        [(t.name, t.temperature, t.final_temperature) for t in p.products],
+        p.air_temperature,  # type: ignore[attr-defined]
+        [(t.name, t.temperature, t.final_temperature) for t in p.products],  # type: ignore[attr-defined]
         g.asked_time / 3600.0 if g is not None and g.asked_time is not None else None,
         s,
         ctx.width,  # type: ignore[attr-defined]
     )
     lines = []
-    for t in p.products:
+    for t in p.products:  # type: ignore[attr-defined]
         reached = (
             f"reaches {temperature(t.final_temperature, s)} in {t.time_to_final / 3600:.1f} h"
             if t.time_to_final is not None
-            else f"does not reach {temperature(t.final_temperature, s)} within {p.duration / 3600:g} h"
+            else f"does not reach {temperature(t.final_temperature, s)} within {p.duration / 3600:g} h"  # type: ignore[attr-defined]
         )
         asked = "" if t.asked_time is None else f" (asked: {t.asked_time / 3600:g} h{'' if t.met else ' - NOT MET'})"
         lines.append(f"{t.name} {reached}{asked}.")
-    lines.append(f"Lowest room air during the pull-down: {temperature(p.lowest_air_temperature, s)}.")
-    out = [heading("Pull-down after a delivery"), chart, Spacer(1, 3), note(" ".join(lines)), note(f"Basis: {p.basis}.")]
+    lines.append(f"Lowest room air during the pull-down: {temperature(p.lowest_air_temperature, s)}.")  # type: ignore[attr-defined]
+    out = [heading(title), chart, Spacer(1, 3), note(" ".join(lines)), note(f"Basis: {p.basis}.")]  # type: ignore[attr-defined]
     return [KeepTogether(out)]
