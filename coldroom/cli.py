@@ -30,43 +30,157 @@ app = typer.Typer(
 
 def fail(error: ColdroomError) -> "typer.Exit":
     """Print *error* as one line on stderr and return the Exit to raise."""
-    from coldroom.errors import ProjectFileError
+    from coldroom.errors import ProjectFileError, printable
 
     text = error.format() if isinstance(error, ProjectFileError) else f"coldroom: {error}"
-    print(" ".join(text.split()), file=sys.stderr)  # always exactly one line
+    print(printable(" ".join(text.split())), file=sys.stderr)  # always exactly one line
     return typer.Exit(code=getattr(error, "exit_code", 1))
+
+
+class Stopped(KeyboardInterrupt):
+    """SIGTERM or SIGHUP arrived: unwinds like Ctrl-C, so every temporary file is removed."""
+
+    def __init__(self, signum: int) -> None:
+        super().__init__(signum)
+        self.signum = signum
+
+
+def _stop(signum: int, frame: object) -> None:
+    raise Stopped(signum)
+
+
+def install_signal_handlers() -> None:
+    """Treat SIGTERM and SIGHUP like SIGINT (clean up, one line, exit 128 + the signal number)."""
+    import signal
+
+    for name in ("SIGTERM", "SIGHUP"):
+        number = getattr(signal, name, None)
+        if number is not None:
+            signal.signal(number, _stop)
+
+
+_written: list[str] = []  # outputs finished in this run, for the interruption message
+
+
+def _silence_stdout(stream=None) -> None:  # type: ignore[no-untyped-def]
+    """Point the file descriptor behind standard output at /dev/null, so the final flush cannot fail again."""
+    import io
+    import os
+
+    try:
+        fd = (stream if stream is not None else sys.stdout).fileno()
+        null = os.open(os.devnull, os.O_WRONLY)
+        os.dup2(null, fd)
+        os.close(null)
+    except (OSError, ValueError, AttributeError, io.UnsupportedOperation):
+        pass  # not backed by a file descriptor (a test runner's buffer)
+
+
+class _Stdout:
+    """Standard output whose write errors are coldroom errors.
+
+    A full device or an I/O error becomes an :class:`OutputError` (exit 73,
+    one line); a closed pipe is left to :func:`guarded`, which ends quietly.
+    """
+
+    def __init__(self, stream) -> None:  # type: ignore[no-untyped-def]
+        self._stream = stream
+
+    def _guard(self, action):  # type: ignore[no-untyped-def]
+        from coldroom.errors import OutputError
+
+        try:
+            return action()
+        except BrokenPipeError:
+            raise
+        except OSError as exc:
+            _silence_stdout(self._stream)
+            raise OutputError(f"cannot write to standard output: {exc.strerror or exc}") from None
+
+    def write(self, text: str) -> int:
+        return self._guard(lambda: self._stream.write(text))  # type: ignore[no-any-return]
+
+    def flush(self) -> None:
+        self._guard(self._stream.flush)
+
+    def __getattr__(self, name: str):  # type: ignore[no-untyped-def]
+        return getattr(self._stream, name)
 
 
 def guarded(func: Callable[[], None]) -> None:
     """Run *func*, turning any ColdroomError into a one-line message and exit code.
 
-    Ctrl-C is reported here too (typer would otherwise exit 130 silently):
+    Standard output is flushed inside, so a full disk behind it is reported
+    (exit 73) instead of failing at exit; a reader that closed the pipe
+    (``coldroom products | head -1``) ends the run quietly (exit 141, as a
+    program stopped by SIGPIPE). Ctrl-C, SIGTERM and SIGHUP are reported
+    here too, with exit 128 + the signal number:
     :func:`coldroom.output.write_atomic` has removed its temporary file by then.
     """
+    del _written[:]
     try:
         func()
+        sys.stdout.flush()
     except ColdroomError as error:
         raise fail(error) from None
-    except KeyboardInterrupt:
-        print("coldroom: interrupted; no output was written", file=sys.stderr)
-        raise typer.Exit(code=130) from None
+    except BrokenPipeError:
+        _silence_stdout()
+        raise typer.Exit(code=141) from None
+    except KeyboardInterrupt as stop:
+        raise typer.Exit(code=interrupted(stop)) from None
 
 
-def emit_json(data: object, json_out: Optional[str], *, force: bool, project: str, console) -> None:  # type: ignore[no-untyped-def]
-    """Write *data* as JSON to stdout (``-``) or atomically to *json_out*; nothing when not asked."""
-    if not json_out:
-        return
-    import json
+def interrupted(stop: KeyboardInterrupt) -> int:
+    """Report an interruption on one line; return its exit code (128 + signal number)."""
+    import signal
 
-    text = json.dumps(data, indent=2, ensure_ascii=False) + "\n"
-    if json_out == "-":
-        sys.stdout.write(text)
-        sys.stdout.flush()
+    number = getattr(stop, "signum", signal.SIGINT)
+    what = "interrupted" if number == signal.SIGINT else f"stopped by {signal.Signals(number).name}"
+    done = f"only {', '.join(_written)} was written" if _written else "no output was written"
+    print(f"coldroom: {what}; {done}, no partial file was left", file=sys.stderr)
+    return 128 + int(number)
+
+
+def check_outputs(*named: tuple[str, Optional[str]], force: bool, project: Optional[str] = None):  # type: ignore[no-untyped-def]
+    """Check every output of a command before any work (see :func:`coldroom.output.check_targets`)."""
+    from coldroom.output import check_targets
+
+    return check_targets(named, force=force, inputs=[project] if project else [])
+
+
+def console_for(*targets) -> object:  # type: ignore[no-untyped-def]
+    """Where the terminal text goes: stderr when an output is standard output, else stdout."""
+    return sys.stderr if any(t is not None and t.kind == "stdout" for t in targets) else sys.stdout
+
+
+def say(text: str, file=None) -> None:  # type: ignore[no-untyped-def]
+    """Print *text* (which may hold names from the project file) with control characters escaped."""
+    from coldroom.errors import printable
+
+    print(printable(text), file=file if file is not None else sys.stdout)
+
+
+def write_output(target, data, *, force: bool, project: Optional[str], console) -> None:  # type: ignore[no-untyped-def]
+    """Write a checked output (checked again: the disk may have changed meanwhile); say where."""
+    if target is None:
         return
     from coldroom.output import write_atomic
 
-    write_atomic(json_out, text, force=force, inputs=[project])
-    print(f"wrote {json_out}", file=console)
+    if target.kind == "stdout":
+        console.flush()
+    write_atomic(target.name, data, force=force, inputs=[project] if project else [])
+    if target.kind != "stdout":
+        _written.append(target.name)
+        say(f"wrote {target.name}", file=console)
+
+
+def emit_json(data: object, target, *, force: bool, project: str, console) -> None:  # type: ignore[no-untyped-def]
+    """Write *data* as strict JSON to a checked *target*; nothing when not asked."""
+    if target is None:
+        return
+    from coldroom.output import json_text
+
+    write_output(target, json_text(data), force=force, project=project, console=console)
 
 
 def version_callback(value: bool) -> None:
@@ -82,6 +196,8 @@ def _root(
     ),
 ) -> None:
     """Heat loads and refrigeration-cycle sizing for walk-in coolers and freezers."""
+    if not isinstance(sys.stdout, _Stdout):
+        sys.stdout = _Stdout(sys.stdout)  # type: ignore[assignment]
 
 
 # --- commands -------------------------------------------------------------
@@ -101,11 +217,11 @@ def validate_command(
 
         model = load_project(project)
         rooms = ", ".join(room.name for room in model.rooms)
-        print(f"{project}: valid ({len(model.rooms)} room{'s' if len(model.rooms) != 1 else ''}: {rooms})")
+        say(f"{project}: valid ({len(model.rooms)} room{'s' if len(model.rooms) != 1 else ''}: {rooms})")
         from coldroom.units import format_terms
 
         for key, message in project_warnings(model):
-            print(f"{project}: warning: {key}: {format_terms(message, model.project.units)}", file=sys.stderr)
+            say(f"{project}: warning: {key}: {format_terms(message, model.project.units)}", file=sys.stderr)
 
     guarded(run)
 
@@ -121,6 +237,7 @@ def load_command(
     """Each room's 24-hour heat load, component by component, and the required capacity."""
 
     def run() -> None:
+        (json_target,) = check_outputs(("--json", json_out), force=force, project=project)
 
         from coldroom.checks import project_warnings
         from coldroom.loads import project_loads
@@ -136,11 +253,11 @@ def load_command(
             "rooms": [r.to_json() for r in rooms],
             "warnings": [str(message) for message in warnings],  # SI wording, like every JSON figure
         }
-        out = sys.stderr if json_out == "-" else sys.stdout
-        print(loads_report(rooms, model.project.units, [r.temperature for r in model.rooms]), file=out)
+        out = console_for(json_target)
+        say(loads_report(rooms, model.project.units, [r.temperature for r in model.rooms]), file=out)
         for message in warnings:
-            print(f"warning: {format_terms(message, model.project.units)}", file=out)
-        emit_json(payload, json_out, force=force, project=project, console=out)
+            say(f"warning: {format_terms(message, model.project.units)}", file=out)
+        emit_json(payload, json_target, force=force, project=project, console=out)
 
     guarded(run)
 
@@ -148,11 +265,14 @@ def load_command(
 @app.command("schema")
 def schema_command() -> None:
     """Print the JSON Schema of the project file (for editors that complete and check YAML)."""
-    import json
 
-    from coldroom.projectfile import json_schema
+    def run() -> None:
+        from coldroom.output import json_text
+        from coldroom.projectfile import json_schema
 
-    print(json.dumps(json_schema(), indent=2, ensure_ascii=False))
+        sys.stdout.write(json_text(json_schema()))
+
+    guarded(run)
 
 
 @app.command("new")
@@ -168,8 +288,8 @@ def new_command(
         from coldroom.output import write_atomic
 
         text = files("coldroom.data").joinpath("starter.yaml").read_text(encoding="utf-8")
-        write_atomic(file, text, force=force)
-        print(f"wrote {file}; edit it, then run: coldroom validate {file}")
+        write_atomic(file, text, force=force, option="FILE")
+        say(f"wrote {file}; edit it, then run: coldroom validate {file}")
 
     guarded(run)
 
@@ -280,14 +400,16 @@ def size_command(
     """Size every room: loads, design temperatures, cycle; write the PDF sizing sheet (and JSON)."""
 
     def run() -> None:
-        import os
         from pathlib import Path
 
-        from coldroom.errors import OutputError, ProjectFileError
-        from coldroom.output import write_atomic
+        from coldroom.errors import ProjectFileError
         from coldroom.projectfile import parse_project_text
 
         source = Path(project)
+        pdf_target, json_target = check_outputs(
+            ("--out", out if out is not None else str(source.with_suffix(".pdf"))), ("--json", json_out),
+            force=force, project=project,
+        )
         try:
             raw = source.read_bytes()
         except FileNotFoundError:
@@ -296,19 +418,6 @@ def size_command(
             raise ProjectFileError("is a directory, not a project file", file=project) from None
         except OSError as exc:
             raise ProjectFileError(f"cannot read: {exc.strerror}", file=project) from None
-        pdf_path = Path(out) if out else source.with_suffix(".pdf")
-        to_stdout = json_out == "-"
-        targets = [pdf_path] + ([Path(json_out)] if json_out and not to_stdout else [])
-        # refuse early, before the slow part, what write_atomic would refuse at the end
-        if len(targets) == 2 and os.path.abspath(targets[0]) == os.path.abspath(targets[1]):
-            raise OutputError(f"{pdf_path}: --out and --json name the same file")
-        for target in targets:
-            if os.path.abspath(target) == os.path.abspath(source) or (
-                target.exists() and source.exists() and os.path.samefile(target, source)
-            ):
-                raise OutputError(f"{target}: refusing to write over the input file {project}")
-            if (target.exists() or target.is_symlink()) and not force:
-                raise OutputError(f"{target} already exists; pass --force to overwrite it")
 
         model = parse_project_text(raw, filename=project)
         from coldroom.report.sheet import render_sheet  # reportlab, lazily
@@ -316,11 +425,11 @@ def size_command(
 
         result = size_project(model, project, raw)
         pdf = render_sheet(result, model)
-        console = sys.stderr if to_stdout else sys.stdout
-        print(_size_summary(result, model), file=console)
-        write_atomic(pdf_path, pdf, force=force, inputs=[project])
-        print(f"wrote {pdf_path}", file=console)
-        emit_json(result.to_json(), json_out, force=force, project=project, console=console)
+        console = console_for(pdf_target, json_target)
+        say(_size_summary(result, model), file=console)
+        console.flush()  # a full disk behind the terminal text stops the run before any file is written
+        write_output(pdf_target, pdf, force=force, project=project, console=console)
+        emit_json(result.to_json(), json_target, force=force, project=project, console=console)
 
     guarded(run)
 
@@ -430,52 +539,52 @@ def cycle_command(
     --superheat 0 --subcooling 0 --isentropic-efficiency 1 is the ideal cycle.
     Gauge pressures are read against the standard atmosphere (101.325 kPa).
     """
-    from coldroom.errors import UnitError
-    from coldroom.units import parse_quantity
-
-    def usage(message: str) -> "typer.Exit":
-        print(f"coldroom: error: {message}", file=sys.stderr)
-        return typer.Exit(code=2)
-
-    try:
-        te = None if evaporating is None else parse_quantity(evaporating, "temperature", default_unit="°C")
-        tc = None if condensing is None else parse_quantity(condensing, "temperature", default_unit="°C")
-        p_suction = None if suction_pressure is None else parse_quantity(suction_pressure, "pressure", default_unit="kPa")
-        p_discharge = None if discharge_pressure is None else parse_quantity(discharge_pressure, "pressure", default_unit="kPa")
-        q = parse_quantity(capacity, "power", default_unit="W")
-        sh = parse_quantity(superheat, "temperature_difference", default_unit="K")
-        slsh = parse_quantity(suction_line_superheat, "temperature_difference", default_unit="K")
-        sc = parse_quantity(subcooling, "temperature_difference", default_unit="K")
-        tgc = None if gas_cooler_outlet is None else parse_quantity(gas_cooler_outlet, "temperature", default_unit="°C")
-    except UnitError as error:
-        raise usage(" ".join(str(error).split())) from None
-    if (te is None) == (p_suction is None):
-        raise usage("give one of --evaporating or --suction-pressure")
-    if te is None and tc is None and p_discharge is None and tgc is None:
-        raise usage("give --condensing or --discharge-pressure (or --gas-cooler-outlet for transcritical R-744)")
-    if tc is not None and p_discharge is not None:
-        raise usage("give --condensing or --discharge-pressure, not both")
-    if tc is None and p_discharge is None and tgc is None:
-        raise usage("give --condensing (or --gas-cooler-outlet for transcritical R-744)")
-    for name, p in (("suction", p_suction), ("discharge", p_discharge)):
-        if p is not None and p <= 0:
-            raise usage(f"{name} pressure {p / 1e3:.1f} kPa absolute is not above zero (gauge pressures are read against 101.325 kPa)")
-    system = units.strip().upper()
-    if system not in ("SI", "IP"):
-        raise usage(f"--units must be SI or IP, not {units!r}")
-    fmt = None
-    if out is not None:
-        fmt = out.rsplit(".", 1)[-1].lower() if "." in out else ""
-        if fmt not in ("pdf", "svg"):
-            raise usage(f"--out {out!r}: the name must end in .pdf or .svg")
 
     def run() -> None:
-        import json
+        from coldroom.data.refrigerants import lookup
+        from coldroom.errors import CalculationError, UsageError, command_line_values
+        from coldroom.units import parse_quantity
 
-        from coldroom.cycle import solve_cycle
+        def value(option: str, text: Optional[str], kind: str, unit: str) -> Optional[float]:
+            with command_line_values(option):
+                return None if text is None else parse_quantity(text, kind, default_unit=unit)
+
+        with command_line_values("--refrigerant"):
+            lookup(refrigerant)
+        te = value("--evaporating", evaporating, "temperature", "°C")
+        tc = value("--condensing", condensing, "temperature", "°C")
+        p_suction = value("--suction-pressure", suction_pressure, "pressure", "kPa")
+        p_discharge = value("--discharge-pressure", discharge_pressure, "pressure", "kPa")
+        q = value("--capacity", capacity, "power", "W")
+        sh = value("--superheat", superheat, "temperature_difference", "K")
+        slsh = value("--suction-line-superheat", suction_line_superheat, "temperature_difference", "K")
+        sc = value("--subcooling", subcooling, "temperature_difference", "K")
+        tgc = value("--gas-cooler-outlet", gas_cooler_outlet, "temperature", "°C")
+        if (te is None) == (p_suction is None):
+            raise UsageError("give one of --evaporating or --suction-pressure")
+        if te is None and tc is None and p_discharge is None and tgc is None:
+            raise UsageError("give --condensing or --discharge-pressure (or --gas-cooler-outlet for transcritical R-744)")
+        if tc is not None and p_discharge is not None:
+            raise UsageError("give --condensing or --discharge-pressure, not both")
+        if tc is None and p_discharge is None and tgc is None:
+            raise UsageError("give --condensing (or --gas-cooler-outlet for transcritical R-744)")
+        for name, p in (("suction", p_suction), ("discharge", p_discharge)):
+            if p is not None and p <= 0:
+                raise UsageError(
+                    f"{name} pressure {p / 1e3:.1f} kPa absolute is not above zero (gauge pressures are read against 101.325 kPa)"
+                )
+        system = units.strip().upper()
+        if system not in ("SI", "IP"):
+            raise UsageError(f"--units must be SI or IP, not {units!r}")
+        fmt = None
+        if out is not None:
+            fmt = out.rsplit(".", 1)[-1].lower() if "." in out else ""
+            if fmt not in ("pdf", "svg"):
+                raise UsageError(f"--out {out!r}: the name must end in .pdf or .svg")
+        (out_target,) = check_outputs(("--out", out), force=force)
+
+        from coldroom.cycle import check_cycle_inputs, solve_cycle
         from coldroom.refrigerant import get_fluid
-
-        from coldroom.errors import CalculationError
 
         fluid = get_fluid(refrigerant)
 
@@ -485,17 +594,19 @@ def cycle_command(
             except ColdroomError as error:
                 raise CalculationError(f"{option} {pressure / 1e3:.1f} kPa absolute: {error}") from None
 
-        evap = te if te is not None else dew(p_suction, "--suction-pressure")
+        evap = te if te is not None else dew(p_suction, "--suction-pressure")  # type: ignore[arg-type]
         cond, high_side = tc, None
         if p_discharge is not None:
             if fluid.info.name == "R-744" and p_discharge >= fluid.critical_pressure:
                 high_side = p_discharge
             else:
                 cond = dew(p_discharge, "--discharge-pressure")
+        with command_line_values():  # a dew point from a measured pressure is checked by the cycle itself
+            check_cycle_inputs(te, q, sh, sc, isentropic_efficiency, slsh, clearance=clearance)  # type: ignore[arg-type]
         try:
             result = solve_cycle(
-                refrigerant, evap, cond, q, superheat=sh, subcooling=sc, isentropic_efficiency=isentropic_efficiency,
-                suction_line_superheat=slsh, clearance=clearance, gas_cooler_outlet_temperature=tgc,
+                refrigerant, evap, cond, q, superheat=sh, subcooling=sc, isentropic_efficiency=isentropic_efficiency,  # type: ignore[arg-type]
+                suction_line_superheat=slsh, clearance=clearance, gas_cooler_outlet_temperature=tgc,  # type: ignore[arg-type]
                 high_side_pressure=high_side,
             )
         except CalculationError as error:
@@ -506,11 +617,12 @@ def cycle_command(
                 given.append(f"--discharge-pressure {p_discharge / 1e3:.1f} kPa absolute (dew {cond:.2f} °C)")
             raise CalculationError(f"{'; '.join(given)}: {error}") from None
         if as_json:
-            print(json.dumps(result.to_json(), indent=2, ensure_ascii=False))
+            from coldroom.output import json_text
+
+            sys.stdout.write(json_text(result.to_json()))
         else:
             print(_cycle_table(result))
-        if out is not None:
-            from coldroom.output import write_atomic
+        if out_target is not None:
             from coldroom.report.cyclepage import render_cycle_page
             from coldroom.sizing import sheet_date, versions
 
@@ -520,8 +632,8 @@ def cycle_command(
                      gas_cooler_outlet, system]
             data = render_cycle_page(result, system, fmt, sheet_date(None), ["" if g is None else g for g in given],
                                      versions())
-            write_atomic(out, data, force=force)
-            print(f"wrote {out}", file=sys.stderr if as_json else sys.stdout)
+            console = sys.stderr if as_json or out_target.kind == "stdout" else sys.stdout
+            write_output(out_target, data, force=force, project=None, console=console)
 
     guarded(run)
 
@@ -635,6 +747,7 @@ def check_command(
     """Check each room's existing unit at the room's new conditions (capacity at balance vs load)."""
 
     def run() -> None:
+        (json_target,) = check_outputs(("--json", json_out), force=force, project=project)
 
         from coldroom.projectfile import load_project
 
@@ -648,9 +761,9 @@ def check_command(
             None if check is None else unit_limits(model, i, loads, check.holds, pulldown=True)
             for i, (loads, check) in enumerate(checks)
         ]
-        console = sys.stderr if json_out == "-" else sys.stdout
-        print(_check_text(model, checks, limits), file=console)
-        if json_out:  # build the payload only when asked
+        console = console_for(json_target)
+        say(_check_text(model, checks, limits), file=console)
+        if json_target is not None:  # build the payload only when asked
             data = {
                 "project": {"name": model.project.name, "unit_system": model.project.units, "input_file": project},
                 "rooms": [
@@ -662,7 +775,7 @@ def check_command(
                     for (loads, check), limit in zip(checks, limits)
                 ],
             }
-            emit_json(data, json_out, force=force, project=project, console=console)
+            emit_json(data, json_target, force=force, project=project, console=console)
 
     guarded(run)
 
@@ -670,19 +783,22 @@ def check_command(
 def main() -> None:
     """Console-script entry point.
 
-    A ColdroomError is reported by the commands themselves. Anything else is a
-    bug in coldroom: it is reported on one line with exit code 70 (set
-    COLDROOM_DEBUG=1 to see the traceback).
+    A ColdroomError is reported by the commands themselves. SIGTERM and SIGHUP
+    are handled like Ctrl-C. Anything else is a bug in coldroom: it is reported
+    on one line with exit code 70 (set COLDROOM_DEBUG=1 to see the traceback).
     """
     import os
 
+    install_signal_handlers()
     try:
         app()
     except SystemExit:
         raise
-    except KeyboardInterrupt:
-        print("coldroom: interrupted; no output was written", file=sys.stderr)
-        raise SystemExit(130) from None
+    except KeyboardInterrupt as stop:
+        raise SystemExit(interrupted(stop)) from None
+    except BrokenPipeError:
+        _silence_stdout()
+        raise SystemExit(141) from None
     except ColdroomError as error:  # raised outside a guarded block
         raise SystemExit(fail(error).exit_code) from None
     except Exception as error:  # pragma: no cover - defensive

@@ -303,6 +303,50 @@ def _check(name: str, value: float, low: float, high: float, unit: str, low_open
         raise CalculationError(f"{name} {value!r} {unit} is outside the valid range {bracket}{low:g}, {high:g}]".replace("  ", " "))
 
 
+def check_cycle_inputs(
+    evaporating_temperature: float | None,
+    capacity: float,
+    superheat: float = DEFAULT_SUPERHEAT,
+    subcooling: float = DEFAULT_SUBCOOLING,
+    isentropic_efficiency: float = DEFAULT_ISENTROPIC_EFFICIENCY,
+    suction_line_superheat: float = 0.0,
+    suction_pressure_drop: float = 0.0,
+    clearance: float = DEFAULT_CLEARANCE,
+    polytropic_exponent: float | None = None,
+) -> None:
+    """Refuse cycle inputs outside the range :func:`solve_cycle` works in (no property look-up).
+
+    Parameters are those of :func:`solve_cycle`, in the same units (an
+    evaporating temperature of None is not checked). The
+    capacity must be at least 1 W: below that no refrigeration system exists
+    and the mass flow underflows (a usable-range guard, common practice, no
+    source).
+
+    Raises
+    ------
+    CalculationError
+        A value outside its range, naming the quantity, the value and the range.
+
+    Examples
+    --------
+    >>> check_cycle_inputs(-10.0, 1e-320)
+    Traceback (most recent call last):
+    ...
+    coldroom.errors.CalculationError: capacity 1e-320 W is outside the valid range [1, 1e+09]
+    """
+    _check("capacity", capacity, 1.0, 1e9, "W")
+    _check("superheat", superheat, 0.0, 60.0, "K")
+    _check("subcooling", subcooling, 0.0, 40.0, "K")
+    _check("isentropic efficiency", isentropic_efficiency, 0.0, 1.0, "", low_open=True)
+    _check("suction-line superheat", suction_line_superheat, 0.0, 60.0, "K")
+    _check("suction pressure drop", suction_pressure_drop, 0.0, 20.0, "K")
+    _check("clearance", clearance, 0.0, 0.5, "")
+    if polytropic_exponent is not None:
+        _check("polytropic exponent", polytropic_exponent, 1.0, 2.0, "", low_open=True)
+    if evaporating_temperature is not None:
+        _check("evaporating temperature", evaporating_temperature, -100.0, 60.0, "°C")
+
+
 def _high_side(
     fluid: Fluid,
     state1: StatePoint,
@@ -354,7 +398,7 @@ def solve_cycle(
         31 °C) the cycle is transcritical: give *gas_cooler_outlet_temperature*
         instead (this may then be ``None``).
     capacity : float
-        Refrigerating capacity [W], > 0.
+        Refrigerating capacity [W], 1 W … 1 GW.
     superheat : float
         Useful superheat in the evaporator, from the dew point [K]. Default 5 K [trade].
     subcooling : float
@@ -402,16 +446,10 @@ def solve_cycle(
     """
     fluid = get_fluid(refrigerant)
     info = fluid.info
-    _check("capacity", capacity, 0.0, 1e9, "W", low_open=True)
-    _check("superheat", superheat, 0.0, 60.0, "K")
-    _check("subcooling", subcooling, 0.0, 40.0, "K")
-    _check("isentropic efficiency", isentropic_efficiency, 0.0, 1.0, "", low_open=True)
-    _check("suction-line superheat", suction_line_superheat, 0.0, 60.0, "K")
-    _check("suction pressure drop", suction_pressure_drop, 0.0, 20.0, "K")
-    _check("clearance", clearance, 0.0, 0.5, "")
-    if polytropic_exponent is not None:
-        _check("polytropic exponent", polytropic_exponent, 1.0, 2.0, "", low_open=True)
-    _check("evaporating temperature", evaporating_temperature, -100.0, 60.0, "°C")
+    check_cycle_inputs(
+        evaporating_temperature, capacity, superheat, subcooling, isentropic_efficiency,
+        suction_line_superheat, suction_pressure_drop, clearance, polytropic_exponent,
+    )
 
     is_r744 = info.name == "R-744"
     transcritical = False

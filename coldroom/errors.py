@@ -6,6 +6,10 @@ code; library callers may catch the specific subclass.
 
 from __future__ import annotations
 
+import re
+from contextlib import contextmanager
+from typing import Iterator
+
 
 class ColdroomError(ValueError):
     """Base class of every error coldroom raises on purpose.
@@ -88,6 +92,58 @@ class OutputError(ColdroomError):
     or the directory is not writable)."""
 
     exit_code = 73
+
+
+class UsageError(ColdroomError):
+    """A value given on the command line is unusable (exit 2, like a typo in an option).
+
+    Raised directly, or through :func:`command_line_values` for values whose
+    parser raises another class.
+    """
+
+    exit_code = 2
+
+
+@contextmanager
+def command_line_values(option: str = "") -> Iterator[None]:
+    """Re-raise any :class:`ColdroomError` inside the block as a :class:`UsageError`.
+
+    A value read from the command line is a usage error whatever the parser
+    that refuses it (an unknown unit, an unknown name, a value out of range),
+    so a command parses and checks its option values inside this block.
+
+    Examples
+    --------
+    >>> with command_line_values("--capacity"):
+    ...     raise UnitError("unknown unit 'kQ'")
+    Traceback (most recent call last):
+    ...
+    coldroom.errors.UsageError: --capacity: unknown unit 'kQ'
+    """
+    try:
+        yield
+    except UsageError:
+        raise
+    except ColdroomError as error:
+        raise UsageError(f"{option}: {error}" if option else str(error)) from None
+
+
+_CONTROL = re.compile("[\x00-\x08\x0b-\x1f\x7f-\x9f]")
+
+
+def printable(text: str) -> str:
+    r"""*text* with control characters shown as escapes, safe to print on a terminal.
+
+    Tabs and newlines stay; every other C0/C1 control character and DEL
+    becomes ``\xNN`` so a value from a file cannot move the cursor, change
+    colours or retitle the terminal.
+
+    Examples
+    --------
+    >>> printable("Cold\x1b[2Jroom\x00")
+    'Cold\\x1b[2Jroom\\x00'
+    """
+    return _CONTROL.sub(lambda m: f"\\x{ord(m.group()):02x}", text)
 
 
 def finite(name: str, value: float) -> float:

@@ -12,6 +12,10 @@ DEMO = REPO / "project_files" / "cooler_to_freezer.yaml"
 COOLER = REPO / "project_files" / "produce_cooler.yaml"
 
 
+
+def _not_json(constant: str) -> None:
+    raise ValueError(f"{constant} is not JSON (strict RFC 8259)")
+
 def run(*args: str) -> subprocess.CompletedProcess[str]:
     return subprocess.run([sys.executable, "-m", "coldroom", *args], capture_output=True, text=True, timeout=120)
 
@@ -31,7 +35,7 @@ def test_check_demo_prints_the_verdict() -> None:
 def test_check_json_to_stdout() -> None:
     result = run("check", str(DEMO), "--json", "-")
     assert result.returncode == 0, result.stderr
-    data = json.loads(result.stdout)  # stdout holds only the JSON; the text goes to stderr
+    data = json.loads(result.stdout, parse_constant=_not_json)  # only strict JSON on stdout; the text goes to stderr
     assert "verdict" in result.stderr
     room = data["rooms"][0]
     unit = room["existing_unit"]
@@ -49,14 +53,17 @@ def test_room_without_unit_is_listed() -> None:
 
 
 def test_json_file_is_not_overwritten_without_force(tmp_path: Path) -> None:
+    """Refused before any computation: the existing file is checked first (no balance search runs)."""
     target = tmp_path / "check.json"
-    first = run("check", str(DEMO), "--json", str(target))
-    assert first.returncode == 0, first.stderr
-    assert json.loads(target.read_text(encoding="utf-8"))["rooms"][0]["existing_unit"]["model"] == "rated point"
-    second = run("check", str(DEMO), "--json", str(target))
-    assert second.returncode == 73
-    assert "--force" in second.stderr and len(second.stderr.strip().splitlines()) == 1
-    assert run("check", str(DEMO), "--json", str(target), "--force").returncode == 0
+    target.write_text("precious\n", encoding="utf-8")
+    refused = run("check", str(DEMO), "--json", str(target))
+    assert refused.returncode == 73
+    assert "--force" in refused.stderr and len(refused.stderr.strip().splitlines()) == 1
+    assert refused.stdout == ""  # nothing was computed or printed
+    assert target.read_text(encoding="utf-8") == "precious\n"
+    forced = run("check", str(COOLER), "--json", str(target), "--force")  # no existing unit: quick
+    assert forced.returncode == 0, forced.stderr
+    assert json.loads(target.read_text(encoding="utf-8"))["rooms"][0]["existing_unit"] is None
 
 
 def test_json_over_the_input_is_refused(tmp_path: Path) -> None:

@@ -12,12 +12,12 @@ import shutil
 import signal
 import subprocess
 import sys
-import tempfile
 import time
 from pathlib import Path
 
 import pytest
 
+import coldroom.output as output
 from coldroom.errors import OutputError
 from coldroom.output import write_atomic
 
@@ -41,39 +41,35 @@ def project(tmp_path: Path) -> Path:
 # --- interruption ------------------------------------------------------------------------------
 
 
-class _HalfThenInterrupt:
-    """Wraps the temporary file: writes half the payload, then Ctrl-C arrives."""
+def _half_then(signal_exception):
+    """A stand-in for coldroom.output._write_payload: half the bytes, then the interruption."""
+    real = output._write_payload
 
-    def __init__(self, handle):
-        self._handle = handle
-        self.name = handle.name
+    def write(fd: int, payload: bytes) -> None:
+        real(fd, payload[: len(payload) // 2])
+        raise signal_exception
 
-    def write(self, data: bytes) -> int:
-        self._handle.write(data[: len(data) // 2])
-        self._handle.flush()
-        raise KeyboardInterrupt
+    return write
 
-    def __enter__(self):
-        return self
 
-    def __exit__(self, *exc):
-        return self._handle.__exit__(*exc)
-
-    def __getattr__(self, name):
-        return getattr(self._handle, name)
+@pytest.fixture(params=["unnamed", "named"])
+def temporary_kind(request, monkeypatch: pytest.MonkeyPatch) -> str:
+    """Run once with O_TMPFILE (where the platform has it) and once with a named temporary file."""
+    if request.param == "named":
+        monkeypatch.delattr(os, "O_TMPFILE", raising=False)
+    elif not hasattr(os, "O_TMPFILE"):
+        pytest.skip("no O_TMPFILE on this platform")
+    return request.param
 
 
 @pytest.mark.parametrize("existing", [False, True], ids=["new-file", "over-existing-with-force"])
 def test_interrupt_mid_write_leaves_no_partial_file(
-    tmp_path: Path, monkeypatch: pytest.MonkeyPatch, existing: bool
+    tmp_path: Path, monkeypatch: pytest.MonkeyPatch, existing: bool, temporary_kind: str
 ) -> None:
     target = tmp_path / "result.json"
     if existing:
         target.write_text("precious old result\n")
-    real = tempfile.NamedTemporaryFile
-    monkeypatch.setattr(
-        "coldroom.output.tempfile.NamedTemporaryFile", lambda *a, **k: _HalfThenInterrupt(real(*a, **k))
-    )
+    monkeypatch.setattr(output, "_write_payload", _half_then(KeyboardInterrupt()))
     with pytest.raises(KeyboardInterrupt):
         write_atomic(target, "x" * 100_000, force=existing)
     left = sorted(p.name for p in tmp_path.iterdir())
@@ -83,35 +79,22 @@ def test_interrupt_mid_write_leaves_no_partial_file(
 
 
 CHILD = r"""
-import sys, tempfile, time
+import os, sys, time
 import coldroom.output as output
 
-real = tempfile.NamedTemporaryFile
+real = output._write_payload
 
 
-class Slow:
-    def __init__(self, handle):
-        self.handle = handle
-        self.name = handle.name
-
-    def write(self, data):
-        self.handle.write(data[: len(data) // 2])
-        self.handle.flush()
-        print("HALF-WRITTEN", flush=True)
-        time.sleep(60)
-        return self.handle.write(data[len(data) // 2 :])
-
-    def __enter__(self):
-        return self
-
-    def __exit__(self, *exc):
-        return self.handle.__exit__(*exc)
-
-    def __getattr__(self, name):
-        return getattr(self.handle, name)
+def slow(fd, payload):
+    real(fd, payload[: len(payload) // 2])
+    print("HALF-WRITTEN", flush=True)
+    time.sleep(60)
+    real(fd, payload[len(payload) // 2 :])
 
 
-output.tempfile.NamedTemporaryFile = lambda *a, **k: Slow(real(*a, **k))
+output._write_payload = slow
+if sys.argv[3] == "named":
+    del os.O_TMPFILE
 sys.argv = ["coldroom", "load", sys.argv[1], "--json", sys.argv[2]]
 from coldroom.cli import main
 
@@ -119,12 +102,21 @@ main()
 """
 
 
-@pytest.mark.skipif(sys.platform == "win32", reason="SIGINT to a child process is POSIX")
-def test_sigint_during_write_leaves_only_the_input(project: Path) -> None:
-    """A real Ctrl-C (SIGINT) to `coldroom load --json` while half the JSON is on disk."""
+@pytest.mark.skipif(sys.platform == "win32", reason="signals to a child process are POSIX")
+@pytest.mark.parametrize(
+    "signum, code, said",
+    [(signal.SIGINT, 130, "interrupted;"), (signal.SIGTERM, 143, "stopped by SIGTERM;"),
+     (getattr(signal, "SIGHUP", 1), 129, "stopped by SIGHUP;")],
+    ids=["SIGINT", "SIGTERM", "SIGHUP"],
+)
+@pytest.mark.parametrize("kind", ["unnamed", "named"])
+def test_signal_during_write_leaves_only_the_input(project: Path, signum: int, code: int, said: str, kind: str) -> None:
+    """A real Ctrl-C, SIGTERM or SIGHUP to `coldroom load --json` while half the JSON is on disk."""
+    if kind == "unnamed" and not hasattr(os, "O_TMPFILE"):
+        pytest.skip("no O_TMPFILE on this platform")
     folder = project.parent
     child = subprocess.Popen(
-        [sys.executable, "-c", CHILD, str(project), str(folder / "room.json")],
+        [sys.executable, "-c", CHILD, str(project), str(folder / "room.json"), kind],
         stdout=subprocess.PIPE,
         stderr=subprocess.PIPE,
         text=True,
@@ -140,15 +132,19 @@ def test_sigint_during_write_leaves_only_the_input(project: Path) -> None:
         else:
             pytest.fail(f"child ended before writing: {child.stderr.read() if child.stderr else ''}")
         temporaries = [p.name for p in folder.iterdir() if p.name != "room.yaml"]
-        assert len(temporaries) == 1 and temporaries[0].endswith(".tmp")  # the half-written file exists now
-        child.send_signal(signal.SIGINT)
+        if kind == "named":  # the half-written file exists now, under a short hidden name
+            assert len(temporaries) == 1 and temporaries[0].startswith(".coldroom-") and temporaries[0].endswith(".tmp")
+        else:  # unnamed: not even visible while it is being written
+            assert temporaries == []
+        child.send_signal(signum)
         _, stderr = child.communicate(timeout=30)
     finally:
         if child.poll() is None:
             child.kill()
             child.wait()
-    assert child.returncode == 130, stderr
-    assert "interrupted; no output was written" in stderr
+    assert child.returncode == code, stderr
+    assert said in stderr and "no output was written" in stderr
+    assert len(stderr.strip().splitlines()) == 1
     assert sorted(p.name for p in folder.iterdir()) == ["room.yaml"]
     assert project.read_bytes() == DEMO.read_bytes()
 

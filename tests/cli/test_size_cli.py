@@ -24,6 +24,10 @@ DEMO = REPO / "project_files" / "produce_cooler.yaml"
 runner = CliRunner()
 
 
+
+def _not_json(constant: str) -> None:
+    raise ValueError(f"{constant} is not JSON (strict RFC 8259)")
+
 def _run(*args: str):
     return runner.invoke(app, list(args), catch_exceptions=False)
 
@@ -41,7 +45,7 @@ def test_size_writes_pdf_beside_the_input_and_json(project: Path):
     assert result.exit_code == 0, result.output
     pdf = project.with_suffix(".pdf")
     assert pdf.read_bytes().startswith(b"%PDF-")
-    data = json.loads(out_json.read_text(encoding="utf-8"))
+    data = json.loads(out_json.read_text(encoding="utf-8"), parse_constant=_not_json)  # strict: no NaN/Infinity
     room = data["rooms"][0]
     # DEVELOPERS.md "Contracts": keys of `size`
     for key in ("name", "loads_w", "daily_energy_kwh", "required_capacity_w", "cycle"):

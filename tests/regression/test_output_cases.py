@@ -13,7 +13,7 @@ from pathlib import Path
 import pytest
 
 import coldroom.output as output
-from coldroom.errors import OutputError
+from coldroom.errors import OutputError, UsageError
 from coldroom.output import write_atomic
 
 
@@ -131,13 +131,17 @@ def test_directory_not_writable(tmp_path):
 
 
 def test_target_is_a_directory(tmp_path):
-    with pytest.raises(OutputError, match="is a directory"):
-        write_atomic(tmp_path, b"x", force=True)
+    for name in (tmp_path, f"{tmp_path}/new/", ""):
+        with pytest.raises(UsageError) as info:
+            write_atomic(name, b"x", force=True)
+        assert info.value.exit_code == 2
+    assert listing(tmp_path) == []
 
 
-def test_dash_is_for_the_caller():
-    with pytest.raises(OutputError, match="standard output"):
-        write_atomic("-", b"x", force=True)
+@pytest.mark.parametrize("name", ["-", "/dev/stdout"])
+def test_dash_and_dev_stdout_are_standard_output(name, capsysbinary):
+    write_atomic(name, b"x", force=True)
+    assert capsysbinary.readouterr().out == b"x"
 
 
 def test_no_clobber_when_the_file_appears_meanwhile(tmp_path, monkeypatch):
@@ -146,9 +150,9 @@ def test_no_clobber_when_the_file_appears_meanwhile(tmp_path, monkeypatch):
     target = tmp_path / "room.pdf"
     real_link = os.link
 
-    def racing_link(src, dst):
-        Path(dst).write_bytes(b"theirs")
-        return real_link(src, dst)
+    def racing_link(src, dst, **kwargs):
+        (tmp_path / Path(dst).name).write_bytes(b"theirs")
+        return real_link(src, dst, **kwargs)
 
     monkeypatch.setattr(output.os, "link", racing_link)
     with pytest.raises(OutputError, match="--force"):
@@ -169,7 +173,7 @@ def test_cannot_create_temporary_file(tmp_path, monkeypatch):
     def refuse(*args, **kwargs):
         raise PermissionError(13, "Permission denied")
 
-    monkeypatch.setattr(output.tempfile, "NamedTemporaryFile", refuse)
+    monkeypatch.setattr(output, "_open_temporary", refuse)
     with pytest.raises(OutputError, match="Permission denied"):
         write_atomic(tmp_path / "room.pdf", b"x", force=True)
     assert listing(tmp_path) == []
