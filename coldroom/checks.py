@@ -49,7 +49,7 @@ True
 
 from __future__ import annotations
 
-from typing import TYPE_CHECKING, Callable
+from typing import TYPE_CHECKING, Callable, Iterable, Iterator, get_args
 
 from coldroom.errors import ColdroomError
 from coldroom.results import Note
@@ -70,6 +70,9 @@ MIN_ROOM_VOLUME = 1.0  # m³: below this it is a cabinet, not a walk-in room (co
 #: Two rooms describing their shared partition must agree on its area within
 #: this share of the larger figure (our choice: measuring tolerance) [-].
 PARTITION_AREA_TOLERANCE = 0.05
+PULLDOWN_WARNING = 4 * 3600.0  # s: walk-in rooms pull product down in 8–24 h; under 4 h the peak hour governs
+POWER_WARNING = 100e3  # W: no single heat source or rating of a walk-in room is this large (MW written for kW?)
+DESIGN_RATIO_NOTE = 3.0  # design capacity above this multiple of the 24-hour figure is explained
 
 #: Temperature limits of each refrigerant's property model [°C]: the lowest
 #: saturated evaporating temperature (triple point of a pure fluid; the lower
@@ -166,6 +169,7 @@ def check_project(model: "ProjectModel", error: ErrorFactory) -> None:
         except ColdroomError as exc:
             raise error(str(exc), _setting_path(model, i, "refrigerant")) from None
         _check_refrigerant_range(model, room, info.name, at, error)
+        _check_existing_unit(room, at, error)
         _check_doors(room, at, error)
         _check_defrost(room, at, error)
         _check_schedule(room, at, error)
@@ -463,6 +467,54 @@ def _check_refrigerant_range(
         )
 
 
+def _check_existing_unit(room: "Room", at: tuple, error: ErrorFactory) -> None:
+    """The existing unit's rating must lie where its refrigerant has a subcritical saturation curve.
+
+    The same limits as the room's design (:data:`REFRIGERANT_LIMITS`): the
+    existing-unit check needs the rated state points, so a rating that
+    ``size``/``check`` cannot evaluate is refused here, at its key.
+    """
+    unit = room.existing_unit
+    if unit is None:
+        return
+    limits = _limits_of(unit.refrigerant)
+    if limits is None:
+        return
+    name, (lowest, critical) = limits
+    u_at = at + ("existing_unit",)
+    if unit.rated_point is not None:
+        rated = unit.rated_point
+        if rated.condensing_temperature >= critical:
+            raise error(
+                Note.fill(
+                    "rated condensing temperature {c} is at or above the critical temperature of "
+                    f"{name}, " + "{crit}; a rated point must be subcritical (a transcritical rating is not modelled)",
+                    c=(rated.condensing_temperature, "temperature"),
+                    crit=(critical, "temperature"),
+                ),
+                u_at + ("rated_point", "condensing_temperature"),
+            )
+        if rated.evaporating_temperature < lowest:
+            raise error(
+                Note.fill(
+                    "rated evaporating temperature {e} is below {low}, the lowest temperature of " + name,
+                    e=(rated.evaporating_temperature, "temperature"),
+                    low=(lowest, "temperature"),
+                ),
+                u_at + ("rated_point", "evaporating_temperature"),
+            )
+    if unit.polynomial is not None and unit.polynomial.discharge_min >= critical:
+        raise error(
+            Note.fill(
+                "the polynomial's discharge envelope starts at {d}, at or above the critical temperature of "
+                f"{name}, " + "{crit}",
+                d=(unit.polynomial.discharge_min, "temperature"),
+                crit=(critical, "temperature"),
+            ),
+            u_at + ("polynomial", "discharge_min"),
+        )
+
+
 def _check_defrost(room: "Room", at: tuple, error: ErrorFactory) -> None:
     defrost = room.defrost
     total = defrost.per_day * defrost.duration
@@ -592,11 +644,61 @@ def _check_doors(room: "Room", at: tuple, error: ErrorFactory) -> None:
             )
 
 
+def quantities(model: object, kind: str) -> Iterator[tuple[tuple, float]]:
+    """Every quantity field of *kind* in a validated project, as (key path, SI value).
+
+    Found through the ``quantity_kind`` that :func:`coldroom.projectfile.Q`
+    leaves on its validator, so a new power field is covered without being listed.
+    """
+
+    def kind_of(annotation: object, metadata: Iterable[object]) -> str | None:
+        for meta in metadata:
+            found = getattr(getattr(meta, "func", None), "quantity_kind", None)
+            if found:
+                return str(found)
+        for arg in get_args(annotation):
+            found = kind_of(arg, getattr(arg, "__metadata__", ()))
+            if found:
+                return found
+        return None
+
+    def walk(obj: object, path: tuple) -> Iterator[tuple[tuple, float]]:
+        fields = getattr(type(obj), "model_fields", None)
+        if fields is not None:
+            for name, info in fields.items():
+                value = getattr(obj, name)
+                if isinstance(value, float) and kind_of(info.annotation, info.metadata) == kind:
+                    yield path + (name,), value
+                else:
+                    yield from walk(value, path + (name,))
+        elif isinstance(obj, (list, tuple)):
+            for index, item in enumerate(obj):
+                yield from walk(item, path + (index,))
+        elif isinstance(obj, dict):
+            for key, item in obj.items():
+                yield from walk(item, path + (key,))
+
+    return walk(model, ())
+
+
 def project_warnings(model: "ProjectModel") -> list[tuple[str, str]]:
     """Legal but implausible input, as (dotted key, message) pairs for the sheet and terminal."""
     from coldroom.loads import construction_u
+    from coldroom.safeyaml import dotted
 
     out: list[tuple[str, str]] = []
+    for path, power in quantities(model, "power"):
+        if power > POWER_WARNING:
+            out.append(
+                (
+                    dotted(path),
+                    Note.fill(
+                        "{p} is implausibly large for a walk-in room (over {lim}); check the unit: kW, not MW?",
+                        p=(power, "power"),
+                        lim=(POWER_WARNING, "power"),
+                    ),
+                )
+            )
     for i, room in enumerate(model.rooms):
         key = f"rooms[{i}]"
         for side in ("north", "east", "south", "west", "ceiling"):
@@ -610,6 +712,18 @@ def project_warnings(model: "ProjectModel") -> list[tuple[str, str]]:
                             f"{room.name}: {side} U = {{u}} is high for a cold room (usually below {{typ}})",
                             u=(u, "u_value"),
                             typ=(0.3, "u_value"),
+                        ),
+                    )
+                )
+        for j, product in enumerate(room.products):
+            if product.daily_intake > 0 and product.pulldown_time < PULLDOWN_WARNING:
+                out.append(
+                    (
+                        f"{key}.products[{j}].pulldown_time",
+                        Note.fill(
+                            f"{room.name}: a pull-down time of {{t}} is short (walk-in rooms take 8–24 h); "
+                            "the product's peak then sets the design capacity",
+                            t=(product.pulldown_time, "hours"),
                         ),
                     )
                 )

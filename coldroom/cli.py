@@ -402,22 +402,15 @@ def size_command(
     def run() -> None:
         from pathlib import Path
 
-        from coldroom.errors import ProjectFileError
         from coldroom.projectfile import parse_project_text
+        from coldroom.safeyaml import read_source
 
         source = Path(project)
         pdf_target, json_target = check_outputs(
             ("--out", out if out is not None else str(source.with_suffix(".pdf"))), ("--json", json_out),
             force=force, project=project,
         )
-        try:
-            raw = source.read_bytes()
-        except FileNotFoundError:
-            raise ProjectFileError("no such file", file=project) from None
-        except IsADirectoryError:
-            raise ProjectFileError("is a directory, not a project file", file=project) from None
-        except OSError as exc:
-            raise ProjectFileError(f"cannot read: {exc.strerror}", file=project) from None
+        raw = read_source(project)
 
         model = parse_project_text(raw, filename=project)
         from coldroom.report.sheet import render_sheet  # reportlab, lazily

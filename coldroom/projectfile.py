@@ -46,12 +46,14 @@ from __future__ import annotations
 
 import datetime as _dt
 import os
+import re
 from contextvars import ContextVar
 from functools import partial
 from pathlib import Path
 from typing import Annotated, Any, Literal, Optional, Union
 
 from pydantic import (
+    AfterValidator,
     BaseModel,
     BeforeValidator,
     ConfigDict,
@@ -159,8 +161,33 @@ def Q(
     def run(value: Any, info: ValidationInfo) -> float:
         return validator(value, info)
 
+    run.quantity_kind = kind  # type: ignore[attr-defined]  # read by checks.quantities()
     return Annotated[float, BeforeValidator(run, json_schema_input_type=Union[float, str])]
 
+
+_CONTROL_CHARACTER = re.compile("[\x00-\x1f\x7f-\x9f]")
+_CONTROL_IN_NOTES = re.compile("[\x00-\x08\x0b-\x1f\x7f-\x9f]")  # notes may hold tabs and line breaks
+
+
+def _no_control(pattern: "re.Pattern[str]") -> Any:
+    def check(value: str) -> str:
+        found = pattern.search(value)
+        if found:
+            raise PydanticCustomError(
+                "coldroom_control",
+                "control character U+{code} in the text; a name is printed on terminals and the sheet, "
+                "so write it with letters, digits, spaces and punctuation only",
+                {"code": f"{ord(found.group()):04X}"},
+            )
+        return value
+
+    return AfterValidator(check)
+
+
+#: Free text printed on the terminal and the sheet: no control characters (an escape sequence
+#: in a room name could rewrite the terminal; a NUL cuts text short).
+Name = Annotated[str, _no_control(_CONTROL_CHARACTER)]
+Notes = Annotated[str, _no_control(_CONTROL_IN_NOTES)]
 
 Temperature = Q("temperature", ge=-60.0, le=70.0)
 RoomTemperature = Q("temperature", ge=-50.0, le=25.0)
@@ -171,6 +198,9 @@ HoursPerDay = Q("time", si="h", ip="h", ge=0.0, le=86400.0)
 Length = Q("length", gt=0.0, le=100.0)
 Thickness = Q("length", si="mm", ip="in", gt=0.0, le=1.0)
 Power = Q("power", ge=0.0, le=1e7)
+#: A rating of refrigeration equipment: at least 10 W (nothing smaller is a walk-in's unit, and
+#: a vanishing rating only divides by almost zero downstream) [trade].
+Rating = Q("power", ge=10.0, le=1e6)
 Mass = Q("mass", ge=0.0, le=1e7)
 
 
@@ -186,16 +216,16 @@ class Strict(BaseModel):
 class ProjectInfo(Strict):
     """Who and where: printed in the sheet's header."""
 
-    name: str = Field(min_length=1, max_length=200)
-    client: str = Field(default="", max_length=200)
-    site: str = Field(default="", max_length=200)
-    prepared_by: str = Field(default="", max_length=200)
+    name: Name = Field(min_length=1, max_length=200)
+    client: Name = Field(default="", max_length=200)
+    site: Name = Field(default="", max_length=200)
+    prepared_by: Name = Field(default="", max_length=200)
     date: Optional[str] = Field(
         default=None,
         description="ISO date YYYY-MM-DD printed on the sheet; when omitted, SOURCE_DATE_EPOCH or today.",
     )
     units: Literal["SI", "IP"] = "SI"
-    notes: str = Field(default="", max_length=2000)
+    notes: Notes = Field(default="", max_length=2000)
 
     @field_validator("date", mode="before")
     @classmethod
@@ -277,7 +307,7 @@ class Construction(Strict):
         description="Overall thickness of a construction given by its u_value (for outside areas); "
         "layers give their own sum.",
     )
-    description: str = ""
+    description: Name = ""
 
     @model_validator(mode="after")
     def _one_of(self) -> "Construction":
@@ -390,7 +420,7 @@ class Dimensions(Strict):
 class Door(Strict):
     """A door and its traffic (Gosney & Olama door method)."""
 
-    name: str = "door"
+    name: Name = Field(default="door", max_length=100)
     wall: Optional[Literal["north", "east", "south", "west"]] = None
     width: Q("length", ge=0.3, le=10.0)  # type: ignore[valid-type]
     height: Q("length", ge=0.5, le=10.0)  # type: ignore[valid-type]
@@ -471,7 +501,8 @@ class Product(Strict):
     daily_intake: Mass = 0.0
     entering_temperature: Optional[Temperature] = None
     final_temperature: Optional[Temperature] = None
-    pulldown_time: Q("time", si="h", ip="h", gt=0.0, le=7 * 86400.0) = 86400.0  # type: ignore[valid-type]
+    # ≥ 1 h: no walk-in room pulls product down faster (a blast chiller takes about 90 min) [trade]
+    pulldown_time: Q("time", si="h", ip="h", ge=3600.0, le=7 * 86400.0) = 86400.0  # type: ignore[valid-type]
     packaging: Optional[Packaging] = None
     stored_mass: Mass = 0.0
 
@@ -523,7 +554,7 @@ class Fans(Strict):
 class Appliance(Strict):
     """Forklift, pallet truck, heater (door frame, drain line) or other equipment."""
 
-    name: str = Field(min_length=1, max_length=100)
+    name: Name = Field(min_length=1, max_length=100)
     kind: Literal["equipment", "forklift", "heater"] = "equipment"
     power: Power
     hours: HoursPerDay = 86400.0
@@ -696,13 +727,13 @@ class RatedPoint(Strict):
     ``suction_gas_temperature`` (not both; default 10 K superheat, EN 12900 [mem]).
     """
 
-    capacity: Q("power", gt=0.0, le=1e6)  # type: ignore[valid-type]
+    capacity: Rating  # type: ignore[valid-type]
     evaporating_temperature: Q("temperature", ge=-60.0, le=20.0)  # type: ignore[valid-type]
     condensing_temperature: Q("temperature", ge=10.0, le=70.0)  # type: ignore[valid-type]
     superheat: Optional[Q("temperature_difference", ge=0.0, le=40.0)] = None  # type: ignore[valid-type]
     suction_gas_temperature: Optional[Q("temperature", ge=-50.0, le=40.0)] = None  # type: ignore[valid-type]
     subcooling: Q("temperature_difference", ge=0.0, le=30.0) = 0.0  # type: ignore[valid-type]
-    power: Optional[Q("power", gt=0.0, le=1e6)] = None  # type: ignore[valid-type]
+    power: Optional[Rating] = None  # type: ignore[valid-type]
     swept_volume: Optional[Q("volume_flow", gt=0.0, le=1.0)] = None  # type: ignore[valid-type]
 
     @model_validator(mode="after")
@@ -785,14 +816,14 @@ class CompressorPolynomial(Strict):
 class UnitCoolerRating(Strict):
     """The evaporator (unit cooler): rated capacity at DT1 = air on − evaporating dew (EN 328 [mem])."""
 
-    capacity: Q("power", gt=0.0, le=1e6)  # type: ignore[valid-type]
+    capacity: Rating  # type: ignore[valid-type]
     dt1: Q("temperature_difference", gt=0.0, le=30.0)  # type: ignore[valid-type]
 
 
 class CondenserRating(Strict):
     """The air-cooled condenser: rated heat rejection at ΔT = SCT − entering air [trade]."""
 
-    heat_rejection: Q("power", gt=0.0, le=1e6)  # type: ignore[valid-type]
+    heat_rejection: Rating  # type: ignore[valid-type]
     temperature_difference: Q("temperature_difference", gt=0.0, le=40.0)  # type: ignore[valid-type]
 
 
@@ -804,7 +835,7 @@ class ExistingUnit(Strict):
     TDs fix the evaporating and condensing temperatures.
     """
 
-    name: str = Field(default="existing unit", max_length=100)
+    name: Name = Field(default="existing unit", max_length=100)
     refrigerant: str
     rated_point: Optional[RatedPoint] = None
     polynomial: Optional[CompressorPolynomial] = None
@@ -916,7 +947,7 @@ class Pulldown(Strict):
 class Room(Strict):
     """One walk-in room."""
 
-    name: str = Field(min_length=1, max_length=100)
+    name: Name = Field(min_length=1, max_length=100)
     temperature: RoomTemperature
     rh: RelativeHumidity = 0.85
     dimensions: Optional[Dimensions] = None
@@ -1241,16 +1272,10 @@ def load_project(path: str | os.PathLike[str]) -> ProjectModel:
     ProjectFileError
         Unreadable, malformed or physically impossible input (exit code 65).
     """
-    p = Path(path)
-    try:
-        raw = p.read_bytes()
-    except FileNotFoundError:
-        raise ProjectFileError("no such file", file=str(p)) from None
-    except IsADirectoryError:
-        raise ProjectFileError("is a directory, not a project file", file=str(p)) from None
-    except OSError as exc:
-        raise ProjectFileError(f"cannot read: {exc.strerror}", file=str(p)) from None
-    return parse_project_text(raw, filename=str(p))
+    from coldroom.safeyaml import read_source
+
+    name = str(Path(path))
+    return parse_project_text(read_source(name), filename=name)
 
 
 def json_schema() -> dict[str, Any]:

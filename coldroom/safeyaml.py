@@ -45,6 +45,7 @@ from __future__ import annotations
 
 import copy
 import math
+import os
 import re
 from dataclasses import dataclass, field
 from types import MappingProxyType
@@ -74,6 +75,7 @@ __all__ = [
     "Mark",
     "dotted",
     "load_yaml",
+    "read_source",
 ]
 
 KeyPath = tuple[Union[str, int], ...]
@@ -592,6 +594,42 @@ def _build(
         marks[child_path] = _mark(key_node)
         result[key] = _build(value_node, child_path, marks, value_marks)
     return result
+
+
+def read_source(path: "str | os.PathLike[str]", *, max_bytes: int = MAX_BYTES) -> bytes:
+    """Read a project file, at most *max_bytes* + 1 bytes of it.
+
+    A device that never ends (``/dev/zero``, ``/dev/urandom``) or a huge
+    sparse file is refused after ``max_bytes + 1`` bytes instead of filling
+    the memory.
+
+    Parameters
+    ----------
+    path : str or os.PathLike
+        The project file.
+    max_bytes : int
+        Size limit [byte].
+
+    Raises
+    ------
+    ProjectFileError
+        Missing, a directory, unreadable, or larger than *max_bytes* (exit 65).
+    """
+    name = os.fspath(path)
+    try:
+        with open(name, "rb") as handle:
+            raw = handle.read(max_bytes + 1)
+    except FileNotFoundError:
+        raise ProjectFileError("no such file", file=name) from None
+    except IsADirectoryError:
+        raise ProjectFileError("is a directory, not a project file", file=name) from None
+    except OSError as exc:
+        raise ProjectFileError(f"cannot read: {exc.strerror or exc}", file=name) from None
+    if len(raw) > max_bytes:
+        raise ProjectFileError(
+            f"file is larger than the limit of {max_bytes} bytes; a project file is a few kB", file=name
+        )
+    return raw
 
 
 def load_yaml(

@@ -97,6 +97,9 @@ _TABLE: dict[str, dict[str, Unit]] = {}
 _SHOWN: dict[str, list[str]] = {}
 
 
+_PREFIX_WORDS = {"m": "milli-", "M": "mega- (millions)"}
+
+
 def _add(kind: str, spellings: tuple[str, ...], unit: Unit) -> None:
     table = _TABLE.setdefault(kind, {})
     shown = _SHOWN.setdefault(kind, [])
@@ -296,7 +299,13 @@ DEFAULT_UNITS: dict[str, dict[str, str]] = {
     },
 }
 
-_NUMBER = r"[-+]?(?:\d+(?:[.,]\d*)?|[.,]\d+)(?:[eE][-+]?\d+)?"
+_NUMBER = r"[-+]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][-+]?\d+)?"
+_COMMA_NUMBER = re.compile(r"^\s*[-+]?[\d.]*\d?,[\d.,]*")  # "1,000 kg", "2,5 kW", ",5"
+
+#: Unit symbols whose SI prefix changes meaning with its case (m milli, M mega): the symbol
+#: written with the other case of its prefix ("mW", "MM") is refused, never guessed (SI
+#: Brochure, 9th ed., 3.1: prefix symbols are case-sensitive).
+CASE_SENSITIVE = frozenset({"mm", "MW", "MJ", "MPa", "mW/(m·K)"})
 _QUANTITY = re.compile(rf"^\s*(?P<number>{_NUMBER})\s*(?P<unit>.*?)\s*$")
 
 
@@ -323,6 +332,12 @@ def unit_for(kind: str, spelling: str) -> Unit:
     key = _normalise(spelling)
     unit = _TABLE[kind].get(key)
     if unit is not None:
+        if unit.symbol in CASE_SENSITIVE and key == _normalise(unit.symbol) and spelling.strip()[:1] != unit.symbol[0]:
+            raise UnitError(
+                f"{spelling!r} is not a unit of {kind.replace('_', ' ')} here: unit prefixes are case-sensitive "
+                f"(m is milli, M is mega); write {unit.symbol!r} if you mean {_PREFIX_WORDS[unit.symbol[0]]}"
+                + (", or more likely 'kW'" if kind == "power" else "")
+            )
         return unit
     other = [k for k, table in _TABLE.items() if key in table and k != kind]
     shown = ", ".join(_SHOWN[kind])
@@ -379,12 +394,17 @@ def parse_quantity(
         number = float(value)
         spelling = default_unit or DEFAULT_UNITS[system][kind]
     elif isinstance(value, str):
+        if _COMMA_NUMBER.match(value):
+            raise UnitError(
+                f"{value!r}: a comma in a number is ambiguous; write it without thousands separators and "
+                f"with a decimal point, e.g. '1000 kg', '2.5 kW'"
+            )
         match = _QUANTITY.match(value)
         if not match:
             raise UnitError(
                 f"cannot read {value!r} as a {kind.replace('_', ' ')}; write a number and a unit, e.g. '{_example(kind)}'"
             )
-        number = float(match.group("number").replace(",", "."))
+        number = float(match.group("number"))
         spelling = match.group("unit") or default_unit or DEFAULT_UNITS[system][kind]
     else:
         raise UnitError(f"expected a number or a quantity such as '{_example(kind)}', got {type(value).__name__}")

@@ -15,6 +15,7 @@ The components follow ASHRAE Handbook—Refrigeration, chapter
 
 from __future__ import annotations
 
+from dataclasses import replace
 from typing import TYPE_CHECKING, Callable
 
 from coldroom.results import LoadLine, RoomLoads, Term
@@ -435,7 +436,7 @@ def room_loads(model: "ProjectModel", room: "Room") -> RoomLoads:
     if day.scheduled:  # the schedule replaces the all-at-once approximation
         peak = day.peak_load
     warnings += list(day.notes)
-    return RoomLoads(
+    loads = RoomLoads(
         name=room.name,
         lines=tuple(lines),
         safety_factor=room.safety_factor,
@@ -450,6 +451,39 @@ def room_loads(model: "ProjectModel", room: "Room") -> RoomLoads:
             dict.fromkeys(basis for basis in ("outside", "given") for side in SIDES if room.transmission_area(side)[1] == basis)
         ),
         design_day=day,
+    )
+    note = design_capacity_note(room, loads)
+    return loads if note is None else replace(loads, warnings=loads.warnings + (note,))
+
+
+DESIGN_RATIO_NOTE = 3.0
+"""A design capacity above this multiple of the 24-hour figure is explained (common practice, no source)."""
+
+
+def design_capacity_note(room: "Room", loads: RoomLoads) -> "Note | None":
+    """Why the design capacity is many times the 24-hour figure, when it is (else None).
+
+    Only the peak hour can make it so; its largest part is then the product at
+    its pull-down rate, so the note names the shortest pull-down time.
+    """
+    from coldroom.results import Note
+
+    required = loads.required_capacity
+    if required <= 0.0 or loads.design_capacity <= DESIGN_RATIO_NOTE * required:
+        return None
+    moving = [p.pulldown_time for p in room.products if p.daily_intake > 0]
+    if getattr(loads.design_day, "scheduled", False):
+        cause = "the busiest hour of the room's schedule sets it; check the schedule and the pull-down times"
+    elif moving:
+        cause = "the product pulled down in {t} (pulldown_time) sets it; check the pull-down times"
+    else:
+        cause = "the internal loads all on at once set it; check the appliance, lighting and fan powers"
+    return Note.fill(
+        f"{room.name}: the design capacity {{d}} is {loads.design_capacity / required:.0f} times the 24-hour figure "
+        f"{{r}} because the peak hour governs: " + cause,
+        d=(loads.design_capacity, "power"),
+        r=(required, "power"),
+        t=(min(moving) if moving else 0.0, "hours"),
     )
 
 

@@ -125,6 +125,30 @@ def test_oversize_file_is_refused_fast(tmp_path: Path) -> None:
     assert elapsed < SUBPROCESS_LIMIT
 
 
+@pytest.mark.skipif(sys.platform == "win32", reason="POSIX devices and sparse files")
+@pytest.mark.parametrize("source", ["/dev/zero", "/dev/urandom", "sparse"])
+def test_endless_or_huge_input_is_read_only_to_the_limit(source: str, tmp_path: Path) -> None:
+    """Only MAX_BYTES + 1 bytes are read: a device that never ends or a 3 GiB sparse file is refused
+    at once (exit 65), without filling the memory."""
+    from coldroom.safeyaml import MAX_BYTES, read_source
+
+    path = source
+    if source == "sparse":
+        sparse = tmp_path / "huge.yaml"
+        with open(sparse, "wb") as handle:
+            handle.truncate(3 << 30)
+        path = str(sparse)
+    elif not Path(source).exists():
+        pytest.skip(f"no {source}")
+    with pytest.raises(ProjectFileError, match="larger than the limit") as info:
+        read_source(path)
+    assert str(MAX_BYTES) in info.value.message
+    result, elapsed = run("validate", path, cwd=tmp_path)
+    assert result.returncode == 65, result.stderr
+    check_line(result.stderr, path, {"line": None, "key": None, "message": "larger than the limit"})
+    assert elapsed < SUBPROCESS_LIMIT
+
+
 def test_a_directory_and_a_missing_file_are_whole_file_errors(tmp_path: Path) -> None:
     result, _ = run("validate", str(tmp_path), cwd=tmp_path)
     assert result.returncode == 65

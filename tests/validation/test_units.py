@@ -104,3 +104,36 @@ def test_bare_numbers_follow_the_unit_system() -> None:
     assert parse_quantity(50, "temperature", system="SI") == 50.0
     assert parse_quantity(4, "length", default_unit="in") == pytest.approx(0.1016)
     assert math.isclose(to_unit(parse_quantity("3 TR", "power"), "power", "Btu/h"), 36000.0)
+
+
+# SI Brochure (BIPM, 9th ed., 2019), 3.1: prefix symbols are case-sensitive — m (milli, 10⁻³)
+# and M (mega, 10⁶) differ only by case, so a unit written with the wrong case is refused,
+# never read as the other one.
+@pytest.mark.parametrize(
+    "text, kind, meant",
+    [("5 mW", "power", "MW"), ("100 MM", "length", "mm"), ("2 mJ", "energy", "MJ"), ("1 mpa", "pressure", "MPa")],
+)
+def test_si_prefix_case_is_not_guessed(text, kind, meant):
+    with pytest.raises(UnitError, match="case-sensitive") as info:
+        parse_quantity(text, kind)
+    assert repr(meant) in str(info.value)
+
+
+@pytest.mark.parametrize(
+    "text, kind, si",
+    [("5 MW", "power", 5e6), ("100 mm", "length", 0.1), ("2 MJ", "energy", 2e6), ("1 MPa", "pressure", 1e6),
+     ("1 Mpa", "pressure", 1e6), ("100 millimetres", "length", 0.1), ("5 KW", "power", 5e3)],
+)
+def test_prefixes_in_their_own_case_are_read(text, kind, si):
+    assert parse_quantity(text, kind) == pytest.approx(si)
+
+
+# A comma in a number is a thousands separator in English-speaking practice and a decimal
+# sign in much of Europe (ISO 80000-1, 7.3.2 allows either decimal sign), so "1,000 kg" is
+# 1000 kg to one reader and 1 kg to another: refused, with the way to write it.
+@pytest.mark.parametrize("text, kind", [("1,000 kg", "mass"), ("12,000 Btu/h", "power"), ("2,5 kW", "power"),
+                                        ("-1,5", "temperature"), (",5 m", "length")])
+def test_comma_in_a_number_is_refused_with_the_way_to_write_it(text, kind):
+    with pytest.raises(UnitError, match="thousands separators") as info:
+        parse_quantity(text, kind)
+    assert "decimal point" in str(info.value)

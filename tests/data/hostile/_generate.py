@@ -70,6 +70,17 @@ def variant(*pairs: tuple[str, str]) -> str:
     return text
 
 
+EXISTING_UNIT = """\
+      refrigerant: R-448A
+    existing_unit:
+      refrigerant: R-448A
+      rated_point:
+        capacity: 4.5 kW
+        evaporating_temperature: -10 °C
+        condensing_temperature: 45 °C
+        power: 2.2 kW
+"""
+
 BOMB = "project: {name: bomb}\n" + "a0: &a0 [lol, lol, lol, lol, lol, lol, lol, lol, lol]\n" + "".join(
     f"a{i}: &a{i} [{', '.join([f'*a{i - 1}'] * 9)}]\n" for i in range(1, 10)
 )
@@ -113,6 +124,14 @@ CASES: dict[str, str | bytes] = {
     "name_is_a_number.yaml": variant(("  name: Hostile base\n", "  name: 12\n")),
     "rooms_is_a_mapping.yaml": BASE.split("rooms:\n")[0] + "rooms: {name: Cooler}\n",
     "bad_choice.yaml": variant(("      floor: {construction: panel, facing: ground}\n", "      floor: {construction: panel, facing: earth}\n")),
+    "thousands_separator.yaml": variant(("        daily_intake: 200 kg\n", "        daily_intake: 1,000 kg\n")),
+    "decimal_comma.yaml": variant(("      power: 60 W\n", "      power: 0,06 kW\n")),
+    "milli_for_mega.yaml": variant(("      power: 60 W\n", "      power: 60 mW\n")),
+    "pulldown_instant.yaml": variant(("        final_temperature: 3 °C\n", "        final_temperature: 3 °C\n        pulldown_time: 1e-5 h\n")),
+    "pulldown_denormal.yaml": variant(("        final_temperature: 3 °C\n", "        final_temperature: 3 °C\n        pulldown_time: 4.9e-324 h\n")),
+    "rated_power_denormal.yaml": variant(("      refrigerant: R-448A\n", EXISTING_UNIT.replace("power: 2.2 kW", "power: 2.2e-308 kW"))),
+    "rated_capacity_with_comma.yaml": variant(("      refrigerant: R-448A\n", EXISTING_UNIT.replace("capacity: 4.5 kW", "capacity: '15,000 Btu/h'"))),
+    "co2_unit_rated_at_45.yaml": variant(("      refrigerant: R-448A\n", EXISTING_UNIT.replace("existing_unit:\n      refrigerant: R-448A", "existing_unit:\n      refrigerant: R-744"))),
     # --- YAML attacks and broken files ------------------------------------------------------------
     "billion_laughs.yaml": BOMB,
     "deep_nesting.yaml": "project: " + "[" * 200 + "]" * 200 + "\n",
@@ -127,6 +146,9 @@ CASES: dict[str, str | bytes] = {
     "utf16_bom.yaml": BASE.encode("utf-16"),
     "utf8_bom_then_error.yaml": b"\xef\xbb\xbf" + variant(("    rh: 85 %\n", "    rh: 85 %\n    humidty: 80 %\n")).encode(),
     "control_character.yaml": variant(("  name: Hostile base\n", "  name: Hostile\x07 base\n")),
+    "name_escape_sequence.yaml": variant(("  - name: Cooler\n", '  - name: "Cooler\\e[2J\\e]0;owned\\a"\n')),
+    "key_escape_sequence.yaml": BASE + '"roms\\e[2J\\e]0;owned\\a": []\n',
+    "name_nul.yaml": variant(("  name: Hostile base\n", '  name: "Hostile\\0 base"\n')),
     "empty.yaml": "",
     "only_comments.yaml": "# nothing here but a comment\n\n",
     "top_level_list.yaml": "- project: {name: x}\n- rooms: []\n",
