@@ -305,7 +305,7 @@ _COMMA_NUMBER = re.compile(r"^\s*[-+]?[\d.]*\d?,[\d.,]*")  # "1,000 kg", "2,5 kW
 #: Unit symbols whose SI prefix changes meaning with its case (m milli, M mega): the symbol
 #: written with the other case of its prefix ("mW", "MM") is refused, never guessed (SI
 #: Brochure, 9th ed., 3.1: prefix symbols are case-sensitive).
-CASE_SENSITIVE = frozenset({"mm", "MW", "MJ", "MPa", "mW/(m·K)"})
+CASE_SENSITIVE = frozenset({"mm", "MW", "MJ", "MPa", "MPa(g)", "mW/(m·K)"})
 _QUANTITY = re.compile(rf"^\s*(?P<number>{_NUMBER})\s*(?P<unit>.*?)\s*$")
 
 
