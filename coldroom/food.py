@@ -35,6 +35,7 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass, field
+from functools import cached_property
 from typing import Protocol, runtime_checkable
 
 from coldroom.errors import CalculationError, unknown_name
@@ -392,11 +393,14 @@ class CompositionModel:
                 f"initial freezing point {self.freezing_point!r} °C outside −60 … 0 °C"
             )
 
-    @property
+    # The composition is frozen: the derived fractions, bound water and the
+    # reference enthalpy are computed once per model (the pull-down tables ask
+    # for thousands of enthalpies of the same product).
+    @cached_property
     def _fractions(self) -> dict[str, float]:
         return self.composition.normalised()
 
-    @property
+    @cached_property
     def bound_water(self) -> float:
         """Bound (non-freezable) water x_b = 0.4·x_protein, at most x_w [-]
         (Schwartzberg, ASHRAE [pub])."""
@@ -465,7 +469,11 @@ class CompositionModel:
         float
             Enthalpy [J/kg].
         """
-        return self._absolute_enthalpy(temperature) - self._absolute_enthalpy(REFERENCE_TEMPERATURE)
+        return self._absolute_enthalpy(temperature) - self._reference_enthalpy
+
+    @cached_property
+    def _reference_enthalpy(self) -> float:
+        return self._absolute_enthalpy(REFERENCE_TEMPERATURE)
 
     def sensible_specific_heat(self, temperature: float) -> float:
         """Specific heat without latent release: Σ x_i·c_i with the water split
