@@ -59,7 +59,11 @@ def room_load_table(loads: RoomLoads, system: str) -> str:
         f"run time {run_h:g} h/day ({loads.run_time_basis}), safety factor {loads.safety_factor:.0%}",
         f"required capacity   {power_text(loads.required_capacity, system)}",
         f"peak-hour capacity  {power_text(loads.peak_capacity, system)}"
-        f"   (product at pull-down rate, all internal loads on)",
+        + (
+            f"   (design-day schedule, peak hour {loads.design_day.peak_hour:02d}:00)"
+            if loads.design_day is not None and loads.design_day.scheduled
+            else "   (product at pull-down rate, all internal loads on)"
+        ),
         f"design capacity     {power_text(loads.design_capacity, system)}   (set by the {loads.governed_by})",
     ]
     return body + "\n" + "\n".join(footer)

@@ -254,13 +254,26 @@ def with_intake_scaled(model: "ProjectModel", index: int, factor: float) -> "Pro
 
 
 def margin(model: "ProjectModel", index: int) -> float:
-    """The check's margin (capacity at balance ÷ required − 1) [-]; −1 when the unit has no capacity."""
-    from coldroom.equipment import check_room
+    """The check's margin (capacity at balance ÷ required − 1) [-].
 
-    check = check_room(model, model.rooms[index], chart=False)
+    −1 when the unit has no capacity there, or when the changed room cannot be calculated
+    at all (a set point the refrigerant or the property models do not reach): the search
+    then treats it as a room the unit does not hold.
+    """
+    check = _check_or_none(model, index)
     if check is None or check.capacity_at_balance is None or check.margin_percent is None:
         return -1.0
     return check.margin_percent / 100.0
+
+
+def _check_or_none(model: "ProjectModel", index: int) -> Any:
+    from coldroom.equipment import check_room
+    from coldroom.errors import CalculationError
+
+    try:
+        return check_room(model, model.rooms[index], chart=False)
+    except CalculationError:
+        return None
 
 
 def _unit_suction_floor(room: "Room") -> Optional[float]:
@@ -312,8 +325,6 @@ def existing_unit_capacity(model: "ProjectModel", index: int) -> Callable[[float
     """
     import numpy as np
 
-    from coldroom.equipment import check_room
-
     t0 = model.rooms[index].temperature
     xs, ys = [], []
     for offset in (-2.0,) + PULLDOWN_OFFSETS:
@@ -321,7 +332,7 @@ def existing_unit_capacity(model: "ProjectModel", index: int) -> Callable[[float
         if xs and t <= xs[-1]:
             continue
         shifted = at_room_temperature(model, index, t)
-        check = check_room(shifted, shifted.rooms[index], chart=False)
+        check = _check_or_none(shifted, index)
         xs.append(t)
         ys.append(0.0 if check is None or check.capacity_at_balance is None else check.capacity_at_balance)
     ax, ay = np.asarray(xs), np.asarray(ys)

@@ -165,6 +165,8 @@ class PulldownChart(_Plot):
                   for n, ts, f in self.products]
         values = air + [v for _, ts, f in series for v in ts + [f]]
         lo, hi = min(values), max(values)
+        pad = 0.05 * max(hi - lo, 1.0)
+        lo, hi = lo - pad, hi + pad
         step = _nice_step(hi - lo, 5)
         y0 = step * (int(lo // step))
         y1 = step * (int(hi // step) + 1)
@@ -201,7 +203,7 @@ class PulldownChart(_Plot):
             c.setDash()
             c.setFillColor(MUTED)
             c.setFont("Helvetica", 7.0)
-            c.drawString(self.px(self.asked_h) + 2.0, self.bottom + self.plot_h - 8.0, "time asked")
+            c.drawString(self.px(self.asked_h) + 2.0, self.bottom + self.plot_h - 9.0, clean("time asked"))
         self.legend(legend)
 
 
@@ -255,7 +257,11 @@ def _pulldown_block(ctx: object, title: str, p: object) -> list:
 
     from coldroom.report.sheet import heading, note
 
+    from coldroom.pulldown import FINAL_TOLERANCE
+    from coldroom.units import display
+
     s = ctx.system  # type: ignore[attr-defined]
+    tolerance = display(FINAL_TOLERANCE, "temperature_difference", s)
     g = p.governing  # type: ignore[attr-defined]
     time_h = [t / 3600.0 for t in p.time]  # type: ignore[attr-defined]
     chart = PulldownChart(
@@ -269,7 +275,7 @@ def _pulldown_block(ctx: object, title: str, p: object) -> list:
     lines = []
     for t in p.products:  # type: ignore[attr-defined]
         reached = (
-            f"reaches {temperature(t.final_temperature, s)} in {t.time_to_final / 3600:.1f} h"
+            f"reaches {temperature(t.final_temperature, s)} (within {tolerance}) in {t.time_to_final / 3600:.1f} h"
             if t.time_to_final is not None
             else f"does not reach {temperature(t.final_temperature, s)} within {p.duration / 3600:g} h"  # type: ignore[attr-defined]
         )
