@@ -25,6 +25,9 @@ app = typer.Typer(
     add_completion=False,
     no_args_is_help=True,
     pretty_exceptions_enable=False,
+    # plain help and usage errors: the rich formatter (rich + markdown-it) costs
+    # more to import than typer itself
+    rich_markup_mode=None,
 )
 
 

@@ -1,4 +1,5 @@
-"""`coldroom --help` and `coldroom validate` import neither CoolProp nor reportlab."""
+"""`coldroom --help` and `coldroom validate` import neither CoolProp nor reportlab,
+and help is formatted without rich (whose import costs more than typer's)."""
 
 from __future__ import annotations
 
@@ -16,7 +17,7 @@ try:
     app(sys.argv[1:], standalone_mode=False)
 except SystemExit:
     pass
-heavy = sorted(m for m in sys.modules if m.split('.')[0] in ('CoolProp', 'reportlab'))
+heavy = sorted(m for m in sys.modules if m.split('.')[0] in ('CoolProp', 'reportlab', 'rich'))
 print('HEAVY:' + ','.join(heavy))
 """
 
