@@ -117,6 +117,9 @@ class CycleResult:
         Refrigerating capacity (evaporator duty) [W].
     superheat, subcooling, suction_line_superheat, suction_pressure_drop : float
         Inputs [K] (the pressure drop as a saturation-temperature loss).
+    discharge_pressure_drop : float
+        Discharge-line drop as a rise of the compressor's saturated discharge
+        temperature above condensing [K].
     isentropic_efficiency, clearance : float
         Inputs [1].
     polytropic_exponent : float
@@ -187,6 +190,7 @@ class CycleResult:
     isentropic_efficiency: float
     suction_line_superheat: float
     suction_pressure_drop: float
+    discharge_pressure_drop: float
     clearance: float
     polytropic_exponent: float
     states: tuple[StatePoint, StatePoint, StatePoint, StatePoint]
@@ -243,6 +247,7 @@ class CycleResult:
             "isentropic_efficiency": self.isentropic_efficiency,
             "suction_line_superheat_k": self.suction_line_superheat,
             "suction_pressure_drop_k": self.suction_pressure_drop,
+            "discharge_pressure_drop_k": self.discharge_pressure_drop,
             "clearance": self.clearance,
             "polytropic_exponent": self.polytropic_exponent,
             "evaporating_pressure_pa": self.evaporating_pressure,
@@ -383,6 +388,7 @@ def solve_cycle(
     polytropic_exponent: float | None = None,
     gas_cooler_outlet_temperature: float | None = None,
     high_side_pressure: float | None = None,
+    discharge_pressure_drop: float = 0.0,
     _warmer: tuple[tuple[float, float, float], ...] = (),
 ) -> CycleResult:
     """Solve a single-stage vapour-compression cycle for a refrigerating capacity.
@@ -417,6 +423,11 @@ def solve_cycle(
         ln(p₂/p₁)/ln(ρ₂ₛ/ρ₁) (common practice, no source).
     gas_cooler_outlet_temperature : float, optional
         R-744 transcritical: gas-cooler outlet temperature [°C].
+    discharge_pressure_drop : float
+        Discharge-line pressure drop as a rise of saturation temperature [K]:
+        the compressor discharges at the dew pressure of the condensing
+        temperature plus this; the condenser stays at the condensing pressure.
+        Default 0. Ignored for a transcritical cycle.
     high_side_pressure : float, optional
         R-744 transcritical: gas-cooler pressure [Pa]; default the pressure
         that maximises COP (golden-section search between 1.02 × critical
@@ -450,6 +461,7 @@ def solve_cycle(
         evaporating_temperature, capacity, superheat, subcooling, isentropic_efficiency,
         suction_line_superheat, suction_pressure_drop, clearance, polytropic_exponent,
     )
+    _check("discharge pressure drop", discharge_pressure_drop, 0.0, 20.0, "K")
 
     is_r744 = info.name == "R-744"
     transcritical = False
@@ -552,6 +564,8 @@ def solve_cycle(
         bubble = fluid.saturated_liquid(pressure=p_high)
         liquid = bubble if subcooling == 0 else fluid.state_pt(p_high, bubble.t - subcooling, phase="liquid")
         evap_out, state1, flows = suction_states(liquid.h)
+        if discharge_pressure_drop > 0:  # compressor works against condenser + discharge-line drop
+            p_high = fluid.dew_pressure(tc + discharge_pressure_drop)
         s2s, state2, state3 = _high_side(fluid, state1, p_high, isentropic_efficiency, liquid, None)
         glide_cond = tc - bubble.t if info.is_blend else 0.0
         t_reject = tc
@@ -602,6 +616,7 @@ def solve_cycle(
         isentropic_efficiency=isentropic_efficiency,
         suction_line_superheat=suction_line_superheat,
         suction_pressure_drop=suction_pressure_drop,
+        discharge_pressure_drop=0.0 if transcritical else discharge_pressure_drop,
         clearance=clearance,
         polytropic_exponent=n,
         states=(state1, state2, state3, state4),
@@ -654,7 +669,7 @@ def solve_system_cycle(
     **options
         The other keywords of :func:`solve_cycle` (subcooling, isentropic
         efficiency, suction-line superheat, suction pressure drop, clearance,
-        gas-cooler outlet temperature, high-side pressure).
+        gas-cooler outlet temperature, high-side pressure, discharge pressure drop).
 
     Returns
     -------

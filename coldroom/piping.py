@@ -43,7 +43,8 @@ Method, with sources:
   cannot be evaluated (a supercritical line) the common floor of 5.1 m/s
   (1000 fpm) in risers is used instead [trade]. Horizontal vapour lines
   below 2.5 m/s (500 fpm) get an advisory [trade].
-* Liquid velocity above 1.5 m/s gets an advisory (liquid hammer) [trade].
+* Liquid velocity above 1.5 m/s (liquid hammer) and vapour velocity above 20 m/s
+  (noise) get an advisory [trade].
 """
 
 from __future__ import annotations
@@ -86,6 +87,8 @@ RISER_VELOCITY_FLOOR = 5.1
 HORIZONTAL_VELOCITY_FLOOR = 2.5
 #: Advisory ceiling in liquid lines [m/s] [trade].
 LIQUID_VELOCITY_CEILING = 1.5
+#: Advisory ceiling in vapour lines (noise) [m/s] [trade].
+VAPOUR_VELOCITY_CEILING = 20.0
 
 ENTRAINMENT_SOURCE = (
     "minimum entrainment J* >= 0.85, Jacobs et al. 1976 / ASHRAE Handbook - Refrigeration ch. 1 [mem]; "
@@ -483,6 +486,14 @@ def size_line(
             )
         )
     oil_ok = oil_min = oil_v = oil_basis = None
+    if spec.line != "liquid" and chosen.velocity > VAPOUR_VELOCITY_CEILING:
+        warnings.append(
+            Note.fill(
+                f"{spec.line} line: {{v}} is above the usual {{vmax}} (noise, vibration) [trade]",
+                v=(chosen.velocity, "velocity"),
+                vmax=(VAPOUR_VELOCITY_CEILING, "velocity"),
+            )
+        )
     if spec.line != "liquid":
         check_velocity = chosen.velocity * minimum_load
         if spec.rise > 0.0:

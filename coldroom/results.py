@@ -417,6 +417,9 @@ class SystemResult:
         The cycle at the system's suction and condensing temperatures.
     electrical : SystemElectrical
     warnings : tuple of str
+    pipework : coldroom.pipework.Pipework or None
+        Lines, charge estimate and charge limits (``piping``, ``charge``,
+        ``charge_limits`` in JSON).
     """
 
     name: str
@@ -431,6 +434,7 @@ class SystemResult:
     cycle: Any
     electrical: SystemElectrical
     warnings: tuple[str, ...] = ()
+    pipework: Any = None
 
     @property
     def rooms(self) -> tuple[str, ...]:
@@ -472,6 +476,7 @@ class SystemResult:
             "electricity_kwh_per_day": e.daily_energy / 3.6e6,
             "electricity_kwh_per_day_by_use": {what: energy / 3.6e6 for what, energy in e.daily_energy_parts},
             "warnings": list(self.warnings),
+            **(self.pipework.to_json() if self.pipework is not None else {"piping": None}),
         }
 
 

@@ -539,24 +539,48 @@ def size_system(
         (t.evaporating_temperature, s.superheat, x.design_capacity * diversity)
         for t, s, x in zip(temps, settings, loads)
     ]
+    who = f"room {rooms[0].name!r}" if len(rooms) == 1 else f"system {name!r}"
+
+    def solve(suction_drop: float, discharge_drop: float = 0.0):
+        try:
+            return _cycle.solve_system_cycle(
+                info.name,
+                coils,
+                condensing,
+                subcooling=r.subcooling,
+                isentropic_efficiency=r.isentropic_efficiency,
+                suction_line_superheat=r.suction_line_superheat,
+                suction_pressure_drop=suction_drop,
+                discharge_pressure_drop=discharge_drop,
+                clearance=r.clearance,
+                gas_cooler_outlet_temperature=gas_cooler,
+            )
+        except CalculationError as exc:
+            raise type(exc)(
+                f"{who}: the {info.name} cycle at evaporating {min(c[0] for c in coils):.1f} °C / "
+                f"condensing {temps[0].condensing_temperature:.1f} °C cannot be sized: {exc}"
+            ) from None
+
+    cyc = solve(r.suction_line_drop)
+    # pipework: lines sized on this cycle; their drops fed back (coldroom.pipework)
+    from coldroom import pipework as _pipework
+
+    suction_drop, discharge_drop = r.suction_line_drop, 0.0
     try:
-        cyc = _cycle.solve_system_cycle(
-            info.name,
-            coils,
-            condensing,
-            subcooling=r.subcooling,
-            isentropic_efficiency=r.isentropic_efficiency,
-            suction_line_superheat=r.suction_line_superheat,
-            suction_pressure_drop=r.suction_line_drop,
-            clearance=r.clearance,
-            gas_cooler_outlet_temperature=gas_cooler,
+        lines = _pipework.size_system_lines(cyc, r.piping)
+        if lines is not None:
+            suction_drop, discharge_drop = _pipework.cycle_drops(cyc, lines)
+            if lines.line("suction") is None:
+                suction_drop = r.suction_line_drop
+            cyc = solve(suction_drop, discharge_drop)
+            suction = systems.suction_temperature([t.evaporating_temperature for t in temps], suction_drop)
+        smallest = min(rooms, key=lambda room: room.inside_volume)
+        works = _pipework.pipework(
+            cyc, lines, r.charge, smallest.name, smallest.inside_volume, suction_drop, discharge_drop,
+            _pipework.valve_subcooling(cyc, lines),
         )
     except CalculationError as exc:
-        who = f"room {rooms[0].name!r}" if len(rooms) == 1 else f"system {name!r}"
-        raise type(exc)(
-            f"{who}: the {info.name} cycle at evaporating {min(c[0] for c in coils):.1f} °C / "
-            f"condensing {temps[0].condensing_temperature:.1f} °C cannot be sized: {exc}"
-        ) from None
+        raise type(exc)(f"{who}: pipework and charge cannot be computed: {exc}") from None
     coldest = min(t.evaporating_temperature for t in temps)
     members = tuple(
         SystemMember(
@@ -583,6 +607,7 @@ def size_system(
         warnings += (
             f"{prefix}at {diversity:.0%} diversity the design capacity cannot remove the rooms' daily heat in 24 h",
         )
+    warnings += tuple(w.prefixed(prefix) for w in works.warnings)
     system = SystemResult(
         name=name,
         members=members,
@@ -590,12 +615,13 @@ def size_system(
         suction_temperature=suction,
         condensing_temperature=condensing,
         condenser_air_temperature=air,
-        suction_line_drop=r.suction_line_drop,
+        suction_line_drop=suction_drop,
         diversity=diversity,
         design_capacity=capacity,
         cycle=cyc,
         electrical=electrical,
         warnings=warnings,
+        pipework=works,
     )
     pulldowns = [
         _design_unit_pulldown(model, room, x, t, s, info.name, condensing, gas_cooler)
@@ -631,6 +657,8 @@ def _system_basis(model: "ProjectModel", system: "SystemResult") -> tuple:
         return ()
     show = _units.display
     units = model.project.units
+    piping = system.pipework.piping if system.pipework is not None else None
+    sized_suction = piping is not None and piping.line("suction") is not None
     rows = [
         (
             "System: condensing unit",
@@ -639,13 +667,22 @@ def _system_basis(model: "ProjectModel", system: "SystemResult") -> tuple:
         (
             "System: suction (dew)",
             f"{show(system.suction_temperature, 'temperature', units)} = coldest evaporating temperature less the "
-            f"suction-line drop {show(system.suction_line_drop, 'temperature_difference', units)}",
+            f"suction-line drop {show(system.suction_line_drop, 'temperature_difference', units)}"
+            + (" (from the sized suction line)" if sized_suction else " (as given)"),
         ),
     ]
     if len(system.members) > 1:
         rows.append(("System: warmer rooms", "evaporator pressure regulator; vapour mixed into the suction"))
     if system.diversity != 1.0:
         rows.append(("System: diversity", f"{system.diversity:.0%} of the rooms' summed design capacity"))
+    if piping is not None and system.pipework.discharge_drop > 0.0:
+        rows.append(
+            (
+                "System: discharge line",
+                f"compressor discharges {show(system.pipework.discharge_drop, 'temperature_difference', units)} "
+                "(saturation) above condensing: the sized discharge line's drop",
+            )
+        )
     return tuple(rows)
 
 

@@ -140,3 +140,18 @@ def pipework_flowables(ctx: Any, pipework: Any, system_name: str) -> list:
     if pipework.warnings:
         flow.extend(_warning_box(ctx, list(pipework.warnings)))
     return flow
+
+
+def system_pipework_section(ctx: Any) -> list:
+    """Every system's pipework, charge and charge limits (A1 included), deferring to the codes."""
+    # The codes deferred to: [ref:en-378] [ref:iso-5149] [ref:iec-60335-2-89].
+    from reportlab.platypus import CondPageBreak
+
+    out: list = []
+    for system in getattr(ctx.result, "systems", ()):
+        works = getattr(system, "pipework", None)
+        if works is None:
+            continue
+        out.append(CondPageBreak(220))
+        out += pipework_flowables(ctx, works, system.name)
+    return out

@@ -45,6 +45,7 @@ from reportlab.platypus import (
 
 from coldroom.report.charts import INK, MUTED, RULE, BarChart
 from coldroom.report.check_section import existing_unit_section
+from coldroom.report.pipework_section import system_pipework_section
 from coldroom.report.text import capacity, clean, esc, q, temperature
 from coldroom.report.timecharts import design_day_section, pulldown_section
 from coldroom.report.verdict_section import verdict_section
@@ -825,6 +826,7 @@ PROJECT_SECTIONS: list[Callable[[SheetContext], list]] = [
     project_warnings_section,
     system_details_section,
     system_cycles_section,
+    system_pipework_section,
 ]
 
 #: Sections printed for every room, in order. Insert new ones here.
