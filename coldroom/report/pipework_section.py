@@ -100,8 +100,8 @@ def pipework_flowables(ctx: Any, pipework: Any, system_name: str) -> list:
     charge = pipework.charge
     rows = [["Charge part", "Mass", "Basis"]]
     for part in charge.parts:
-        rows.append([part.part, q(part.mass, "mass", system, 3), clean(format_terms(part.basis, system))])
-    rows.append(["total", q(charge.total, "mass", system, 3), "estimate; weigh the actual charge in"])
+        rows.append([part.part, q(part.mass, "mass", system), clean(format_terms(part.basis, system))])
+    rows.append(["total", q(charge.total, "mass", system), "estimate; weigh the actual charge in"])
     flow.append(Spacer(1, 4))
     flow.append(KeepTogether([
         heading(f"Refrigerant charge - {system_name}"),
@@ -111,7 +111,7 @@ def pipework_flowables(ctx: Any, pipework: Any, system_name: str) -> list:
 
     limit_rows = [["Charge-limit rule", "Limit", "Verdict"]]
     for limit in pipework.limits:
-        limit_rows.append([limit.rule, "–" if limit.limit is None else q(limit.limit, "mass", system, 3), limit.verdict])
+        limit_rows.append([limit.rule, "–" if limit.limit is None else q(limit.limit, "mass", system), limit.verdict])
     defaults = ""
     if pipework.defaults_used:
         defaults = (
