@@ -149,4 +149,20 @@ def systems_report(systems: Sequence["SystemResult"], system: str) -> str:
             f"{s.name}: connected load {electrical_text(e.connected_load)} ({case}); compressor runs "
             f"{e.compressor_run_time / 3600:.1f} h/day"
         )
+        works = getattr(s, "pipework", None)
+        if works is not None:
+            tubes = ""
+            if works.piping is not None:
+                tubes = "lines " + ", ".join(
+                    f"{line.line} {line.chosen.tube.label} "
+                    f"({display(line.chosen.saturation_temperature_drop, 'temperature_difference', system, 2)})"
+                    for line in works.piping.lines
+                ) + "; "
+            verdicts = "; ".join(f"{limit.verdict}" + (
+                f" (limit {display(limit.limit, 'mass', system)})" if limit.limit is not None else "")
+                for limit in works.limits)
+            lines.append(
+                f"{s.name}: {tubes}charge about {display(works.charge.total, 'mass', system)}"
+                + (f"; charge limits: {verdicts}" if verdicts else "")
+            )
     return "\n".join(lines)
