@@ -263,6 +263,13 @@ def pipework(
     if piping is not None:
         for line in piping.lines:
             warnings.extend(line.warnings)
+        if info.name == "R-744":
+            warnings.append(
+                Note(
+                    "R-744: the standard copper walls of the tube tables are not rated for its pressures; use tube "
+                    "rated for the design pressure (e.g. CuFe2P / K65 or steel) and check every wall [trade]"
+                )
+            )
     for limit in limits:
         if limit.verdict != charge_rules.WITHIN:
             warnings.append(
