@@ -447,13 +447,9 @@ def _check_refrigerant_range(
             if refrigeration.evaporator_td is not None
             else _setting_path(model, index, "refrigerant"),
         )
-    if condensing >= critical:
-        hint = (
-            "; transcritical R-744 (gas cooler) is not modelled: choose another refrigerant "
-            "or a lower condenser air temperature"
-            if refrigerant == "R-744"
-            else "; choose a smaller condenser_td or another refrigerant"
-        )
+    if condensing >= critical and refrigerant != "R-744":
+        # R-744 above its critical point is sized transcritical (gas cooler; coldroom.cycle owns the boundary)
+        hint = "; choose a smaller condenser_td or another refrigerant"
         raise error(
             Note.fill(
                 "condensing temperature {c} (condenser air {a} + TD {td}) is at or above the critical temperature "

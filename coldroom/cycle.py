@@ -95,6 +95,21 @@ STANDARD_ATMOSPHERE = 101325.0  # Pa, exact
 R744_SUBCRITICAL_MARGIN = 1.0
 
 
+def r744_transcritical(condensing_temperature: float) -> bool:
+    """Whether an R-744 cycle condensing at this dew temperature [°C] must be sized transcritical.
+
+    The one place that draws the boundary: at or above the critical temperature
+    less :data:`R744_SUBCRITICAL_MARGIN` the heat is rejected in a gas cooler
+    (:func:`solve_cycle` refuses a condensing temperature there).
+
+    Examples
+    --------
+    >>> r744_transcritical(25.0), r744_transcritical(30.0)
+    (False, True)
+    """
+    return condensing_temperature >= get_fluid("R-744").critical_temperature - R744_SUBCRITICAL_MARGIN
+
+
 @dataclass(frozen=True)
 class CycleResult:
     """A solved cycle. SI units; temperatures in °C.
@@ -469,7 +484,7 @@ def solve_cycle(
         limit = fluid.critical_temperature - R744_SUBCRITICAL_MARGIN
         if gas_cooler_outlet_temperature is not None:
             transcritical = True
-        elif condensing_temperature is None or condensing_temperature >= limit:
+        elif condensing_temperature is None or r744_transcritical(condensing_temperature):
             raise CalculationError(
                 f"R-744 condensing at {condensing_temperature} °C is at or above {limit:.1f} °C "
                 f"(critical {fluid.critical_temperature:.1f} °C): the cycle is transcritical; "

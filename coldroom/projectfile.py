@@ -18,6 +18,8 @@ Layout of a project file (all keys are ours; see ``coldroom new``)::
     constructions: {name: {layers: [...]} | {u_value: ...}}
     rooms:        [room, ...]
     systems:      [{name, rooms: [room names], refrigerant, condenser settings, diversity}, ...]
+    economics:    electricity_price, currency, emission_factor, service_life, leakage_rate, recovery_factor
+    options:      [{name, note, changes: {dotted.path: value}}, ...]  (see coldroom.options)
 
 Examples
 --------
@@ -242,6 +244,13 @@ class ProjectInfo(Strict):
             ) from None
 
 
+class AmbientBinEntry(Strict):
+    """Hours per year at one ambient temperature (``design.ambient_bins``)."""
+
+    temperature: Q("temperature", ge=-60.0, le=60.0)  # type: ignore[valid-type]
+    hours: float = Field(ge=0.0, le=8784.0)
+
+
 class DesignConditions(Strict):
     """Site design conditions.
 
@@ -265,8 +274,29 @@ class DesignConditions(Strict):
         "0 keeps the outdoor air at the design dry bulb all day (see coldroom.designday).",
     )
 
+    weather: Optional[str] = Field(
+        default=None,
+        min_length=1,
+        max_length=500,
+        description="EPW weather file for the annual energy (`coldroom compare`); relative to the project file.",
+    )
+    ambient_bins: Optional[list["AmbientBinEntry"]] = Field(
+        default=None,
+        min_length=1,
+        max_length=200,
+        description="Hours per year at each ambient temperature (instead of a weather file); 8760 h ± 1 %.",
+    )
+
     @model_validator(mode="after")
     def _one_of(self) -> "DesignConditions":
+        if self.weather is not None and self.ambient_bins is not None:
+            raise ValueError("give weather (an EPW file) or ambient_bins, not both")
+        if self.ambient_bins is not None:
+            from coldroom.weather import AmbientBin, year_hours_error
+
+            problem = year_hours_error([AmbientBin(b.temperature, b.hours) for b in self.ambient_bins])
+            if problem is not None:
+                raise ValueError(f"ambient_bins: {problem}")
         if self.outdoor_rh is not None and self.outdoor_wet_bulb is not None:
             raise ValueError("give outdoor_rh or outdoor_wet_bulb, not both")
         if self.outdoor_rh is None and self.outdoor_wet_bulb is None:
@@ -627,7 +657,22 @@ class Piping(Strict):
 
 
 class ChargeSettings(Strict):
-    """Inputs of the charge estimate and the charge-limit rules of a system."""
+    """Inputs of the charge estimate and the charge-limit rules of a system.
+
+    ``charge: 2.5 kg`` (a bare mass) is short for ``charge: {total: 2.5 kg}``.
+    """
+
+    total: Optional[Q("mass", gt=0.0, le=1e4)] = Field(  # type: ignore[valid-type]
+        default=None,
+        description="The charge as known (nameplate, weighed in) [kg]; wins over the estimate (TEWI in compare).",
+    )
+
+    @model_validator(mode="before")
+    @classmethod
+    def _mass_shorthand(cls, value: Any) -> Any:
+        if isinstance(value, (int, float, str)) and not isinstance(value, bool):
+            return {"total": value}
+        return value
 
     evaporator_volume: Optional[Q("volume", si="L", ip="ft³", gt=0.0, le=10.0)] = None  # type: ignore[valid-type]
     condenser_volume: Optional[Q("volume", si="L", ip="ft³", gt=0.0, le=10.0)] = None  # type: ignore[valid-type]
@@ -670,6 +715,16 @@ class CondensingSettings(Strict):
     condenser_fan_power: Optional[Q("power", ge=0.0, le=1e5)] = Field(  # type: ignore[valid-type]
         default=None,
         description="Electrical input of the condenser fans; default estimated from the heat of rejection.",
+    )
+    minimum_condensing_temperature: Q("temperature", ge=0.0, le=50.0) = Field(  # type: ignore[valid-type]
+        default=25.0,
+        description="Floating head pressure: the condensing temperature follows the ambient down to this "
+        "[°C] (25 °C, common practice for expansion valves without a low-head rating [trade]).",
+    )
+    gas_cooler_approach: Q("temperature_difference", gt=0.0, le=15.0) = Field(  # type: ignore[valid-type]
+        default=3.0,
+        description="R-744 transcritical: gas-cooler outlet minus the air entering it [K] (3 K; common "
+        "practice 2–5 K, from memory; verify).",
     )
     piping: Optional[Piping] = Field(
         default=None, description="The suction, liquid and discharge lines (sized by coldroom.piping)."
@@ -1060,6 +1115,40 @@ class Room(Strict):
         return length * width * height if min(box) > 0.0 else 0.0
 
 
+class Economics(Strict):
+    """Running cost and TEWI inputs (``coldroom compare``); defaults in :mod:`coldroom.tewi`, marked as such."""
+
+    electricity_price: Optional[float] = Field(
+        default=None, ge=0.0, le=100.0, description="Electricity price in currency units per kWh (bare number)."
+    )
+    currency: Optional[str] = Field(default=None, pattern=r"^[A-Za-z$€£¥]{1,8}$", description="e.g. EUR")
+    emission_factor: Optional[float] = Field(
+        default=None, ge=0.0, le=3.0, description="Grid emission factor in kg CO2e per kWh (bare number)."
+    )
+    service_life: Optional[float] = Field(default=None, gt=0.0, le=60.0, description="Years in service.")
+    leakage_rate: Optional[Q("fraction", si="%", ip="%", ge=0.0, le=1.0)] = Field(  # type: ignore[valid-type]
+        default=None, description="Percent of the charge lost per year."
+    )
+    recovery_factor: Optional[Q("fraction", si="%", ip="%", ge=0.0, le=1.0)] = Field(  # type: ignore[valid-type]
+        default=None, description="Percent of the charge recovered at the end of life."
+    )
+
+
+class Option(Strict):
+    """One alternative to the project as written: dotted paths to new values (see :mod:`coldroom.options`)."""
+
+    name: str = Field(min_length=1, max_length=60)
+    note: str = Field(default="", max_length=500)
+    changes: dict[Annotated[str, Field(min_length=1, max_length=300)], Any] = Field(min_length=1, max_length=50)
+
+    @field_validator("name")
+    @classmethod
+    def _not_base(cls, value: str) -> str:
+        if value.strip().lower() == "base":
+            raise ValueError("'base' names the project as written; choose another option name")
+        return value
+
+
 class ProjectModel(Strict):
     """The whole project file."""
 
@@ -1072,6 +1161,21 @@ class ProjectModel(Strict):
         max_length=50,
         description="Rooms sharing a compressor; a room in none forms a system of its own named after the room.",
     )
+    economics: Economics = Economics()
+    options: list[Option] = Field(default_factory=list, max_length=20)
+    #: The validated projects of ``options`` (name, note, model), filled by :func:`parse_project_data`.
+    _option_models: list[tuple[str, str, "ProjectModel"]] = PrivateAttr(default_factory=list)
+    #: Folder of the project file (relative weather paths are resolved against it).
+    _folder: str = PrivateAttr(default="")
+
+    @model_validator(mode="after")
+    def _unique_options(self) -> "ProjectModel":
+        seen: set[str] = set()
+        for option in self.options:
+            if option.name in seen:
+                raise ValueError(f"two options are called {option.name!r}")
+            seen.add(option.name)
+        return self
 
     @model_validator(mode="after")
     def _section_thickness(self) -> "ProjectModel":
@@ -1227,6 +1331,11 @@ def parse_project_data(data: Any, filename: str = "<input>", loaded: Any = None)
     check_project(
         model, lambda message, path: _error_at(loaded, filename, format_terms(message, model.project.units), path)
     )
+    model._folder = os.path.dirname(os.path.abspath(filename)) if filename != "<input>" else os.getcwd()
+    if model.options and isinstance(data, dict):
+        from coldroom.options import validate_options
+
+        validate_options(model, data, filename, loaded)
     return model
 
 

@@ -86,12 +86,9 @@ FREEZER_TD = (5.5, f"5–6 K for freezers, {TD_SOURCE}")
 DEFAULT_CONDENSER_TD = 10.0
 CONDENSER_TD_SOURCE = "air-cooled condenser, trade range 8–15 K [trade]"
 
-#: R-744 with a condensing temperature at or above this is sized as a
-#: transcritical cycle (critical point 31 °C) [°C].
-TRANSCRITICAL_FROM = 30.0
-#: Gas-cooler approach (outlet minus entering air) for transcritical R-744 [K]
-#: (from memory; verify — common practice 2–5 K).
-GAS_COOLER_APPROACH = 3.0
+# R-744: the transcritical boundary is coldroom.cycle.r744_transcritical; the gas-cooler
+# approach (outlet minus entering air) is the project's ``gas_cooler_approach`` (default 3 K,
+# common practice 2–5 K, from memory; verify).
 
 
 def evaporator_td_for(room_temperature: float, relative_humidity: float) -> tuple[float, str]:
@@ -493,68 +490,110 @@ def _design_unit_pulldown(
     )
 
 
-def size_system(
-    model: "ProjectModel", name: str, indices: tuple[int, ...], diversity: float = 1.0
-) -> tuple["SystemResult", tuple["RoomResult", ...]]:
-    """Loads of the member rooms, the system's cycle and electrical figures, and each room's result.
+def heat_rejection_temperatures(
+    refrigerant: str, condensing: float, air: float, approach: float
+) -> tuple[Optional[float], Optional[float]]:
+    """(condensing dew temperature, gas-cooler outlet) [°C]: one of them is ``None``.
 
-    Parameters
-    ----------
-    model : ProjectModel
-    name : str
-        The system's name.
-    indices : tuple of int
-        The member rooms' places in ``model.rooms``.
-    diversity : float
-        Share of the members' summed design capacity the system is sized for [-].
+    R-744 past the boundary of :func:`coldroom.cycle.r744_transcritical` rejects its heat
+    in a gas cooler whose outlet is the entering air plus *approach* [K]; every other case
+    condenses at *condensing*.
+    """
+    if refrigerant == "R-744":
+        from coldroom.cycle import r744_transcritical
+
+        if r744_transcritical(condensing):
+            return None, air + approach
+    return condensing, None
+
+
+@dataclass(frozen=True)
+class SystemDesign:
+    """One system at its design point: member loads and temperatures, settings, the cycle (SI, °C)."""
+
+    name: str
+    rooms: tuple
+    loads: tuple
+    temps: tuple
+    settings: tuple
+    info: Any
+    diversity: float
+    capacity: float
+    suction: float
+    condensing: Optional[float]
+    air: float
+    gas_cooler: Optional[float]
+    coils: tuple
+    cycle: Any
+    suction_drop: float = 0.0
+    discharge_drop: float = 0.0
+    pipework: Any = None
+
+    def cycle_at(
+        self,
+        condensing: Optional[float],
+        gas_cooler: Optional[float],
+        suction_drop: Optional[float] = None,
+        discharge_drop: Optional[float] = None,
+    ) -> Any:
+        """The same coils and compressor settings at another condensing (or gas-cooler outlet) temperature.
+
+        The line drops default to the design's (the suction-line drop given, or the sized lines' fed back).
+        """
+        from coldroom import cycle as _cycle
+
+        r = self.settings[0]
+        return _cycle.solve_system_cycle(
+            self.info.name,
+            list(self.coils),
+            condensing,
+            subcooling=r.subcooling,
+            isentropic_efficiency=r.isentropic_efficiency,
+            suction_line_superheat=r.suction_line_superheat,
+            suction_pressure_drop=self.suction_drop if suction_drop is None else suction_drop,
+            discharge_pressure_drop=self.discharge_drop if discharge_drop is None else discharge_drop,
+            clearance=r.clearance,
+            gas_cooler_outlet_temperature=gas_cooler,
+        )
+
+
+def design_system(model: "ProjectModel", name: str, indices: tuple[int, ...], diversity: float = 1.0) -> SystemDesign:
+    """Loads, design temperatures and the design cycle of one system (no pull-down, no checks).
 
     Raises
     ------
     CalculationError
         The cycle cannot be solved; the message names the room (one member) or the system.
     """
-    from coldroom import cycle as _cycle
     from coldroom import systems
     from coldroom.data import refrigerants
-    from coldroom.equipment import check_room
     from coldroom.loads import room_loads
-    from coldroom.results import Note, RoomResult, SystemMember, SystemResult
-    from coldroom.unitlimits import unit_limits
 
-    rooms = [model.rooms[i] for i in indices]
-    loads = [room_loads(model, room) for room in rooms]
-    temps = [room_design_temperatures(model, room) for room in rooms]
-    settings = [model.refrigeration_for(room) for room in rooms]
+    rooms = tuple(model.rooms[i] for i in indices)
+    loads = tuple(room_loads(model, room) for room in rooms)
+    temps = tuple(room_design_temperatures(model, room) for room in rooms)
+    settings = tuple(model.refrigeration_for(room) for room in rooms)
     r = settings[0]  # the condensing settings are the system's, the same for every member
     info = refrigerants.lookup(r.refrigerant)
     capacity = systems.system_design_capacity([x.design_capacity for x in loads], diversity)
     suction = systems.suction_temperature([t.evaporating_temperature for t in temps], r.suction_line_drop)
-    condensing: Optional[float] = temps[0].condensing_temperature
     air = temps[0].condenser_air_temperature
-    gas_cooler: Optional[float] = None
-    if info.name == "R-744" and condensing >= TRANSCRITICAL_FROM:
-        # transcritical: no condensing temperature; gas-cooler outlet = air + approach
-        condensing, gas_cooler = None, air + GAS_COOLER_APPROACH
-    coils = [
+    condensing, gas_cooler = heat_rejection_temperatures(
+        info.name, temps[0].condensing_temperature, air, r.gas_cooler_approach
+    )
+    coils = tuple(
         (t.evaporating_temperature, s.superheat, x.design_capacity * diversity)
         for t, s, x in zip(temps, settings, loads)
-    ]
+    )
+    design = SystemDesign(
+        name, rooms, loads, temps, settings, info, diversity, capacity, suction, condensing, air, gas_cooler, coils,
+        None, r.suction_line_drop, 0.0,
+    )
     who = f"room {rooms[0].name!r}" if len(rooms) == 1 else f"system {name!r}"
 
-    def solve(suction_drop: float, discharge_drop: float = 0.0):
+    def solve(suction_drop: float, discharge_drop: float = 0.0) -> Any:
         try:
-            return _cycle.solve_system_cycle(
-                info.name,
-                coils,
-                condensing,
-                subcooling=r.subcooling,
-                isentropic_efficiency=r.isentropic_efficiency,
-                suction_line_superheat=r.suction_line_superheat,
-                suction_pressure_drop=suction_drop,
-                discharge_pressure_drop=discharge_drop,
-                clearance=r.clearance,
-                gas_cooler_outlet_temperature=gas_cooler,
-            )
+            return design.cycle_at(condensing, gas_cooler, suction_drop, discharge_drop)
         except CalculationError as exc:
             raise type(exc)(
                 f"{who}: the {info.name} cycle at evaporating {min(c[0] for c in coils):.1f} °C / "
@@ -581,6 +620,43 @@ def size_system(
         )
     except CalculationError as exc:
         raise type(exc)(f"{who}: pipework and charge cannot be computed: {exc}") from None
+    from dataclasses import replace
+
+    return replace(design, cycle=cyc, suction=suction, suction_drop=suction_drop, discharge_drop=discharge_drop,
+                   pipework=works)
+
+
+def size_system(
+    model: "ProjectModel", name: str, indices: tuple[int, ...], diversity: float = 1.0
+) -> tuple["SystemResult", tuple["RoomResult", ...]]:
+    """Loads of the member rooms, the system's cycle and electrical figures, and each room's result.
+
+    Parameters
+    ----------
+    model : ProjectModel
+    name : str
+        The system's name.
+    indices : tuple of int
+        The member rooms' places in ``model.rooms``.
+    diversity : float
+        Share of the members' summed design capacity the system is sized for [-].
+
+    Raises
+    ------
+    CalculationError
+        The cycle cannot be solved; the message names the room (one member) or the system.
+    """
+    from coldroom import systems
+    from coldroom.equipment import check_room
+    from coldroom.results import Note, RoomResult, SystemMember, SystemResult
+    from coldroom.unitlimits import unit_limits
+
+    d = design_system(model, name, indices, diversity)
+    rooms, loads, temps, settings, r, info = d.rooms, d.loads, d.temps, d.settings, d.settings[0], d.info
+    capacity, suction, condensing, air, gas_cooler, cyc = (
+        d.capacity, d.suction, d.condensing, d.air, d.gas_cooler, d.cycle
+    )
+    suction_drop, works = d.suction_drop, d.pipework
     coldest = min(t.evaporating_temperature for t in temps)
     members = tuple(
         SystemMember(
