@@ -174,7 +174,6 @@ CASES: dict[str, str | bytes] = {
     "wet_bulb_too_low.yaml": variant(("  outdoor_rh: 50 %\n", "  outdoor_wet_bulb: -20 °C\n")),
     "rh_and_wet_bulb.yaml": variant(("  outdoor_rh: 50 %\n", "  outdoor_rh: 50 %\n  outdoor_wet_bulb: 22 °C\n")),
     "condenser_air_below_room.yaml": variant(("      refrigerant: R-448A\n", "      refrigerant: R-448A\n      condenser_air_temperature: 0 °C\n")),
-    "co2_transcritical.yaml": variant(("      refrigerant: R-448A\n", "      refrigerant: R-744\n")),
     "co2_below_triple_point.yaml": variant(
         ("    temperature: 2 °C\n", "    temperature: -40 °C\n"),
         ("        final_temperature: 3 °C\n", "        final_temperature: -18 °C\n"),

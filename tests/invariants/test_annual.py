@@ -1,0 +1,51 @@
+"""Annual energy: a single 8760-hour bin at the design dry bulb equals 365 × the design day.
+
+The independent route is :func:`coldroom.sizing.size_project`'s per-system electricity per day
+(the day's heat gain removed at the design capacity and COP, fans, heaters, defrost; the issue's
+"365 × the design day's refrigeration energy ÷ COP plus the other uses") plus the lights.
+"""
+
+from __future__ import annotations
+
+from pathlib import Path
+
+import pytest
+
+from coldroom.annual import _Context, _lighting_energy_per_day, compare, option_year
+from coldroom.projectfile import load_project
+from coldroom.sizing import size_project
+from coldroom.weather import AmbientBin
+
+REPO = Path(__file__).resolve().parents[2]
+FARM = REPO / "project_files" / "farm_shop_options.yaml"
+COMBO = REPO / "project_files" / "combo_cooler_freezer.yaml"
+
+
+@pytest.mark.parametrize("path", [FARM, COMBO], ids=lambda p: p.stem)
+def test_single_design_bin_is_365_design_days(path: Path) -> None:
+    model = load_project(path)
+    bins = (AmbientBin(model.design.outdoor_temperature, 8760.0),)
+    year = option_year(model, "base", "", _Context(), bins)
+    sized = size_project(model, str(path), path.read_bytes())
+    per_day = sum(sum(v for _k, v in s.electrical.daily_energy_parts) for s in sized.systems)
+    per_day += sum(_lighting_energy_per_day(room) for room in model.rooms)
+    assert year.annual_energy == pytest.approx(365 * per_day / 3.6e6, rel=0.01)
+    compressor_day = sum(dict(s.electrical.daily_energy_parts)["compressor"] for s in sized.systems)
+    assert year.annual_energy_by_use["compressor"] == pytest.approx(365 * compressor_day / 3.6e6, rel=0.01)
+    # the base's design capacity is the sum of the rooms' design capacities `coldroom size` gives
+    assert year.design_capacity == pytest.approx(sum(r.loads.design_capacity for r in sized.rooms), rel=1e-12)
+
+
+def test_warmer_year_costs_more_and_options_are_all_there() -> None:
+    model = load_project(FARM)
+    result = compare(model)
+    assert [o.name for o in result.options] == ["base", "R-290", "R-744", "150 mm cooler panels", "R-290 + 150 mm"]
+    base = result.options[0]
+    warmer = option_year(model, "warmer", "", _Context(), tuple(AmbientBin(b.temperature + 5.0, b.hours)
+                                                                for b in result.bins))
+    assert warmer.annual_energy > base.annual_energy
+    # thicker panels never cost more energy; the direct TEWI of R-744 (GWP 1) is tiny
+    by_name = {o.name: o for o in result.options}
+    assert by_name["150 mm cooler panels"].annual_energy < base.annual_energy
+    r744 = by_name["R-744"].tewi
+    assert r744 is not None and r744.direct_leakage + r744.direct_end_of_life < 0.01 * r744.indirect
