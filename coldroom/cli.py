@@ -430,6 +430,85 @@ def size_command(
     guarded(run)
 
 
+# --- compare: the base and its options over a year ---------------------------
+
+
+@app.command("compare")
+def compare_command(
+    project: str = typer.Argument(..., help="Project file (YAML) with options: and design.weather or design.ambient_bins."),
+    json_out: Optional[str] = typer.Option(
+        None, "--json", help="Also write the comparison as JSON to FILE ('-' for stdout).", metavar="FILE"
+    ),
+    out: Optional[str] = typer.Option(None, "--out", help="PDF of the comparison to write.", metavar="FILE.pdf"),
+    force: bool = typer.Option(False, "--force", help="Overwrite existing output files."),
+) -> None:
+    """Compare the project and its options: annual energy and cost, charge, GWP, TEWI."""
+
+    def run() -> None:
+        import hashlib
+        import os
+        from pathlib import Path
+
+        from coldroom.errors import OutputError, ProjectFileError
+        from coldroom.output import write_atomic
+        from coldroom.projectfile import parse_project_text
+        from coldroom.safeyaml import load_yaml
+
+        source = Path(project)
+        try:
+            raw = source.read_bytes()
+        except FileNotFoundError:
+            raise ProjectFileError("no such file", file=project) from None
+        except IsADirectoryError:
+            raise ProjectFileError("is a directory, not a project file", file=project) from None
+        except OSError as exc:
+            raise ProjectFileError(f"cannot read: {exc.strerror}", file=project) from None
+        to_stdout = json_out == "-"
+        targets = ([Path(out)] if out else []) + ([Path(json_out)] if json_out and not to_stdout else [])
+        if len(targets) == 2 and os.path.abspath(targets[0]) == os.path.abspath(targets[1]):
+            raise OutputError(f"{targets[0]}: --out and --json name the same file")
+        for target in targets:
+            if os.path.abspath(target) == os.path.abspath(source):
+                raise OutputError(f"{target}: refusing to write over the input file {project}")
+            if (target.exists() or target.is_symlink()) and not force:
+                raise OutputError(f"{target} already exists; pass --force to overwrite it")
+        model = parse_project_text(raw, filename=project)
+        if model.design.weather is None and model.design.ambient_bins is None:
+            raise load_yaml(raw, filename=project).error(
+                "compare needs the year's ambient: design.weather (an EPW file) or design.ambient_bins",
+                ("design",),
+            )
+        from coldroom.annual import compare  # CoolProp, lazily
+        from coldroom.sizing import sheet_date, versions
+        from coldroom.textreport import compare_text
+
+        try:
+            result = compare(model)
+        except ProjectFileError as exc:
+            if exc.key == "design.weather" or (exc.file and exc.file != project):
+                raise
+            raise load_yaml(raw, filename=project).error(exc.message, ("design", "weather")) from None
+        console = sys.stderr if to_stdout else sys.stdout
+        print(compare_text(result, model.project.units), file=console)
+        if out:
+            from coldroom.report.comparepage import render_compare  # reportlab, lazily
+
+            meta = {
+                "date": sheet_date(model.project.date),
+                "input_file": os.path.basename(project),
+                "input_sha256": hashlib.sha256(raw).hexdigest(),
+                "versions": versions(),
+                "prepared_by": model.project.prepared_by,
+                "client": model.project.client,
+                "site": model.project.site,
+            }
+            write_atomic(out, render_compare(result, model.project.units, meta), force=force, inputs=[project])
+            print(f"wrote {out}", file=console)
+        emit_json(result.to_json(), json_out, force=force, project=project, console=console)
+
+    guarded(run)
+
+
 # --- refrigerants and the cycle (catalogue listing; `coldroom cycle`) -------
 
 

@@ -2,7 +2,7 @@
 
 from __future__ import annotations
 
-from typing import TYPE_CHECKING, Sequence
+from typing import TYPE_CHECKING, Any, Sequence
 
 from coldroom.results import COMPONENTS, RoomLoads
 
@@ -166,3 +166,96 @@ def systems_report(systems: Sequence["SystemResult"], system: str) -> str:
                 + (f"; charge limits: {verdicts}" if verdicts else "")
             )
     return "\n".join(lines)
+
+
+def compare_rows(comparison: Any, system: str) -> tuple[list[str], list[list[str]]]:
+    """Headers and rows of the options table (terminal and PDF share them): one row per option."""
+    base = comparison.options[0]
+    headers = [
+        "option", "refrigerant (class)", "design capacity", "compressor input", "kWh/year", "cost/year",
+        "charge", "GWP", "TEWI t CO2e (direct + indirect)", "vs base: cost/year", "vs base: TEWI t",
+    ]
+    rows = []
+    for o in comparison.options:
+        cur = o.currency
+        refrigerants = ", ".join(
+            f"{s.refrigerant} ({s.safety_class})"
+            for s in {s.refrigerant: s for s in o.systems}.values()
+        )
+        t = o.tewi
+        tewi_text = (
+            "n/a (no charge)" if t is None
+            else f"{t.total / 1000:.1f} ({(t.direct_leakage + t.direct_end_of_life) / 1000:.1f} + {t.indirect / 1000:.1f})"
+        )
+        if o is base:
+            d_cost = d_tewi = "–"
+        else:
+            d_cost = f"{o.annual_cost - base.annual_cost:+,.0f} {cur}"
+            d_tewi = (
+                f"{(t.total - base.tewi.total) / 1000:+.1f}" if t is not None and base.tewi is not None else "n/a"
+            )
+        rows.append([
+            o.name,
+            refrigerants,
+            display(o.design_capacity, "power_large", system) if system == "SI" else display(o.design_capacity, "power", system),
+            display(o.compressor_input_power, "power_large", "SI"),
+            f"{o.annual_energy:,.0f}",
+            f"{o.annual_cost:,.0f} {cur}",
+            "n/a" if o.charge is None else display(o.charge, "mass", system),
+            "n/a" if o.gwp is None else f"{o.gwp:,.0f}",
+            tewi_text,
+            d_cost,
+            d_tewi,
+        ])
+    return headers, rows
+
+
+def compare_text(comparison: Any, system: str) -> str:
+    """The terminal view of ``coldroom compare``: basis lines, the options table, warnings."""
+    base = comparison.options[0]
+    econ = base.economics
+    marked = set(econ.get("defaulted", ()))
+
+    def m(key: str, text: str) -> str:
+        return text + (" (default)" if key in marked else "")
+
+    lines = [
+        f"{comparison.project_name}: options compared over a year",
+        f"ambient: {comparison.ambient_source}, {len(comparison.bins)} bins, "
+        f"{sum(b.hours for b in comparison.bins):,.0f} h",
+        "economics: "
+        + ", ".join([
+            m("electricity_price", f"{econ['electricity_price']:g} {econ['currency']}/kWh"),
+            m("emission_factor", f"{econ['emission_factor']:g} kg CO2e/kWh"),
+            m("service_life", f"{econ['service_life']:g} years"),
+            m("leakage_rate", f"leakage {econ['leakage_rate']:.0%}/year"),
+            m("recovery_factor", f"recovery {econ['recovery_factor']:.0%}"),
+        ])
+        + "; GWP AR4 (IPCC 2007, 100 years)",
+        "",
+    ]
+    headers, rows = compare_rows(comparison, system)
+    lines.append(table(headers, rows, "llrrrrrrrrr"))
+    notes = [f"{o.name}: {o.note}" for o in comparison.options if o.note and o.name != "base"]
+    notes += charge_notes(comparison)
+    for o in comparison.options:
+        notes.extend(f"warning: {o.name}: {w}" for w in o.warnings)
+    if notes:
+        lines += [""] + notes
+    return "\n".join(lines)
+
+
+def charge_notes(comparison: Any) -> list[str]:
+    """Where the charges came from, said once for all options that share a basis."""
+    by_basis: dict[str, list[str]] = {}
+    for o in comparison.options:
+        for s in o.systems:
+            by_basis.setdefault(s.charge_basis, [])
+            if o.name not in by_basis[s.charge_basis]:
+                by_basis[s.charge_basis].append(o.name)
+    everyone = len(comparison.options)
+    out = []
+    for basis, names in by_basis.items():
+        who = "every option" if len(names) == everyone else ", ".join(names)
+        out.append(f"charge {basis}: {who}" + ("; give charge: for the real figure" if basis.startswith("estimated") else ""))
+    return out

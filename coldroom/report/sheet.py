@@ -736,19 +736,45 @@ def room_warnings_section(ctx: SheetContext, index: int) -> list:
 
 def safety_cautions(ctx: SheetContext, index: int) -> list[str]:
     """The safety cautions that fit this room and its refrigerant (text only)."""
-    from coldroom.data import refrigerants
-
     room = ctx.result.rooms[index]
     cyc = _room_cycle(ctx, index) or {}
     system = _room_system(ctx, index)
     refrigerant = cyc.get("refrigerant") or (system.refrigerant if system is not None else None)
+    cautions: list[str] = refrigerant_cautions(refrigerant) if refrigerant else []
+    cautions += people_cautions()
+    room_in = ctx.room_input(index)
+    cold = room_in is not None and room_in.temperature < 0.0
+    if room_in is None and room.evaporating_temperature is not None:
+        cold = room.evaporating_temperature < -10.0
+    if cold:
+        cautions.append(
+            "Below 0 °C the ground under the room freezes unless the slab is heated or ventilated: frost heave "
+            "lifts floors and walls. Check that slab heating is designed, installed and monitored."
+        )
+    cautions.append(
+        "Electrical work (supplies, heaters, controls, earthing) must be done by qualified persons to the "
+        "local electrical code."
+    )
+    return cautions
+
+
+def people_cautions() -> list[str]:
+    """The caution about people shut in a cold room."""
+    return [
+        "People can be shut in a cold room. Fit an inside door release that works without a key, "
+        "lighting on an independent supply, and an alarm button inside that is heard where people are."
+    ]
+
+
+def refrigerant_cautions(refrigerant: str) -> list[str]:
+    """The cautions that go with a refrigerant's safety class, pressures and GWP (text only)."""
+    from coldroom.data import refrigerants
+
     cautions: list[str] = []
-    info = None
-    if refrigerant:
-        try:
-            info = refrigerants.lookup(refrigerant)
-        except Exception:  # noqa: BLE001 - an unknown name only drops the refrigerant cautions
-            info = None
+    try:
+        info = refrigerants.lookup(refrigerant)
+    except Exception:  # noqa: BLE001 - an unknown name only drops the refrigerant cautions
+        info = None
     if info is not None:
         cls = info.safety_class
         if cls.endswith("2L") and cls.startswith("A"):
@@ -779,23 +805,6 @@ def safety_cautions(ctx: SheetContext, index: int) -> list[str]:
             )
         if info.note and "GWP" in info.note:
             cautions.append(f"{info.name}: {info.note}. Check the F-gas or other regulations that apply to new equipment.")
-    cautions.append(
-        "People can be shut in a cold room. Fit an inside door release that works without a key, "
-        "lighting on an independent supply, and an alarm button inside that is heard where people are."
-    )
-    room_in = ctx.room_input(index)
-    cold = room_in is not None and room_in.temperature < 0.0
-    if room_in is None and room.evaporating_temperature is not None:
-        cold = room.evaporating_temperature < -10.0
-    if cold:
-        cautions.append(
-            "Below 0 °C the ground under the room freezes unless the slab is heated or ventilated: frost heave "
-            "lifts floors and walls. Check that slab heating is designed, installed and monitored."
-        )
-    cautions.append(
-        "Electrical work (supplies, heaters, controls, earthing) must be done by qualified persons to the "
-        "local electrical code."
-    )
     return cautions
 
 
@@ -856,10 +865,10 @@ def _footer_text(result: Any) -> str:
     )
 
 
-def _canvas_maker(result: Any, page_width: float, margin: float) -> type:
+def _canvas_maker(result: Any, page_width: float, margin: float, kind: str = "Sizing sheet") -> type:
     footer = _footer_text(result)
     header_left = clean(f"{result.project_name}")
-    header_right = clean(f"Sizing sheet  ·  {result.date}")
+    header_right = clean(f"{kind}  ·  {result.date}")
     y, m, d = (int(x) for x in (result.date + "-01-01").split("-")[:3]) if _is_date(result.date) else (2000, 1, 1)
 
     class NumberedCanvas(Canvas):

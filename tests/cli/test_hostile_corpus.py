@@ -162,7 +162,7 @@ def test_a_directory_and_a_missing_file_are_whole_file_errors(tmp_path: Path) ->
 SIZE_SAMPLE = [
     "billion_laughs.yaml",
     "python_tag_apply.yaml",
-    "co2_transcritical.yaml",
+    "r404a_above_critical.yaml",
     "unknown_refrigerant.yaml",
     "door_wider_than_wall.yaml",
 ]
