@@ -217,7 +217,7 @@ def ambient_bins(model: "ProjectModel", cache: Optional[dict] = None) -> tuple[t
 
     d = model.design
     if d.ambient_bins is not None:
-        return tuple(AmbientBin(b.temperature, b.hours) for b in d.ambient_bins), "design.ambient_bins"
+        return tuple(AmbientBin(b.temperature, b.hours) for b in d.ambient_bins), "ambient bins in the project file"
     if d.weather is None:
         raise ProjectFileError(
             "the annual energy needs design.weather (an EPW file) or design.ambient_bins", key="design"
