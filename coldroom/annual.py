@@ -31,9 +31,11 @@ With a single 8760-hour bin at the design dry bulb this is 365 × the day's
 heat gain ÷ the design COP plus the other uses, the figure
 :func:`coldroom.systems.electrical_figures` gives per day (tests/invariants).
 
-Charge per system: the ``charge`` the project gives (room ``refrigeration:`` or
-the system) wins; else the estimate of :func:`coldroom.charge.estimate_charge`
-from the design cycle (coils only: the lines are not sized here, so it is low);
+Charge per system: ``charge: 2.5 kg`` (or ``charge: {total: …}``) in the room's
+``refrigeration:`` or the system wins; else the estimate of
+:func:`coldroom.charge.estimate_charge` from the design cycle, the ``charge:``
+volumes and the lines of a ``piping:`` block (without one the lines are left
+out and the estimate is low);
 TEWI by :func:`coldroom.tewi.tewi` with the catalogue's AR4 GWP.
 """
 
@@ -425,15 +427,30 @@ def system_year(
 
 
 def _charge(settings: Any, cycle: Any) -> tuple[Optional[float], str]:
-    """The system's charge [kg] and its basis: given wins; else the coil estimate; else unknown."""
-    if settings.charge is not None:
-        return settings.charge, "given in the project file"
-    try:
-        from coldroom.charge import estimate_charge
+    """The system's charge [kg] and its basis: given (``charge: {total: …}``) wins; else the estimate."""
+    given = settings.charge.total
+    if given is not None:
+        return given, "given in the project file"
+    from coldroom.charge import estimate_charge
 
-        return estimate_charge(cycle).total, "estimated: evaporator and condenser only (lines not sized here)"
-    except CalculationError as exc:  # pragma: no cover - the design cycle solved
+    c = settings.charge
+    piping = None
+    what = "evaporator and condenser"
+    try:
+        if settings.piping is not None:
+            from coldroom.pipework import size_system_lines
+
+            piping = size_system_lines(cycle, settings.piping)
+            what = "lines, evaporator and condenser"
+        estimate = estimate_charge(
+            cycle, piping, evaporator_volume=c.evaporator_volume, condenser_volume=c.condenser_volume,
+            receiver_volume=c.receiver_volume, receiver_level=c.receiver_level,
+        )
+    except CalculationError as exc:
         return None, f"unknown ({exc})"
+    if piping is None:
+        return estimate.total, f"estimated: {what} only (no piping: block, lines left out)"
+    return estimate.total, f"estimated: {what}"
 
 
 def economics_of(model: "ProjectModel") -> dict:

@@ -447,31 +447,13 @@ def compare_command(
     def run() -> None:
         import hashlib
         import os
-        from pathlib import Path
 
-        from coldroom.errors import OutputError, ProjectFileError
-        from coldroom.output import write_atomic
+        from coldroom.errors import ProjectFileError
         from coldroom.projectfile import parse_project_text
-        from coldroom.safeyaml import load_yaml
+        from coldroom.safeyaml import load_yaml, read_source
 
-        source = Path(project)
-        try:
-            raw = source.read_bytes()
-        except FileNotFoundError:
-            raise ProjectFileError("no such file", file=project) from None
-        except IsADirectoryError:
-            raise ProjectFileError("is a directory, not a project file", file=project) from None
-        except OSError as exc:
-            raise ProjectFileError(f"cannot read: {exc.strerror}", file=project) from None
-        to_stdout = json_out == "-"
-        targets = ([Path(out)] if out else []) + ([Path(json_out)] if json_out and not to_stdout else [])
-        if len(targets) == 2 and os.path.abspath(targets[0]) == os.path.abspath(targets[1]):
-            raise OutputError(f"{targets[0]}: --out and --json name the same file")
-        for target in targets:
-            if os.path.abspath(target) == os.path.abspath(source):
-                raise OutputError(f"{target}: refusing to write over the input file {project}")
-            if (target.exists() or target.is_symlink()) and not force:
-                raise OutputError(f"{target} already exists; pass --force to overwrite it")
+        pdf_target, json_target = check_outputs(("--out", out), ("--json", json_out), force=force, project=project)
+        raw = read_source(project)
         model = parse_project_text(raw, filename=project)
         if model.design.weather is None and model.design.ambient_bins is None:
             raise load_yaml(raw, filename=project).error(
@@ -485,12 +467,12 @@ def compare_command(
         try:
             result = compare(model)
         except ProjectFileError as exc:
-            if exc.key == "design.weather" or (exc.file and exc.file != project):
+            if exc.file and exc.file != project:  # the weather file's own line
                 raise
             raise load_yaml(raw, filename=project).error(exc.message, ("design", "weather")) from None
-        console = sys.stderr if to_stdout else sys.stdout
-        print(compare_text(result, model.project.units), file=console)
-        if out:
+        console = console_for(pdf_target, json_target)
+        say(compare_text(result, model.project.units), file=console)
+        if pdf_target is not None:
             from coldroom.report.comparepage import render_compare  # reportlab, lazily
 
             meta = {
@@ -502,9 +484,10 @@ def compare_command(
                 "client": model.project.client,
                 "site": model.project.site,
             }
-            write_atomic(out, render_compare(result, model.project.units, meta), force=force, inputs=[project])
-            print(f"wrote {out}", file=console)
-        emit_json(result.to_json(), json_out, force=force, project=project, console=console)
+            pdf = render_compare(result, model.project.units, meta)
+            console.flush()
+            write_output(pdf_target, pdf, force=force, project=project, console=console)
+        emit_json(result.to_json(), json_target, force=force, project=project, console=console)
 
     guarded(run)
 

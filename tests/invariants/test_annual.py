@@ -49,3 +49,21 @@ def test_warmer_year_costs_more_and_options_are_all_there() -> None:
     assert by_name["150 mm cooler panels"].annual_energy < base.annual_energy
     r744 = by_name["R-744"].tewi
     assert r744 is not None and r744.direct_leakage + r744.direct_end_of_life < 0.01 * r744.indirect
+
+
+def test_given_charge_wins_and_sets_the_direct_part(tmp_path: Path) -> None:
+    from coldroom.annual import _Context, option_year
+    from coldroom.projectfile import parse_project_text
+
+    text = FARM.read_text(encoding="utf-8") + (
+        "  - name: weighed in\n    changes:\n      systems.CU-1.charge: 3 kg\n"
+        "  - name: weighed in twice\n    changes:\n      systems.CU-1.charge: {total: 6 kg}\n"
+    )
+    model = parse_project_text(text, filename=str(tmp_path / "p.yaml"))
+    named = {name: m for name, _note, m in model._option_models}
+    bins = (AmbientBin(20.0, 8760.0),)
+    one = option_year(named["weighed in"], "one", "", _Context(), bins)
+    two = option_year(named["weighed in twice"], "two", "", _Context(), bins)
+    assert one.charge == 3.0 and one.systems[0].charge_basis == "given in the project file"
+    assert two.tewi.direct_leakage == pytest.approx(2 * one.tewi.direct_leakage)
+    assert two.tewi.indirect == pytest.approx(one.tewi.indirect)
