@@ -400,7 +400,7 @@ def system_year(
             f"system {name}: for {heat_loss_hours:g} room-hours a room loses heat to the cold outside "
             "(counted as no load; no heating allowed for)"
         )
-    charge, basis = _charge(r, cyc)
+    charge, basis = _charge(r, d)
     info = d.info
     return (
         SystemYear(
@@ -426,31 +426,17 @@ def system_year(
     )
 
 
-def _charge(settings: Any, cycle: Any) -> tuple[Optional[float], str]:
-    """The system's charge [kg] and its basis: given (``charge: {total: …}``) wins; else the estimate."""
+def _charge(settings: Any, design: Any) -> tuple[Optional[float], str]:
+    """The system's charge [kg] and its basis: given (``charge: {total: …}``) wins; else the sizing's estimate."""
     given = settings.charge.total
     if given is not None:
         return given, "given in the project file"
-    from coldroom.charge import estimate_charge
-
-    c = settings.charge
-    piping = None
-    what = "evaporator and condenser"
-    try:
-        if settings.piping is not None:
-            from coldroom.pipework import size_system_lines
-
-            piping = size_system_lines(cycle, settings.piping)
-            what = "lines, evaporator and condenser"
-        estimate = estimate_charge(
-            cycle, piping, evaporator_volume=c.evaporator_volume, condenser_volume=c.condenser_volume,
-            receiver_volume=c.receiver_volume, receiver_level=c.receiver_level,
-        )
-    except CalculationError as exc:
-        return None, f"unknown ({exc})"
-    if piping is None:
-        return estimate.total, f"estimated: {what} only (no piping: block, lines left out)"
-    return estimate.total, f"estimated: {what}"
+    works = design.pipework
+    if works is None:  # pragma: no cover - design_system always estimates
+        return None, "unknown"
+    if works.piping is None:
+        return works.charge.total, "estimated: evaporator and condenser (no piping: block, lines left out)"
+    return works.charge.total, "estimated: lines, evaporator and condenser"
 
 
 def economics_of(model: "ProjectModel") -> dict:
