@@ -396,7 +396,10 @@ def room_design_day(model: "ProjectModel", room: "Room") -> DesignDay:
         else:
             count = max(1, round(d.per_day))
             starts = [i * 24.0 / count for i in range(count)]
-        watts = spread(line.daily_energy, after_events(((t, 1.0) for t in starts), d.duration / HOUR))
+        if d.duration > 0.0:
+            watts = spread(line.daily_energy, after_events(((t, 1.0) for t in starts), d.duration / HOUR))
+        else:  # a zero-length defrost puts no heat in: its line is 0 J
+            watts = spread(line.daily_energy, even())
         add(line.component, watts)
         defrost = watts
     rest = list(lines)

@@ -108,3 +108,12 @@ def test_a_whole_day_pulldown_spreads_the_product_evenly(time) -> None:
     model = _model(data)
     product = room_design_day(model, model.rooms[0]).components["product"]
     assert max(product) == pytest.approx(min(product), rel=1e-9)
+
+
+def test_a_zero_length_defrost_puts_no_heat_in() -> None:
+    """A defrost of 0 min (hypothesis found it in a random valid project) gives a 0 J line, not an error."""
+    data = copy.deepcopy(FREEZER)
+    data["rooms"][0]["defrost"]["duration"] = 0
+    model = _model(data)
+    loads = room_loads(model, model.rooms[0])
+    assert sum(loads.design_day.hourly_load) / 24 == pytest.approx(loads.daily_energy / 86400.0, rel=0.005)
