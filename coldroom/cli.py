@@ -266,12 +266,18 @@ def load_command(
 
 
 @app.command("schema")
-def schema_command() -> None:
-    """Print the JSON Schema of the project file (for editors that complete and check YAML)."""
+def schema_command(
+    catalogue: bool = typer.Option(False, "--catalogue", help="The schema of an equipment catalogue instead."),
+) -> None:
+    """Print the JSON Schema of the project file (or of a catalogue; for editors that complete and check YAML)."""
 
     def run() -> None:
         from coldroom.output import json_text
-        from coldroom.projectfile import json_schema
+
+        if catalogue:
+            from coldroom.catalogue import json_schema
+        else:
+            from coldroom.projectfile import json_schema
 
         sys.stdout.write(json_text(json_schema()))
 
@@ -832,6 +838,60 @@ def check_command(
                     }
                     for (loads, check), limit in zip(checks, limits)
                 ],
+            }
+            emit_json(data, json_target, force=force, project=project, console=console)
+
+    guarded(run)
+
+
+@app.command("select")
+def select_command(
+    project: str = typer.Argument(..., help="Project file (YAML)."),
+    catalogue: str = typer.Option(..., "--catalogue", help="Equipment catalogue (.yaml, .csv or .xlsx).",
+                                  metavar="FILE"),
+    json_out: Optional[str] = typer.Option(
+        None, "--json", help="Also write the selection as JSON to FILE ('-' for stdout).", metavar="FILE"
+    ),
+    out: Optional[str] = typer.Option(
+        None, "--out", help="Also write the sizing sheet with the selected equipment.", metavar="FILE.pdf"
+    ),
+    force: bool = typer.Option(False, "--force", help="Overwrite existing output files."),
+) -> None:
+    """Choose unit coolers and the cheapest condensing unit that holds, per system, from a catalogue."""
+
+    def run() -> None:
+        from coldroom.output import check_targets
+
+        pdf_target, json_target = check_targets(
+            (("--out", out), ("--json", json_out)), force=force, inputs=[project, catalogue]
+        )
+        from coldroom.catalogue import load_catalogue
+        from coldroom.projectfile import load_project
+
+        model = load_project(project)
+        equipment = load_catalogue(catalogue)
+        from coldroom.selection import select_project  # CoolProp, lazily
+        from coldroom.textreport import selection_report
+
+        selections = select_project(model, equipment)
+        console = console_for(pdf_target, json_target)
+        say(selection_report(selections, model.project.units), file=console)
+        if pdf_target is not None:
+            from pathlib import Path
+
+            from coldroom.report.sheet import render_sheet  # reportlab, lazily
+            from coldroom.sizing import size_project
+
+            result = size_project(model, project, Path(project).read_bytes())
+            write_output(pdf_target, render_sheet(result, model, selection=selections), force=force,
+                         project=project, console=console)
+        if json_target is not None:
+            data = {
+                "project": {"name": model.project.name, "unit_system": model.project.units, "input_file": project},
+                "catalogue": catalogue,
+                "currency": equipment.currency,
+                "selection": [s.to_json() for s in selections],
+                "total_price": sum(s.total_price for s in selections),
             }
             emit_json(data, json_target, force=force, project=project, console=console)
 

@@ -1406,6 +1406,33 @@ def _shifted_model(model: "ProjectModel", shift: float) -> "ProjectModel":
     return model.model_copy(update={"design": design})
 
 
+def room_load_at(
+    model: "ProjectModel", room: "Room", loads: "RoomLoads", ambient: float
+) -> Callable[[float], float]:
+    """The room's required capacity [W] as a function of the condenser air [°C] (cached).
+
+    At *ambient* (the design condenser air) it is ``loads.required_capacity``;
+    elsewhere the outdoor air moves with the condenser air (:func:`_shifted_model`)
+    and the room's loads are recomputed.
+    """
+    from coldroom.loads import room_loads
+
+    cache: dict[float, float] = {}
+    index = model.rooms.index(room)
+
+    def load_at(t: float) -> float:
+        key = round(t, 6)
+        if key not in cache:
+            if abs(t - ambient) < 1e-9:
+                cache[key] = loads.required_capacity
+            else:
+                shifted = _shifted_model(model, t - ambient)
+                cache[key] = room_loads(shifted, shifted.rooms[index]).required_capacity
+        return cache[key]
+
+    return load_at
+
+
 def check_room(
     model: "ProjectModel",
     room: "Room",
@@ -1480,17 +1507,7 @@ def check_room(
             ),
         )
     ambient = temps.condenser_air_temperature
-    cache: dict[float, float] = {}
-
-    def load_at(t: float) -> float:
-        key = round(t, 6)
-        if key not in cache:
-            if abs(t - ambient) < 1e-9:
-                cache[key] = loads.required_capacity  # type: ignore[union-attr]
-            else:
-                shifted = _shifted_model(model, t - ambient)
-                cache[key] = room_loads(shifted, shifted.rooms[model.rooms.index(room)]).required_capacity
-        return cache[key]
+    load_at = room_load_at(model, room, loads, ambient)
 
     result = check_unit(
         compressor,

@@ -259,3 +259,57 @@ def charge_notes(comparison: Any) -> list[str]:
         who = "every option" if len(names) == everyone else ", ".join(names)
         out.append(f"charge {basis}: {who}" + ("; give charge: for the real figure" if basis.startswith("estimated") else ""))
     return out
+
+
+def _money(value: float, currency: str) -> str:
+    return f"{value:,.0f} {currency}".replace(",", " ")
+
+
+def selection_report(selections: Sequence[object], system: str) -> str:
+    """The equipment chosen per system (``coldroom select``): coils, unit, balance, prices, alternatives."""
+    from coldroom.selection import REASONS_COOLER, REASONS_UNIT
+
+    def t(x: object) -> str:
+        return "-" if x is None else display(x, "temperature", system)  # type: ignore[arg-type]
+
+    lines: list[str] = []
+    grand = 0.0
+    currency = ""
+    for s in selections:
+        currency = s.currency  # type: ignore[attr-defined]
+        c = s.choice.check  # type: ignore[attr-defined]
+        lines.append(f"System {s.system} ({s.refrigerant}): needs {power_text(s.required_capacity, system)} "  # type: ignore[attr-defined]
+                     f"in {s.run_hours_available:.1f} h/day at {t(s.ambient_temperature)} condenser air")  # type: ignore[attr-defined]
+        rows = []
+        for k in s.coolers:  # type: ignore[attr-defined]
+            rows.append([k.room, f"{k.count} × {k.model}", power_text(k.duty, system), power_text(k.capacity, system),
+                         _money(k.price, currency)])
+        rows.append(["condensing unit", s.choice.model, power_text(s.required_capacity, system),  # type: ignore[attr-defined]
+                     power_text(c.capacity_at_balance, system), _money(s.choice.price, currency)])  # type: ignore[attr-defined]
+        rows.append(["total", "", "", "", _money(s.total_price, currency)])  # type: ignore[attr-defined]
+        lines.append(table(["item", "model", "duty", "capacity", "price"], rows, "llrrr"))
+        holds = (f"holds up to {t(c.max_ambient)} condenser air" if c.max_ambient_status == "found"
+                 else {"holds_above_range": "holds over the whole range searched (10…55 °C)"}.get(c.max_ambient_status, ""))
+        lines.append(f"  balance: SST {t(c.balance_evaporating)} / SCT {t(c.balance_condensing)}, run "
+                     f"{c.run_hours_needed:.1f} h/day of {c.run_hours_available:.1f}, margin {c.margin_percent:+.0f} %"
+                     + (f"; {holds}" if holds else ""))
+        for k in s.coolers:  # type: ignore[attr-defined]
+            lines.append(f"  {k.room}: {k.rule}")
+        for a in s.alternatives:  # type: ignore[attr-defined]
+            ac = a.check
+            lines.append(f"  alternative: {a.model}, total {_money(s.total_price_with(a), currency)}; SST "  # type: ignore[attr-defined]
+                         f"{t(ac.balance_evaporating)}, margin {ac.margin_percent:+.0f} %")
+        if s.rejected:  # type: ignore[attr-defined]
+            lines.append("  condensing units not chosen: " + ", ".join(
+                f"{n} {REASONS_UNIT.get(r, r)}" for r, n in s.rejected.items()))  # type: ignore[attr-defined]
+        for k in s.coolers:  # type: ignore[attr-defined]
+            if k.rejected:
+                lines.append(f"  unit coolers not used in {k.room}: " + ", ".join(
+                    f"{n} {REASONS_COOLER.get(r, r)}" for r, n in k.rejected.items()))
+        for w in s.warnings:  # type: ignore[attr-defined]
+            lines.append(f"  WARNING: {format_terms(w, system)}")
+        lines.append("")
+        grand += s.total_price  # type: ignore[attr-defined]
+    if len(selections) > 1:
+        lines.append(f"Total for the project: {_money(grand, currency)}")
+    return "\n".join(lines).rstrip()

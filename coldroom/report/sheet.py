@@ -46,6 +46,7 @@ from reportlab.platypus import (
 from coldroom.report.charts import INK, MUTED, RULE, BarChart
 from coldroom.report.check_section import existing_unit_section
 from coldroom.report.pipework_section import system_pipework_section
+from coldroom.report.selection_section import selected_equipment_section, selection_summary_section
 from coldroom.report.text import capacity, clean, esc, q, temperature
 from coldroom.report.timecharts import design_day_section, pulldown_section
 from coldroom.report.verdict_section import verdict_section
@@ -103,6 +104,7 @@ class SheetContext:
     system: str
     width: float
     cache: dict = field(default_factory=dict)
+    selection: Any = None  # tuple of coldroom.selection.SystemSelection (``coldroom select --out``)
 
     def room_input(self, index: int) -> Any:
         if self.model is None:
@@ -830,12 +832,14 @@ def cautions_section(ctx: SheetContext, index: int) -> list:
 PROJECT_SECTIONS: list[Callable[[SheetContext], list]] = [
     title_section,
     systems_overview_section,
+    selection_summary_section,
     summary_section,
     verdict_section,
     project_warnings_section,
     system_details_section,
     system_cycles_section,
     system_pipework_section,
+    selected_equipment_section,
 ]
 
 #: Sections printed for every room, in order. Insert new ones here.
@@ -938,7 +942,7 @@ def build_story(ctx: SheetContext) -> list:
     return story
 
 
-def render_sheet(result: Any, model: Any = None) -> bytes:
+def render_sheet(result: Any, model: Any = None, selection: Any = None) -> bytes:
     """Render the sizing sheet as PDF bytes.
 
     Parameters
@@ -947,6 +951,8 @@ def render_sheet(result: Any, model: Any = None) -> bytes:
         What to present.
     model : ProjectModel, optional
         The project, for echoing inputs (room temperature and RH).
+    selection : tuple of SystemSelection, optional
+        Equipment chosen by ``coldroom select`` (page-1 table and "Selected equipment").
 
     Returns
     -------
@@ -974,7 +980,7 @@ def render_sheet(result: Any, model: Any = None) -> bytes:
     frame = Frame(doc.leftMargin, doc.bottomMargin, doc.width, doc.height, id="body", leftPadding=0,
                   rightPadding=0, topPadding=0, bottomPadding=0)
     doc.addPageTemplates([PageTemplate(id="page", frames=[frame])])
-    ctx = SheetContext(result=result, model=model, system=system, width=doc.width)
+    ctx = SheetContext(result=result, model=model, system=system, width=doc.width, selection=selection)
     story = build_story(ctx)
     doc.build(story, canvasmaker=_canvas_maker(result, pagesize[0], margin))
     return buffer.getvalue()

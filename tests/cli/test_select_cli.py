@@ -1,0 +1,64 @@
+"""`coldroom select`: terminal table, JSON contract, nothing-fits exit 1, catalogue schema."""
+
+from __future__ import annotations
+
+import json
+import subprocess
+import sys
+from pathlib import Path
+
+REPO = Path(__file__).resolve().parents[2]
+CATALOGUE = REPO / "project_files" / "demo_catalogue.yaml"
+
+
+def run(*args: str) -> subprocess.CompletedProcess[str]:
+    return subprocess.run([sys.executable, "-m", "coldroom", *args], capture_output=True, text=True, timeout=180)
+
+
+def test_select_json_contract() -> None:
+    result = run("select", str(REPO / "project_files" / "combo_cooler_freezer.yaml"), "--catalogue",
+                 str(REPO / "project_files" / "demo_catalogue.csv"), "--json", "-")
+    assert result.returncode == 0, result.stderr
+    assert "condensing unit" in result.stderr and "total" in result.stderr  # the table goes to stderr with --json -
+    data = json.loads(result.stdout)
+    (entry,) = data["selection"]
+    for key in ("system", "condensing_unit", "unit_coolers", "total_price", "currency", "alternatives", "rejected"):
+        assert key in entry
+    unit = entry["condensing_unit"]
+    assert set(unit) >= {"model", "price", "balance", "existing_unit"}
+    assert set(unit["balance"]) >= {"evaporating_c", "condensing_c", "capacity_w", "run_hours_needed",
+                                    "margin_percent", "max_ambient_c"}
+    assert [c["room"] for c in entry["unit_coolers"]] == ["Cooler", "Freezer"]
+    for cooler in entry["unit_coolers"]:
+        assert set(cooler) >= {"room", "model", "count", "price"}
+    assert entry["total_price"] == unit["price"] + sum(c["price"] for c in entry["unit_coolers"])
+    assert entry["currency"] == "EUR"
+    assert 1 <= len(entry["alternatives"]) <= 2
+    for alternative in entry["alternatives"]:
+        assert alternative["total_price"] >= entry["total_price"]
+        assert set(alternative["condensing_unit"]["balance"]) == set(unit["balance"])
+    assert entry["rejected"]["wrong_refrigerant"] == 4
+    assert unit["balance"]["capacity_w"] >= entry["required_capacity_w"]
+
+
+def test_nothing_fits_exits_1_with_the_reasons_and_the_duty() -> None:
+    # the heated-slab freezer runs on R-449A; the demo catalogue has R-448A and R-290 units only
+    result = run("select", str(REPO / "project_files" / "freezer_heated_slab.yaml"), "--catalogue", str(CATALOGUE))
+    assert result.returncode == 1
+    assert result.stderr.count("\n") == 1
+    assert "15 wrong refrigerant" in result.stderr
+    assert "a suitable R-449A unit gives at least" in result.stderr and "SST -26.0 °C" in result.stderr
+
+
+def test_catalogue_schema() -> None:
+    result = run("schema", "--catalogue")
+    assert result.returncode == 0
+    schema = json.loads(result.stdout)
+    assert schema["title"] == "coldroom equipment catalogue"
+    assert {"currency", "condensing_units", "unit_coolers"} <= set(schema["properties"])
+
+
+def test_select_refuses_to_write_over_the_catalogue(tmp_path: Path) -> None:
+    result = run("select", str(REPO / "project_files" / "produce_cooler.yaml"), "--catalogue", str(CATALOGUE),
+                 "--json", str(CATALOGUE))
+    assert result.returncode == 73 and "refusing to write over the input" in result.stderr

@@ -1,0 +1,67 @@
+"""`coldroom select` on the demo catalogue: the choice is the cheapest unit that holds (brute force)."""
+
+from __future__ import annotations
+
+from pathlib import Path
+
+import pytest
+
+from coldroom.catalogue import load_catalogue
+from coldroom.data import refrigerants
+from coldroom.equipment import RATING_SUCTION_GAP, build_compressor
+from coldroom.projectfile import load_project
+from coldroom.selection import _condenser, _rate, select_project
+
+REPO = Path(__file__).resolve().parents[2]
+CATALOGUE = load_catalogue(REPO / "project_files" / "demo_catalogue.yaml")
+
+
+def holds_by_brute_force(entry, duty, refrigeration) -> bool:  # type: ignore[no-untyped-def]
+    """Solve the balance of *entry* with no screening and no ordering: does it hold, inside its envelope?"""
+    if refrigerants.lookup(entry.refrigerant).name != duty.refrigerant:
+        return False
+    compressor = build_compressor(entry.existing_unit(), refrigeration)
+    check = _rate(compressor, _condenser(entry, duty), duty, entry.model, False)
+    if check.capacity_at_balance is None or not check.holds:
+        return False
+    if entry.rated_point is not None and check.balance_evaporating < entry.rated_point.evaporating_temperature - RATING_SUCTION_GAP:
+        return False
+    return True
+
+
+@pytest.mark.parametrize("name", ["produce_cooler", "combo_cooler_freezer", "propane_cooler"])
+def test_choice_is_the_cheapest_that_holds(name: str, monkeypatch: pytest.MonkeyPatch) -> None:
+    model = load_project(REPO / "project_files" / f"{name}.yaml")
+    import coldroom.selection as selection
+
+    duties = []
+    original = selection.choose_condensing_unit
+
+    def spy(units, duty, refrigeration, **kw):  # type: ignore[no-untyped-def]
+        duties.append((duty, refrigeration))
+        return original(units, duty, refrigeration, **kw)
+
+    monkeypatch.setattr(selection, "choose_condensing_unit", spy)
+    chosen = select_project(model, CATALOGUE, max_ambient=False)
+    for result, (duty, refrigeration) in zip(chosen, duties):
+        holding = sorted(
+            (e.price, e.model) for e in CATALOGUE.condensing_units if holds_by_brute_force(e, duty, refrigeration)
+        )
+        assert holding, name
+        assert (result.choice.price, result.choice.model) == holding[0]
+        assert [(a.price, a.model) for a in result.alternatives] == holding[1:3]
+        # every candidate is accounted for: chosen, alternatives, or rejected for a reason
+        assert 1 + len(result.alternatives) + sum(result.rejected.values()) == len(CATALOGUE.condensing_units)
+
+
+def test_demo_choices_pinned() -> None:
+    """The demo answers a contractor sees (change on purpose with the catalogue)."""
+    got = {}
+    for name in ("produce_cooler", "combo_cooler_freezer", "cooler_to_freezer"):
+        for s in select_project(load_project(REPO / "project_files" / f"{name}.yaml"), CATALOGUE, max_ambient=False):
+            got[name] = (s.choice.model, tuple((c.model, c.count) for c in s.coolers), s.total_price)
+    assert got == {
+        "produce_cooler": ("DX-M18", (("UC-C50", 1),), 2680.0),
+        "combo_cooler_freezer": ("DX-L16", (("UC-C16", 1), ("UC-F20", 1)), 3920.0),
+        "cooler_to_freezer": ("DX-L16", (("UC-F20", 2),), 4340.0),
+    }
