@@ -11,6 +11,7 @@ from typing import Any
 from reportlab.platypus import Spacer
 
 from coldroom.report.text import capacity, temperature
+from coldroom.units import display
 
 
 def _money(value: float, currency: str) -> str:
@@ -67,7 +68,7 @@ def selected_equipment_section(ctx: Any) -> list:
         rows: list[list[str]] = [["Item", "Model", "Count", "Duty", "Capacity", "Price"]]
         for k in s.coolers:
             rows.append([f"Unit cooler, {k.room}", k.model, str(k.count), capacity(k.duty, s_),
-                         capacity(k.capacity, s_) + " at TD " + f"{k.temperature_difference:.1f} K",
+                         capacity(k.capacity, s_) + " at TD " + display(k.temperature_difference, "temperature_difference", s_),
                          _money(k.price, cur)])
         rows.append(["Condensing unit", s.choice.model, "1", capacity(s.required_capacity, s_),
                      capacity(c.capacity_at_balance, s_) + " at balance", _money(s.choice.price, cur)])

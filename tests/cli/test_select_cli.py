@@ -15,10 +15,16 @@ def run(*args: str) -> subprocess.CompletedProcess[str]:
     return subprocess.run([sys.executable, "-m", "coldroom", *args], capture_output=True, text=True, timeout=180)
 
 
-def test_select_json_contract() -> None:
+def test_select_json_contract(tmp_path: Path) -> None:
+    pdf = tmp_path / "quote.pdf"
     result = run("select", str(REPO / "project_files" / "combo_cooler_freezer.yaml"), "--catalogue",
-                 str(REPO / "project_files" / "demo_catalogue.csv"), "--json", "-")
+                 str(REPO / "project_files" / "demo_catalogue.csv"), "--json", "-", "--out", str(pdf))
     assert result.returncode == 0, result.stderr
+    from pypdf import PdfReader
+
+    pages = [page.extract_text() for page in PdfReader(pdf).pages]
+    assert "Selected equipment (from the catalogue)" in pages[0] and "3 920 EUR" in pages[0]
+    assert any("Balance point (dew)" in text and "Units set aside" in text for text in pages)
     assert "condensing unit" in result.stderr and "total" in result.stderr  # the table goes to stderr with --json -
     data = json.loads(result.stdout)
     (entry,) = data["selection"]
