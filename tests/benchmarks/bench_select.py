@@ -26,7 +26,7 @@ sys.path.insert(0, str(REPO))
 def big_catalogue(size: int = 200):  # type: ignore[no-untyped-def]
     from coldroom.catalogue import Catalogue, load_catalogue
 
-    demo = load_catalogue(REPO / "project_files" / "demo_catalogue.yaml")
+    demo = load_catalogue(REPO / "project_files" / "catalogue" / "demo_catalogue.yaml")
     units = []
     k = 0
     while len(units) < size:

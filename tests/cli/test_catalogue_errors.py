@@ -14,7 +14,7 @@ from coldroom.catalogue import catalogue_rows, parse_catalogue
 from coldroom.errors import ProjectFileError
 
 REPO = Path(__file__).resolve().parents[2]
-DEMO = REPO / "project_files" / "demo_catalogue.yaml"
+DEMO = REPO / "project_files" / "catalogue" / "demo_catalogue.yaml"
 PROJECT = REPO / "project_files" / "produce_cooler.yaml"
 
 GOOD_UNIT = """\

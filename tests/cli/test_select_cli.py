@@ -8,7 +8,7 @@ import sys
 from pathlib import Path
 
 REPO = Path(__file__).resolve().parents[2]
-CATALOGUE = REPO / "project_files" / "demo_catalogue.yaml"
+CATALOGUE = REPO / "project_files" / "catalogue" / "demo_catalogue.yaml"
 
 
 def run(*args: str) -> subprocess.CompletedProcess[str]:
@@ -18,7 +18,7 @@ def run(*args: str) -> subprocess.CompletedProcess[str]:
 def test_select_json_contract(tmp_path: Path) -> None:
     pdf = tmp_path / "quote.pdf"
     result = run("select", str(REPO / "project_files" / "combo_cooler_freezer.yaml"), "--catalogue",
-                 str(REPO / "project_files" / "demo_catalogue.csv"), "--json", "-", "--out", str(pdf))
+                 str(REPO / "project_files" / "catalogue" / "demo_catalogue.csv"), "--json", "-", "--out", str(pdf))
     assert result.returncode == 0, result.stderr
     from pypdf import PdfReader
 

@@ -17,7 +17,7 @@ from coldroom.safeyaml import load_yaml
 from coldroom.selection import choose_condensing_unit, select_project
 
 REPO = Path(__file__).resolve().parents[2]
-DEMO = REPO / "project_files" / "demo_catalogue.yaml"
+DEMO = REPO / "project_files" / "catalogue" / "demo_catalogue.yaml"
 CATALOGUE = load_catalogue(DEMO)
 
 
@@ -44,8 +44,8 @@ def test_yaml_csv_xlsx_give_the_same_selection(tmp_path: Path) -> None:
     from_xlsx = load_catalogue(xlsx)
     assert from_csv == CATALOGUE and from_xlsx == CATALOGUE
     # the shipped table versions are the same list too
-    assert load_catalogue(REPO / "project_files" / "demo_catalogue.csv") == CATALOGUE
-    assert load_catalogue(REPO / "project_files" / "demo_catalogue.xlsx") == CATALOGUE
+    assert load_catalogue(REPO / "project_files" / "catalogue" / "demo_catalogue.csv") == CATALOGUE
+    assert load_catalogue(REPO / "project_files" / "catalogue" / "demo_catalogue.xlsx") == CATALOGUE
     model = load_project(REPO / "project_files" / "combo_cooler_freezer.yaml")
     expected = _summary(select_project(model, CATALOGUE, max_ambient=False))
     assert _summary(select_project(model, from_csv, max_ambient=False)) == expected

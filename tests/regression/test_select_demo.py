@@ -13,7 +13,7 @@ from coldroom.projectfile import load_project
 from coldroom.selection import _condenser, _rate, select_project
 
 REPO = Path(__file__).resolve().parents[2]
-CATALOGUE = load_catalogue(REPO / "project_files" / "demo_catalogue.yaml")
+CATALOGUE = load_catalogue(REPO / "project_files" / "catalogue" / "demo_catalogue.yaml")
 
 
 def holds_by_brute_force(entry, duty, refrigeration) -> bool:  # type: ignore[no-untyped-def]

@@ -1,4 +1,4 @@
-"""Build the invented demo catalogue: project_files/demo_catalogue.{yaml,csv,xlsx}.
+"""Build the invented demo catalogue: project_files/catalogue/demo_catalogue.{yaml,csv,xlsx}.
 
 Run from the repository root: ``python tests/data/catalogue/_generate.py``.
 
@@ -179,9 +179,9 @@ def to_xlsx(rows: list, path: Path) -> None:
 def main() -> None:
     d = data()
     rows = catalogue_rows(d)
-    (ROOT / "project_files" / "demo_catalogue.yaml").write_text(to_yaml(d), encoding="utf-8")
-    (ROOT / "project_files" / "demo_catalogue.csv").write_text(to_csv(rows), encoding="utf-8")
-    to_xlsx(rows, ROOT / "project_files" / "demo_catalogue.xlsx")
+    (ROOT / "project_files" / "catalogue" / "demo_catalogue.yaml").write_text(to_yaml(d), encoding="utf-8")
+    (ROOT / "project_files" / "catalogue" / "demo_catalogue.csv").write_text(to_csv(rows), encoding="utf-8")
+    to_xlsx(rows, ROOT / "project_files" / "catalogue" / "demo_catalogue.xlsx")
 
 
 if __name__ == "__main__":
