@@ -69,7 +69,7 @@ from coldroom.projectfile import (
 #: Keys only a unit cooler has / only a condensing unit has (to name the wrong kind).
 COOLER_KEYS = ("capacity", "air_on", "evaporating_temperature", "air_flow", "throw", "defrost",
                "defrost_heater_power", "fin_spacing")
-UNIT_KEYS = ("refrigerant", "rated_point", "polynomial", "condenser")
+UNIT_KEYS = ("rated_point", "polynomial", "condenser")
 ENVELOPE_KEYS = ("suction_min", "suction_max", "discharge_min", "discharge_max")
 KINDS = {"condensing_unit": "condensing_units", "unit_cooler": "unit_coolers"}
 
@@ -98,7 +98,7 @@ class CondensingUnitEntry(Strict):
     @model_validator(mode="before")
     @classmethod
     def _kind(cls, data: Any) -> Any:
-        _wrong_kind(data, COOLER_KEYS[:1] + COOLER_KEYS[2:], "unit cooler")
+        _wrong_kind(data, COOLER_KEYS[1:], "unit cooler")  # a stray `capacity` is more likely a typo
         poly = data.get("polynomial") if isinstance(data, dict) else None
         if isinstance(poly, dict):
             missing = [key for key in ENVELOPE_KEYS if poly.get(key) is None]
@@ -141,6 +141,9 @@ class UnitCoolerEntry(Strict):
     """
 
     model: str = Field(min_length=1, max_length=100)
+    refrigerant: Optional[str] = Field(
+        default=None, description="The refrigerant the rating is for; when given, only systems on it use the coil."
+    )
     capacity: Q("power", gt=0.0, le=1e6)  # type: ignore[valid-type]
     air_on: Q("temperature", ge=-40.0, le=30.0)  # type: ignore[valid-type]
     evaporating_temperature: Q("temperature", ge=-60.0, le=20.0)  # type: ignore[valid-type]
@@ -160,6 +163,10 @@ class UnitCoolerEntry(Strict):
 
     @model_validator(mode="after")
     def _check(self) -> "UnitCoolerEntry":
+        if self.refrigerant is not None:
+            from coldroom.data import refrigerants
+
+            refrigerants.lookup(self.refrigerant)  # LookupNameError listing the closest names, at the key
         if self.evaporating_temperature >= self.air_on:
             raise ValueError("the rating evaporating temperature must lie below the air-on temperature (DT1 > 0)")
         if self.defrost == "electric" and self.defrost_heater_power <= 0.0:

@@ -70,6 +70,7 @@ REASONS_UNIT = {
     "dearer_than_alternatives": "dearer than the alternatives (not checked further)",
 }
 REASONS_COOLER = {
+    "wrong_refrigerant": "rated for another refrigerant",
     "no_defrost": "no electric or hot-gas defrost for a room below 0 °C",
     "fins_too_close": "fins too close for frost",
     "throw_too_short": "air throw shorter than half the room",
@@ -244,6 +245,7 @@ def choose_coolers(
     duty: float,
     temperature_difference: float,
     length: Optional[float],
+    refrigerant: Optional[str] = None,
 ) -> CoolerChoice:
     """The cheapest unit-cooler model and count for one room (rules in the module notes).
 
@@ -255,6 +257,8 @@ def choose_coolers(
         Room air − design evaporating temperature [K].
     length : float or None
         Longest inside side [m] (None: throw not checked).
+    refrigerant : str, optional
+        The system's refrigerant (catalogue name); a coil rated for another is set aside.
 
     Raises
     ------
@@ -264,7 +268,14 @@ def choose_coolers(
     rejected: dict[str, int] = {}
     best: Optional[tuple[float, float, Any, int, str]] = None
     frost = room_temperature < LOW_TEMPERATURE_ROOM
+    from coldroom.data import refrigerants
+
     for entry in coolers:
+        if refrigerant is not None and entry.refrigerant is not None and (
+            refrigerants.lookup(entry.refrigerant).name != refrigerant
+        ):
+            _count(rejected, "wrong_refrigerant")
+            continue
         if frost and entry.defrost not in ("electric", "hot_gas"):
             _count(rejected, "no_defrost")
             continue
@@ -573,6 +584,7 @@ def select_system(
             duty=x.design_capacity,
             temperature_difference=t.evaporator_td,
             length=room_length(room),
+            refrigerant=refrigerant,
         )
         for room, x, t in zip(rooms, loads, temps)
     )

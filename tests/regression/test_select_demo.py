@@ -65,3 +65,35 @@ def test_demo_choices_pinned() -> None:
         "combo_cooler_freezer": ("DX-L16", (("UC-C16", 1), ("UC-F20", 1)), 3920.0),
         "cooler_to_freezer": ("DX-L16", (("UC-F20", 2),), 4340.0),
     }
+
+
+def _cooler(**kw):  # type: ignore[no-untyped-def]
+    from coldroom.catalogue import UnitCoolerEntry
+
+    data = dict(model="C", capacity=2000, air_on=0, evaporating_temperature=-8, air_flow=0.5, throw=10,
+                fan_power=100, defrost="off_cycle", fin_spacing="4 mm", price=500)
+    data.update(kw)
+    return UnitCoolerEntry.model_validate(data)
+
+
+def test_coil_rules_stated_in_the_issue() -> None:
+    from coldroom.selection import choose_coolers
+
+    room = dict(room_name="R", temperature_difference=8.0)
+    # a freezer takes only electric or hot-gas defrost, fins >= 6 mm
+    coils = [_cooler(model="off"), _cooler(model="fins", defrost="electric", defrost_heater_power=1000),
+             _cooler(model="ok", defrost="hot_gas", fin_spacing="7 mm", price=900)]
+    pick = choose_coolers(coils, room_temperature=-20.0, duty=1500.0, length=5.0, **room)
+    assert (pick.model, pick.count) == ("ok", 1)
+    assert pick.rejected == {"no_defrost": 1, "fins_too_close": 1}
+    # a throw short of the room's length takes two coils; short of half of it, none
+    pick = choose_coolers([_cooler(throw=6)], room_temperature=2.0, duty=1500.0, length=10.0, **room)
+    assert pick.count == 2 and "one at each end" in pick.rule
+    with pytest.raises(Exception, match="1 air throw shorter than half the room"):
+        choose_coolers([_cooler(throw=4)], room_temperature=2.0, duty=1500.0, length=10.0, **room)
+    # capacity at the room's TD (8 K here, rating DT1 8 K): 2000 W each, so 4500 W takes 3 coils
+    assert choose_coolers([_cooler()], room_temperature=2.0, duty=4500.0, length=5.0, **room).count == 3
+    # a coil rated for another refrigerant is set aside
+    pick = choose_coolers([_cooler(model="p", refrigerant="R-290"), _cooler(model="a", refrigerant="R-448A", price=600)],
+                          room_temperature=2.0, duty=1500.0, length=5.0, refrigerant="R-448A", **room)
+    assert pick.model == "a" and pick.rejected == {"wrong_refrigerant": 1}
