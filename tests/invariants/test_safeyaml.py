@@ -200,6 +200,8 @@ def test_every_plain_surprise_is_rejected_or_read_as_its_yaml12_value(word):
     if isinstance(result, ProjectFileError):
         return
     value = result.data["a"]
+    if isinstance(value, (dict, list)):
+        return  # the word was flow syntax ("{}", "[1]"), not a plain scalar
     if isinstance(value, str):
         assert value == word.strip() or not is_surprise(word)
     else:
