@@ -873,7 +873,13 @@ def select_command(
         from coldroom.selection import select_project  # CoolProp, lazily
         from coldroom.textreport import selection_report
 
-        selections = select_project(model, equipment)
+        from coldroom.selection import NothingFitsError
+        from coldroom.units import format_terms
+
+        try:
+            selections = select_project(model, equipment)
+        except NothingFitsError as exc:  # the duty in the project's units
+            raise NothingFitsError(format_terms(exc.args[0], model.project.units)) from None
         console = console_for(pdf_target, json_target)
         say(selection_report(selections, model.project.units), file=console)
         if pdf_target is not None:

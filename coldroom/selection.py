@@ -224,7 +224,11 @@ class SystemSelection:
 
 
 class NothingFitsError(CalculationError):
-    """No catalogue unit (or coil) fits a system; the message counts the reasons and states the duty."""
+    """No catalogue unit (or coil) fits a system; the message counts the reasons and states the duty.
+
+    The message is a :class:`coldroom.results.Note` (SI wording with its terms); the CLI shows it
+    in the project's unit system.
+    """
 
 
 def _count(counts: dict, reason: str) -> None:
@@ -299,12 +303,15 @@ def choose_coolers(
         if best is None or key < best[:2]:
             best = (key[0], key[1], entry, count, why)
     if best is None:
-        raise NothingFitsError(
+        from coldroom.results import Note
+
+        raise NothingFitsError(Note.fill(
             f"room {room_name!r}: no unit cooler in the catalogue fits ({_reasons(rejected, REASONS_COOLER)}); "
-            f"a suitable coil gives at least {duty:.0f} W at a TD of {temperature_difference:.1f} K"
-            + (f" and throws at least {length:.1f} m" if length is not None else "")
-            + (" with electric or hot-gas defrost and fins ≥ 6 mm" if frost else "")
-        )
+            "a suitable coil gives at least {q} at a TD of {td}"
+            + (" and throws at least {l}" if length is not None else "")
+            + (" with electric or hot-gas defrost and fins ≥ 6 mm" if frost else ""),
+            q=(duty, "power"), td=(temperature_difference, "temperature_difference"), l=(length or 0.0, "length"),
+        ))
     _price, _cap, entry, count, why = best
     if count == 1:
         rule = "one coil: its capacity at the room's TD covers the duty and its throw reaches the room's length"
@@ -616,12 +623,14 @@ def select_system(
         )
     options, rejected = choose_condensing_unit(catalogue.condensing_units, duty, settings, max_ambient=max_ambient)
     if not options:
-        raise NothingFitsError(
-            f"system {name!r}: no condensing unit in the catalogue holds "
-            f"({_reasons(rejected, REASONS_UNIT)}); a suitable {refrigerant} unit gives at least "
-            f"{duty.required:.0f} W at SST {duty.design_suction:.1f} °C / SCT {duty.design_condensing:.1f} °C "
-            f"({ambient:.1f} °C condenser air)"
-        )
+        from coldroom.results import Note
+
+        raise NothingFitsError(Note.fill(
+            f"system {name!r}: no condensing unit in the catalogue holds ({_reasons(rejected, REASONS_UNIT)}); "
+            f"a suitable {refrigerant} unit gives at least {{q}} at SST {{s}} / SCT {{d}} ({{a}} condenser air)",
+            q=(duty.required, "power"), s=(duty.design_suction, "temperature"),
+            d=(duty.design_condensing, "temperature"), a=(ambient, "temperature"),
+        ))
     choice = options[0]
     warnings: list[str] = list(choice.check.warnings)
     block = existing_unit_block(choice.entry, coolers[0]) if len(rooms) == 1 else None

@@ -68,3 +68,17 @@ def test_select_refuses_to_write_over_the_catalogue(tmp_path: Path) -> None:
     result = run("select", str(REPO / "project_files" / "produce_cooler.yaml"), "--catalogue", str(CATALOGUE),
                  "--json", str(CATALOGUE))
     assert result.returncode == 73 and "refusing to write over the input" in result.stderr
+
+
+def test_nothing_fits_speaks_the_projects_units(tmp_path: Path) -> None:
+    catalogue = tmp_path / "propane_only.yaml"
+    catalogue.write_text(
+        "currency: USD\ncondensing_units:\n  - model: P1\n    refrigerant: R-290\n    price: 900\n"
+        "    rated_point: {capacity: 2 kW, evaporating_temperature: -10, condensing_temperature: 45}\n"
+        "unit_coolers:\n  - {model: C1, capacity: 3 kW, air_on: 0, evaporating_temperature: -8, air_flow: 2000 m³/h,"
+        " throw: 20 m, fan_power: 90 W, defrost: off_cycle, fin_spacing: 4 mm, price: 400}\n",
+        encoding="utf-8",
+    )
+    result = run("select", str(REPO / "project_files" / "meat_cooler_ip.yaml"), "--catalogue", str(catalogue))
+    assert result.returncode == 1
+    assert "1 wrong refrigerant" in result.stderr and "Btu/h" in result.stderr and "°F" in result.stderr
