@@ -16,6 +16,8 @@ def run(*args: str) -> subprocess.CompletedProcess[str]:
 
 
 def test_select_json_contract(tmp_path: Path) -> None:
+    """End to end in a subprocess (CoolProp start, selection, `size` and the PDF): slower than 3 s on
+    purpose -- one run checks the JSON contract, the terminal table and the sheet's page 1 together."""
     pdf = tmp_path / "quote.pdf"
     result = run("select", str(REPO / "project_files" / "combo_cooler_freezer.yaml"), "--catalogue",
                  str(REPO / "project_files" / "catalogue" / "demo_catalogue.csv"), "--json", "-", "--out", str(pdf))
