@@ -15,8 +15,9 @@ Errors (exit 65), each naming the key, the value and why:
 - condenser air not warmer than the room; an unknown refrigerant; the
   evaporating temperature (room − evaporator TD) below the refrigerant's
   triple point or model limit, or the condensing temperature (condenser air
-  + condenser TD) at or above its critical temperature (transcritical R-744
-  is not modelled) — see :data:`REFRIGERANT_LIMITS`;
+  + condenser TD) at or above its critical temperature (R-744 excepted: it is
+  sized transcritical, :func:`coldroom.cycle.r744_transcritical`) — limits in
+  :data:`coldroom.data.refrigerants.LIMITS`;
 - a door taller than the room, wider than or larger than its wall, doors
   together larger than their wall, a door standing open more than 24 h;
 - defrosts taking more than 24 h a day;
@@ -51,6 +52,8 @@ from __future__ import annotations
 
 from typing import TYPE_CHECKING, Callable, Iterable, Iterator, get_args
 
+from coldroom.data import refrigerants as _refrigerants
+from coldroom.design import room_design_temperatures
 from coldroom.errors import ColdroomError
 from coldroom.results import Note
 
@@ -74,42 +77,7 @@ PULLDOWN_WARNING = 4 * 3600.0  # s: walk-in rooms pull product down in 8–24 h;
 POWER_WARNING = 100e3  # W: no single heat source or rating of a walk-in room is this large (MW written for kW?)
 DESIGN_RATIO_NOTE = 3.0  # design capacity above this multiple of the 24-hour figure is explained
 
-#: Temperature limits of each refrigerant's property model [°C]: the lowest
-#: saturated evaporating temperature (triple point of a pure fluid; the lower
-#: limit of CoolProp's pseudo-pure or mixture model for a blend) and the
-#: critical temperature (for a blend, the mixture critical point of the
-#: nominal composition). Values read from CoolProp 8.0 here
-#: (``PropsSI('Ttriple'|'Tcrit', fluid)``; for the ``.mix`` blends
-#: ``AbstractState('HEOS', fluid).all_critical_points()``: the physical one near the top
-#: of the two-phase region, the lowest where several lie within 2 K, R-452A)
-#: [pub: CoolProp 8.0 / NIST REFPROP values]. Kept as plain numbers so that
-#: ``coldroom validate`` never imports CoolProp.
-REFRIGERANT_LIMITS_SOURCE = "CoolProp 8.0 Ttriple/Tmin and Tcrit (mixture critical point) [pub]"
-REFRIGERANT_LIMITS: dict[str, tuple[float, float]] = {
-    # name: (lowest evaporating temperature [°C], critical temperature [°C])
-    "R-134a": (-103.30, 101.06),
-    "R-404A": (-73.15, 72.12),  # pseudo-pure model's lower limit
-    "R-507A": (-73.15, 70.62),  # pseudo-pure model's lower limit
-    "R-407A": (-114.11, 82.25),
-    "R-407C": (-73.15, 86.20),  # pseudo-pure model's lower limit
-    "R-407F": (-118.61, 82.60),
-    "R-448A": (-124.62, 82.79),
-    "R-449A": (-125.81, 82.49),
-    "R-452A": (-122.41, 74.22),  # CoolProp finds 75.10, 74.25 and 74.22: the lowest is kept
-    "R-513A": (-128.99, 95.41),
-    "R-454C": (-146.02, 87.64),
-    "R-455A": (-140.56, 85.63),
-    "R-290": (-187.62, 96.74),
-    "R-600a": (-159.42, 134.66),
-    "R-717": (-77.65, 132.41),
-    "R-744": (-56.56, 30.98),
-    "R-1234yf": (-151.55, 94.70),
-    "R-1234ze(E)": (-104.53, 109.36),
-    "R-22": (-157.42, 96.15),
-}
-
-
-def check_project(model: "ProjectModel", error: ErrorFactory) -> None:
+def check_physics(model: "ProjectModel", error: ErrorFactory) -> None:
     """Raise (via *error*) the first impossible combination in *model*.
 
     Parameters
@@ -120,8 +88,6 @@ def check_project(model: "ProjectModel", error: ErrorFactory) -> None:
         ``error(message, key_path)`` returns the exception to raise; the
         project-file loader attaches file, line and column of *key_path*.
     """
-    from coldroom.data import refrigerants
-
     design = model.design
     _check_design(model, error)
     _check_links(model, error)
@@ -165,7 +131,7 @@ def check_project(model: "ProjectModel", error: ErrorFactory) -> None:
                 _setting_path(model, i, "condenser_air_temperature"),
             )
         try:
-            info = refrigerants.lookup(refrigeration.refrigerant)
+            info = _refrigerants.lookup(refrigeration.refrigerant)
         except ColdroomError as exc:
             raise error(str(exc), _setting_path(model, i, "refrigerant")) from None
         _check_refrigerant_range(model, room, info.name, at, error)
@@ -391,10 +357,8 @@ def design_saturation_temperatures(model: "ProjectModel", room: "Room") -> tuple
 
     Evaporating = room − evaporator TD; condensing = condenser air (default the
     outdoor dry bulb) + condenser TD; the default TDs come from
-    :mod:`coldroom.sizing` (trade tables there), the same function the sizing uses.
+    :mod:`coldroom.design` (trade tables there), the same function the sizing uses.
     """
-    from coldroom.sizing import room_design_temperatures  # no CoolProp import at module level
-
     temps = room_design_temperatures(model, room)
     return temps.evaporating_temperature, temps.condensing_temperature
 
@@ -428,10 +392,7 @@ def _check_refrigerant_range(
             ),
             _setting_path(model, index, "condenser_td"),
         )
-    limits = REFRIGERANT_LIMITS.get(refrigerant)
-    if limits is None:
-        return
-    lowest, critical = limits
+    lowest, critical = _refrigerants.limits(refrigerant)
     if evaporating < lowest:
         raise error(
             Note.fill(
@@ -449,11 +410,10 @@ def _check_refrigerant_range(
         )
     if condensing >= critical and refrigerant != "R-744":
         # R-744 above its critical point is sized transcritical (gas cooler; coldroom.cycle owns the boundary)
-        hint = "; choose a smaller condenser_td or another refrigerant"
         raise error(
             Note.fill(
                 "condensing temperature {c} (condenser air {a} + TD {td}) is at or above the critical temperature "
-                f"of {refrigerant}, " + "{crit}" + hint,
+                f"of {refrigerant}, " + "{crit}; choose a smaller condenser_td or another refrigerant",
                 c=(condensing, "temperature"),
                 a=(air, "temperature"),
                 td=(condensing - air, "temperature_difference"),
@@ -466,7 +426,7 @@ def _check_refrigerant_range(
 def _check_existing_unit(room: "Room", at: tuple, error: ErrorFactory) -> None:
     """The existing unit's rating must lie where its refrigerant has a subcritical saturation curve.
 
-    The same limits as the room's design (:data:`REFRIGERANT_LIMITS`): the
+    The same limits as the room's design (:data:`coldroom.data.refrigerants.LIMITS`): the
     existing-unit check needs the rated state points, so a rating that
     ``size``/``check`` cannot evaluate is refused here, at its key.
     """
@@ -732,11 +692,10 @@ def project_warnings(model: "ProjectModel") -> list[tuple[str, str]]:
                         f"{PASSAGES_PER_HOUR_WARNING:g} an hour around the clock; check the traffic",
                     )
                 )
-        temperatures = design_saturation_temperatures(model, room)
         limits = _limits_of(model.refrigeration_for(room).refrigerant)
         if limits is not None:
             name, (_, critical) = limits
-            condensing = temperatures[1]
+            condensing = design_saturation_temperatures(model, room)[1]
             if critical - CRITICAL_MARGIN_WARNING <= condensing < critical:
                 out.append(
                     (
@@ -773,11 +732,8 @@ def project_warnings(model: "ProjectModel") -> list[tuple[str, str]]:
 
 
 def _limits_of(refrigerant: str) -> tuple[str, tuple[float, float]] | None:
-    from coldroom.data import refrigerants
-
     try:
-        name = refrigerants.lookup(refrigerant).name
+        name = _refrigerants.lookup(refrigerant).name
     except ColdroomError:
         return None
-    limits = REFRIGERANT_LIMITS.get(name)
-    return None if limits is None else (name, limits)
+    return name, _refrigerants.limits(name)

@@ -17,6 +17,7 @@ from typing import Callable, Optional
 import typer
 
 from coldroom import __version__
+from coldroom.design import CYCLE_DEFAULTS as _CYCLE
 from coldroom.errors import ColdroomError
 
 app = typer.Typer(
@@ -216,9 +217,9 @@ def validate_command(
 
     def run() -> None:
         from coldroom.checks import project_warnings
-        from coldroom.projectfile import load_project
+        from coldroom.project import open_project
 
-        model = load_project(project)
+        model = open_project(project).model
         rooms = ", ".join(room.name for room in model.rooms)
         say(f"{project}: valid ({len(model.rooms)} room{'s' if len(model.rooms) != 1 else ''}: {rooms})")
         from coldroom.units import format_terms
@@ -244,11 +245,11 @@ def load_command(
 
         from coldroom.checks import project_warnings
         from coldroom.loads import project_loads
-        from coldroom.projectfile import load_project
+        from coldroom.project import open_project
         from coldroom.textreport import loads_report
         from coldroom.units import format_terms
 
-        model = load_project(project)
+        model = open_project(project).model
         rooms = project_loads(model)
         warnings = [message for _, message in project_warnings(model)]
         payload = {
@@ -337,64 +338,6 @@ def products_command(
 # --- size (loads + cycle per room → PDF sizing sheet and JSON) ---------------------------
 
 
-def _size_summary(result, model) -> str:  # type: ignore[no-untyped-def]
-    """The terminal summary of ``coldroom size`` (presents the result, computes nothing)."""
-    from coldroom.report.text import capacity, q, temperature
-    from coldroom.units import format_terms
-
-    s = result.unit_system
-    lines = [f"{result.project_name}  ({result.date}, {s} units)"]
-    for room, room_in in zip(result.rooms, model.rooms):
-        loads = room.loads
-        lines.append("")
-        lines.append(f"{room.name}  ({temperature(room_in.temperature, s)}, {room_in.rh:.0%} RH)")
-        lines.append(
-            f"  required capacity   {capacity(loads.required_capacity, s)} (24 h)   "
-            f"design {capacity(loads.design_capacity, s)} (set by the {loads.governed_by})"
-        )
-        lines.append(
-            f"  evaporating / condensing (dew)   {temperature(room.evaporating_temperature, s)} / "
-            f"{temperature(room.condensing_temperature, s)}   condenser air {temperature(room.condenser_air_temperature, s)}"
-        )
-        if room.cycle is not None:
-            c = room.cycle.to_json()
-            lines.append(
-                f"  {c['refrigerant']}: mass flow {q(c['mass_flow_kg_s'], 'mass_flow', s)}   "
-                f"displacement {q(c['displacement_m3_h'] / 3600.0, 'volume_flow', s)}   "
-                f"compressor input {capacity(c['compressor_power_w'], s)}"
-            )
-            lines.append(
-                f"  heat of rejection {capacity(c['condenser_duty_w'], s)}   COP {c['cop']:.2f}   "
-                f"discharge {temperature(c['discharge_temperature_c'], s)}"
-            )
-        if room.check is not None:
-            k = room.check
-            held = "holds" if k.holds else "does NOT hold"
-            at_balance = capacity(k.capacity_at_balance, s) if k.capacity_at_balance is not None else "n/a"
-            margin = f", margin {k.margin_percent:+.0f} %" if k.margin_percent is not None else ""
-            lines.append(
-                f"  existing unit: {held} the room ({at_balance} at balance vs "
-                f"{capacity(k.required_capacity, s)} required{margin}); see `coldroom check`"
-            )
-        for message in list(loads.warnings) + list(room.warnings):
-            lines.append(f"  warning: {format_terms(message, s)}")
-    if result.systems:
-        from coldroom.textreport import systems_report
-
-        lines += [
-            "",
-            "Systems: design capacity, SST / SCT (dew), compressor electrical input, heat of rejection, "
-            "connected load, electricity per day",
-        ]
-        lines.append(systems_report(result.systems, s))
-        for system in result.systems:
-            if len(system.members) > 1:  # a one-room system's warnings are the room's, printed above
-                lines += [f"warning: {format_terms(message, s)}" for message in system.warnings]
-    for message in result.warnings:
-        lines.append(f"warning: {format_terms(message, s)}")
-    return "\n".join(lines)
-
-
 @app.command("size")
 def size_command(
     project: str = typer.Argument(..., help="Project file (YAML)."),
@@ -411,24 +354,24 @@ def size_command(
     def run() -> None:
         from pathlib import Path
 
-        from coldroom.projectfile import parse_project_text
-        from coldroom.safeyaml import read_source
+        from coldroom.project import open_project
 
         source = Path(project)
         pdf_target, json_target = check_outputs(
             ("--out", out if out is not None else str(source.with_suffix(".pdf"))), ("--json", json_out),
             force=force, project=project,
         )
-        raw = read_source(project)
 
-        model = parse_project_text(raw, filename=project)
+        opened = open_project(project)
+        model = opened.model
         from coldroom.report.sheet import render_sheet  # reportlab, lazily
         from coldroom.sizing import size_project  # CoolProp, lazily
+        from coldroom.textreport import size_summary
 
-        result = size_project(model, project, raw)
+        result = size_project(model, project, opened.content)
         pdf = render_sheet(result, model)
         console = console_for(pdf_target, json_target)
-        say(_size_summary(result, model), file=console)
+        say(size_summary(result, model), file=console)
         console.flush()  # a full disk behind the terminal text stops the run before any file is written
         write_output(pdf_target, pdf, force=force, project=project, console=console)
         emit_json(result.to_json(), json_target, force=force, project=project, console=console)
@@ -455,12 +398,12 @@ def compare_command(
         import os
 
         from coldroom.errors import ProjectFileError
-        from coldroom.projectfile import parse_project_text
-        from coldroom.safeyaml import load_yaml, read_source
+        from coldroom.project import open_project
+        from coldroom.safeyaml import load_yaml
 
         pdf_target, json_target = check_outputs(("--out", out), ("--json", json_out), force=force, project=project)
-        raw = read_source(project)
-        model = parse_project_text(raw, filename=project)
+        opened = open_project(project)
+        raw, model = opened.content, opened.model
         if model.design.weather is None and model.design.ambient_bins is None:
             raise load_yaml(raw, filename=project).error(
                 "compare needs the year's ambient: design.weather (an EPW file) or design.ambient_bins",
@@ -532,53 +475,6 @@ def refrigerants_command() -> None:
     guarded(run)
 
 
-def _cycle_table(result) -> str:
-    """Readable table of a CycleResult (display units: kPa, kJ/kg, kW, m³/h)."""
-    lines = []
-    r = result
-    high = (
-        f"gas cooler outlet {r.gas_cooler_outlet_temperature:.1f} °C (transcritical)"
-        if r.transcritical
-        else f"condensing {r.condensing_temperature:.1f} °C (dew)"
-    )
-    lines.append(f"{r.refrigerant}  [{r.safety_class}, GWP {r.gwp_ar4:g} AR4]  {r.property_model}")
-    lines.append(
-        f"evaporating {r.evaporating_temperature:.1f} °C (dew), {high}; capacity {r.capacity / 1e3:.3f} kW"
-    )
-    lines.append(
-        f"superheat {r.superheat:g} K, subcooling {r.subcooling:g} K, isentropic efficiency {r.isentropic_efficiency:g}, "
-        f"clearance {r.clearance:g}"
-    )
-    lines.append("")
-    lines.append(f"{'state':<26}{'p kPa':>10}{'t °C':>9}{'h kJ/kg':>10}{'s kJ/kg·K':>11}{'quality':>9}")
-    labels = ("1 compressor suction", "2 compressor discharge", "3 condenser outlet", "4 evaporator inlet")
-    for label, s in zip(labels, r.states):
-        q = "-" if s.quality is None else f"{s.quality:.3f}"
-        lines.append(f"{label:<26}{s.p / 1e3:>10.1f}{s.t:>9.1f}{s.h / 1e3:>10.2f}{s.s / 1e3:>11.4f}{q:>9}")
-    lines.append("")
-    rows = [
-        ("refrigerating effect", f"{r.refrigerating_effect / 1e3:.2f} kJ/kg"),
-        ("mass flow", f"{r.mass_flow * 3600:.2f} kg/h  ({r.mass_flow * 1e3:.3f} g/s)"),
-        ("suction volume flow", f"{r.suction_volume_flow * 3600:.3f} m³/h"),
-        ("volumetric efficiency", f"{r.volumetric_efficiency:.3f}"),
-        ("displacement", f"{r.displacement * 3600:.3f} m³/h"),
-        ("compressor power", f"{r.compressor_power / 1e3:.3f} kW"),
-        ("condenser duty (THR)", f"{r.condenser_duty / 1e3:.3f} kW"),
-        ("COP", f"{r.cop:.2f}  (Carnot {r.carnot_cop:.2f}, ratio {r.carnot_ratio:.2f})"),
-        ("discharge temperature", f"{r.discharge_temperature:.1f} °C"),
-        ("pressure ratio", f"{r.pressure_ratio:.2f}"),
-        ("glide evaporator / condenser", f"{r.glide_evaporator:.2f} K / "
-         + ("-" if r.glide_condenser is None else f"{r.glide_condenser:.2f} K")),
-    ]
-    if r.suction_line_heat_gain:
-        rows.insert(7, ("suction-line heat gain", f"{r.suction_line_heat_gain / 1e3:.3f} kW"))
-    width = max(len(k) for k, _ in rows)
-    lines.extend(f"{k:<{width}}  {v}" for k, v in rows)
-    for w in r.warnings:
-        lines.append(f"warning: {w}")
-    return "\n".join(lines)
-
-
 @app.command("cycle")
 def cycle_command(
     refrigerant: str = typer.Option(..., "--refrigerant", "-r", help="Refrigerant, e.g. R448A, R-134a, R744."),
@@ -587,11 +483,18 @@ def cycle_command(
     suction_pressure: Optional[str] = typer.Option(None, "--suction-pressure", help="Measured suction pressure instead of --evaporating: '2.1 bar(g)', '45 psig' (gauge) or '350 kPa', '3.1 bar' (absolute)."),
     discharge_pressure: Optional[str] = typer.Option(None, "--discharge-pressure", help="Measured discharge pressure instead of --condensing (R-744 above critical: the gas-cooler pressure)."),
     capacity: str = typer.Option(..., "--capacity", help="Refrigerating capacity: '5 kW', '17000 Btu/h', '1.5 TR'; bare number = W."),
-    superheat: str = typer.Option("5", "--superheat", help="Useful superheat at the evaporator outlet [K]."),
-    suction_line_superheat: str = typer.Option("0", "--suction-line-superheat", help="Further superheat picked up in the suction line [K]."),
-    subcooling: str = typer.Option("2", "--subcooling", help="Subcooling at the condenser outlet [K]."),
-    isentropic_efficiency: float = typer.Option(0.70, "--isentropic-efficiency", help="Compressor isentropic efficiency (0-1]."),
-    clearance: float = typer.Option(0.04, "--clearance", help="Clearance volume ratio for the volumetric efficiency."),
+    superheat: str = typer.Option(
+        f"{_CYCLE.superheat:g}", "--superheat", help="Useful superheat at the evaporator outlet [K]."
+    ),
+    suction_line_superheat: str = typer.Option(
+        f"{_CYCLE.suction_line_superheat:g}", "--suction-line-superheat",
+        help="Further superheat picked up in the suction line, no useful cooling [K].",
+    ),
+    subcooling: str = typer.Option(f"{_CYCLE.subcooling:g}", "--subcooling", help="Subcooling at the condenser outlet [K]."),
+    isentropic_efficiency: float = typer.Option(
+        _CYCLE.isentropic_efficiency, "--isentropic-efficiency", help="Compressor isentropic efficiency (0-1]."
+    ),
+    clearance: float = typer.Option(_CYCLE.clearance, "--clearance", help="Clearance volume ratio for the volumetric efficiency."),
     gas_cooler_outlet: Optional[str] = typer.Option(None, "--gas-cooler-outlet", help="R-744 transcritical: gas-cooler outlet temperature (°C)."),
     units: str = typer.Option("SI", "--units", help="Units of the chart page: SI or IP."),
     out: Optional[str] = typer.Option(None, "--out", metavar="FILE.pdf|FILE.svg", help="Write the p-h chart and state table as one page (PDF or SVG by the name's ending)."),
@@ -600,7 +503,8 @@ def cycle_command(
 ) -> None:
     """Size one vapour-compression cycle without a project file (and draw it with --out).
 
-    --superheat 0 --subcooling 0 --isentropic-efficiency 1 is the ideal cycle.
+    The defaults are a project's (coldroom.design.CYCLE_DEFAULTS), so the same duty gives the same answer.
+    --superheat 0 --suction-line-superheat 0 --subcooling 0 --isentropic-efficiency 1 is the ideal cycle.
     Gauge pressures are read against the standard atmosphere (101.325 kPa).
     """
 
@@ -649,6 +553,7 @@ def cycle_command(
 
         from coldroom.cycle import check_cycle_inputs, solve_cycle
         from coldroom.refrigerant import get_fluid
+        from coldroom.textreport import cycle_table
 
         fluid = get_fluid(refrigerant)
 
@@ -685,7 +590,7 @@ def cycle_command(
 
             sys.stdout.write(json_text(result.to_json()))
         else:
-            print(_cycle_table(result))
+            print(cycle_table(result))
         if out_target is not None:
             from coldroom.report.cyclepage import render_cycle_page
             from coldroom.sizing import sheet_date, versions
@@ -705,101 +610,6 @@ def cycle_command(
 # --- check (existing unit at the room's new conditions) ----------------------------
 
 
-def _check_text(model, checks, limits=None) -> str:  # type: ignore[no-untyped-def]
-    """The verdict per room in the project's unit system (our own layout)."""
-    from coldroom.units import display, format_terms
-
-    system = model.project.units
-
-    def t(x):  # type: ignore[no-untyped-def]
-        return "-" if x is None else display(x, "temperature", system)
-
-    def q(x):  # type: ignore[no-untyped-def]
-        if x is None:
-            return "-"
-        if system == "IP":  # Btu/h with tons beside it, as IP contractors read capacities
-            return f"{display(x, 'power', system)} ({display(x, 'power_large', system)})"
-        return display(x, "power_large", system)
-
-    def electric(x):  # type: ignore[no-untyped-def]
-        return "-" if x is None else display(x, "power_large", "SI")  # electrical input in kW in both systems
-
-    lines = [f"{model.project.name}: existing-unit check"]
-    for k, (loads, check) in enumerate(checks):
-        limit = limits[k] if limits is not None else None
-        lines.append("")
-        lines.append(f"Room: {loads.name}")
-        if check is None:
-            lines.append("  no existing unit given")
-            continue
-        c = check
-        lines.append(f"  unit: {c.name} ({c.refrigerant}, {c.model} model)")
-        if limit is not None and limit.medium_at_low is not None:  # said first, before the margin
-            lines.append(f"  FIRST: {format_terms(limit.medium_at_low, system)}")
-        lines.append(f"  verdict: {c.verdict}")
-        lines.append(f"  room {t(c.room_temperature)}, condenser air {t(c.ambient_temperature)}")
-        lines.append(f"  balance: evaporating {t(c.balance_evaporating)} / condensing {t(c.balance_condensing)} (dew)")
-        lines.append(f"  capacity at balance   {q(c.capacity_at_balance)}")
-        lines.append(
-            f"  required capacity     {q(c.required_capacity)}  "
-            f"((1 + {c.safety_factor:.0%}) × daily load / {c.run_hours_available:.1f} h)"
-        )
-        if c.run_hours_needed is not None:
-            lines.append(
-                f"  run time needed       {c.run_hours_needed:.1f} h/day of {c.run_hours_available:.1f} h allowed; "
-                f"margin {c.margin_percent:+.0f} %"
-            )
-        if c.power_at_balance is not None:
-            t2 = "-" if c.discharge_temperature is None else t(c.discharge_temperature)
-            lines.append(
-                f"  power {electric(c.power_at_balance)}, heat rejection {q(c.heat_rejection_at_balance)}, "
-                f"discharge about {t2}, pressure ratio {c.pressure_ratio:.1f}"
-            )
-        if c.max_ambient_status == "found":
-            lines.append(f"  holds up to a condenser air of {t(c.max_ambient)}")
-        elif c.max_ambient_status == "holds_above_range":
-            lines.append("  holds over the whole ambient range searched (10…55 °C)")
-        elif c.max_ambient_status == "fails_below_range":
-            lines.append("  does not hold at any ambient in the range searched (10…55 °C)")
-        lines.append(f"  evaporator: {format_terms(c.evaporator_basis, system)}")
-        lines.append(f"  condenser: {format_terms(c.condenser_basis, system)}")
-        for note in c.compressor_basis:
-            lines.append(f"  compressor: {format_terms(note, system)}")
-        for warning in c.warnings:
-            lines.append(f"  WARNING: {format_terms(warning, system)}")
-        if limit is not None:
-            lines.append(f"  why: {format_terms(limit.reason(), system)}")
-            if limit.coldest_status == "found":
-                lines.append(f"  coldest room it holds   {t(limit.coldest_room_temperature_held)}")
-            elif limit.coldest_status == "never":
-                lines.append("  coldest room it holds   none in the room range")
-            else:
-                lines.append(f"  coldest room it holds   below {t(limit.coldest_room_temperature_held)}")
-            if limit.max_daily_intake is not None:
-                lines.append(
-                    f"  largest daily intake    {display(limit.max_daily_intake, 'mass', system, digits=0)}/day "
-                    f"at {t(limit.room_temperature)}"
-                )
-            lines.append(
-                f"  replacement duty        {q(limit.replacement_capacity)} at SST {t(limit.replacement_evaporating)}"
-                f" / SCT {t(limit.replacement_condensing)}"
-            )
-            pull = limit.pulldown
-            if pull is not None:
-                g = pull.governing
-                reached = (
-                    f"{pull.hours_to_final:.1f} h" if pull.hours_to_final is not None
-                    else f"not within {pull.duration / 3600:g} h"
-                )
-                asked = "" if g is None or g.asked_time is None else f" (asked {g.asked_time / 3600:g} h{'' if pull.met else ', NOT MET'})"
-                lines.append(f"  pull-down after a delivery with this unit: {reached}{asked}; "
-                             f"lowest room air {t(pull.lowest_air_temperature)}")
-            for sentence in limit.remedies():
-                if sentence is not limit.medium_at_low:
-                    lines.append(f"  - {format_terms(sentence, system)}")
-    return "\n".join(lines)
-
-
 @app.command("check")
 def check_command(
     project: str = typer.Argument(..., help="Project file (YAML)."),
@@ -813,20 +623,20 @@ def check_command(
     def run() -> None:
         (json_target,) = check_outputs(("--json", json_out), force=force, project=project)
 
-        from coldroom.projectfile import load_project
+        from coldroom.project import open_project
 
-        model = load_project(project)
-        from coldroom.equipment import check_project  # CoolProp, lazily
-
+        model = open_project(project).model
+        from coldroom.equipment import check_existing_units  # CoolProp, lazily
+        from coldroom.textreport import check_report
         from coldroom.unitlimits import unit_limits
 
-        checks = check_project(model)
+        checks = check_existing_units(model)
         limits = [
             None if check is None else unit_limits(model, i, loads, check.holds, pulldown=True)
             for i, (loads, check) in enumerate(checks)
         ]
         console = console_for(json_target)
-        say(_check_text(model, checks, limits), file=console)
+        say(check_report(model, checks, limits), file=console)
         if json_target is not None:  # build the payload only when asked
             data = {
                 "project": {"name": model.project.name, "unit_system": model.project.units, "input_file": project},
@@ -866,9 +676,9 @@ def select_command(
             (("--out", out), ("--json", json_out)), force=force, inputs=[project, catalogue]
         )
         from coldroom.catalogue import load_catalogue
-        from coldroom.projectfile import load_project
+        from coldroom.project import open_project
 
-        model = load_project(project)
+        model = open_project(project).model
         equipment = load_catalogue(catalogue)
         from coldroom.selection import select_project  # CoolProp, lazily
         from coldroom.textreport import selection_report

@@ -50,7 +50,7 @@ Examples
 --------
 >>> r = solve_cycle("R134a", -10.0, 40.0, 5000.0)
 >>> round(r.cop, 2), round(r.discharge_temperature, 1)
-(2.89, 65.0)
+(2.62, 74.0)
 """
 
 from __future__ import annotations
@@ -58,33 +58,24 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass, replace
 
+from coldroom.design import (
+    CYCLE_DEFAULTS,
+    DISCHARGE_ADVISORY,
+    DISCHARGE_LIMIT,
+    pressure_ratio_advisory,
+)
 from coldroom.errors import CalculationError
 from coldroom.results import Note, Term
 from coldroom.refrigerant import Fluid, StatePoint, coolprop_version, get_fluid, KELVIN
 
-#: Useful superheat at the evaporator outlet [K]; 4–7 K with a thermostatic
-#: expansion valve is common practice [trade].
-DEFAULT_SUPERHEAT = 5.0
-#: Liquid subcooling at the condenser outlet [K] [trade].
-DEFAULT_SUBCOOLING = 2.0
-#: Overall isentropic efficiency of a small reciprocating/scroll compressor
-#: [1]; 0.6–0.75 typical [trade].
-DEFAULT_ISENTROPIC_EFFICIENCY = 0.70
-#: Clearance volume ratio C [1]; 0.03–0.06 for reciprocating compressors
-#: [mem, textbooks, e.g. Stoecker & Jones 2nd ed. ch. 11] [ref:stoecker-jones].
-DEFAULT_CLEARANCE = 0.04
+#: Defaults of the cycle (superheat, suction-line superheat, subcooling,
+#: isentropic efficiency, clearance): :data:`coldroom.design.CYCLE_DEFAULTS`,
+#: the one table that ``coldroom cycle`` and a project's refrigeration block use.
+_D = CYCLE_DEFAULTS
 #: What ``compressor_power`` is, said in the JSON beside it: the compressor's electrical
 #: input (the isentropic efficiency is the overall one, motor included; module note).
 COMPRESSOR_POWER_BASIS = "electrical"
 
-#: Discharge temperature above which a warning is given [°C]: 110–120 °C at the
-#: discharge line is the usual advice for oil stability [trade].
-DISCHARGE_ADVISORY = 110.0
-#: Hard limit commonly applied [°C] [trade].
-DISCHARGE_LIMIT = 135.0
-#: Pressure ratio beyond which single-stage compression is questioned [1];
-#: practice puts the limit at ≈8–10 [trade].
-PRESSURE_RATIO_ADVISORY = 8.0
 #: GWP (AR4) from which EU Regulation 517/2014 annex III restricts new
 #: stationary refrigeration equipment (from 2020) [mem; verify].
 GWP_RESTRICTION = 2500.0
@@ -326,12 +317,12 @@ def _check(name: str, value: float, low: float, high: float, unit: str, low_open
 def check_cycle_inputs(
     evaporating_temperature: float | None,
     capacity: float,
-    superheat: float = DEFAULT_SUPERHEAT,
-    subcooling: float = DEFAULT_SUBCOOLING,
-    isentropic_efficiency: float = DEFAULT_ISENTROPIC_EFFICIENCY,
-    suction_line_superheat: float = 0.0,
+    superheat: float = _D.superheat,
+    subcooling: float = _D.subcooling,
+    isentropic_efficiency: float = _D.isentropic_efficiency,
+    suction_line_superheat: float = _D.suction_line_superheat,
     suction_pressure_drop: float = 0.0,
-    clearance: float = DEFAULT_CLEARANCE,
+    clearance: float = _D.clearance,
     polytropic_exponent: float | None = None,
 ) -> None:
     """Refuse cycle inputs outside the range :func:`solve_cycle` works in (no property look-up).
@@ -394,12 +385,12 @@ def solve_cycle(
     evaporating_temperature: float,
     condensing_temperature: float | None,
     capacity: float,
-    superheat: float = DEFAULT_SUPERHEAT,
-    subcooling: float = DEFAULT_SUBCOOLING,
-    isentropic_efficiency: float = DEFAULT_ISENTROPIC_EFFICIENCY,
-    suction_line_superheat: float = 0.0,
+    superheat: float = _D.superheat,
+    subcooling: float = _D.subcooling,
+    isentropic_efficiency: float = _D.isentropic_efficiency,
+    suction_line_superheat: float = _D.suction_line_superheat,
     suction_pressure_drop: float = 0.0,
-    clearance: float = DEFAULT_CLEARANCE,
+    clearance: float = _D.clearance,
     polytropic_exponent: float | None = None,
     gas_cooler_outlet_temperature: float | None = None,
     high_side_pressure: float | None = None,
@@ -415,24 +406,25 @@ def solve_cycle(
     evaporating_temperature : float
         Evaporating dew temperature [°C].
     condensing_temperature : float or None
-        Condensing dew temperature [°C]. For R-744 at or above 30 °C (critical
-        31 °C) the cycle is transcritical: give *gas_cooler_outlet_temperature*
-        instead (this may then be ``None``).
+        Condensing dew temperature [°C]. For R-744 at or above the boundary of
+        :func:`r744_transcritical` the cycle is transcritical: give
+        *gas_cooler_outlet_temperature* instead (this may then be ``None``).
     capacity : float
         Refrigerating capacity [W], 1 W … 1 GW.
     superheat : float
-        Useful superheat in the evaporator, from the dew point [K]. Default 5 K [trade].
+        Useful superheat in the evaporator, from the dew point [K]. Default
+        :data:`coldroom.design.CYCLE_DEFAULTS` (all defaults below come from that table).
     subcooling : float
-        Subcooling below the bubble point at the condenser outlet [K]. Default
-        2 K [trade]. Not used for a transcritical gas cooler.
+        Subcooling below the bubble point at the condenser outlet [K]. Not
+        used for a transcritical gas cooler.
     isentropic_efficiency : float
-        Compressor isentropic efficiency [1], 0 < η ≤ 1. Default 0.70 [trade].
+        Compressor isentropic efficiency [1], 0 < η ≤ 1.
     suction_line_superheat : float
-        Further (useless) superheat picked up in the suction line [K]. Default 0.
+        Further (useless) superheat picked up in the suction line [K]; 0 for none.
     suction_pressure_drop : float
         Suction-line pressure drop expressed as a loss of saturation temperature [K]. Default 0.
     clearance : float
-        Clearance volume ratio C [1]. Default 0.04 [mem, textbooks 0.03–0.06].
+        Clearance volume ratio C [1].
     polytropic_exponent : float, optional
         Re-expansion exponent n [1]; default the isentropic path exponent
         ln(p₂/p₁)/ln(ρ₂ₛ/ρ₁) (common practice, no source).
@@ -466,7 +458,8 @@ def solve_cycle(
     --------
     Ideal cycle (saturated vapour in, isentropic, saturated liquid out):
 
-    >>> r = solve_cycle("R-134a", -20.0, 40.0, 1000.0, superheat=0, subcooling=0, isentropic_efficiency=1)
+    >>> r = solve_cycle("R-134a", -20.0, 40.0, 1000.0, superheat=0, suction_line_superheat=0, subcooling=0,
+    ...                 isentropic_efficiency=1)
     >>> r.states[0].quality, r.states[2].quality
     (1.0, 0.0)
     """
@@ -617,7 +610,7 @@ def solve_cycle(
     te_k, tr_k = te + KELVIN, t_reject + KELVIN
     carnot = te_k / (tr_k - te_k)  # Carnot refrigerator COP, any thermodynamics text
 
-    warnings = _warnings(info, state2.t, pressure_ratio, p_suction, eta_v)
+    warnings = _warnings(info, state2.t, pressure_ratio, p_suction, eta_v, evaporating_temperature)
     return CycleResult(
         refrigerant=info.name,
         property_model=f"CoolProp {coolprop_version()} HEOS {info.coolprop_name}",
@@ -746,7 +739,10 @@ def _golden_max(func, low: float, high: float, tolerance: float = 500.0) -> floa
     return 0.5 * (a + b)
 
 
-def _warnings(info, discharge_temperature: float, pressure_ratio: float, suction_pressure: float, eta_v: float) -> tuple[str, ...]:
+def _warnings(
+    info, discharge_temperature: float, pressure_ratio: float, suction_pressure: float, eta_v: float,
+    evaporating_temperature: float,
+) -> tuple[str, ...]:
     out = []
     if discharge_temperature > DISCHARGE_LIMIT:
         out.append(
@@ -761,15 +757,13 @@ def _warnings(info, discharge_temperature: float, pressure_ratio: float, suction
         out.append(
             Note(
                 "discharge temperature ", Term(discharge_temperature, "temperature"), " is above the ",
-                Term(110.0, "temperature:bare"), "–", Term(120.0, "temperature"),
+                Term(DISCHARGE_ADVISORY, "temperature:bare"), "–", Term(120.0, "temperature"),
                 " usually advised at the discharge line [trade]",
             )
         )
-    if pressure_ratio > PRESSURE_RATIO_ADVISORY:
-        out.append(
-            f"pressure ratio {pressure_ratio:.1f} is at or past the ≈8–10 where single-stage compression stops "
-            "being sensible: choose a low-temperature compressor rated for it, or two stages [trade]"
-        )
+    advisory = pressure_ratio_advisory(pressure_ratio, evaporating_temperature)
+    if advisory is not None:
+        out.append(advisory)
     if suction_pressure < STANDARD_ATMOSPHERE:
         out.append(
             Note(

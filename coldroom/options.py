@@ -137,7 +137,9 @@ def validate_options(model: "ProjectModel", data: Mapping[str, Any], filename: s
     ProjectFileError
         At the option's change (or its ``changes`` key) with the option's name in the message.
     """
-    from coldroom.projectfile import parse_project_data
+    from coldroom.checks import check_physics
+    from coldroom.projectfile import error_at, parse_project_data
+    from coldroom.units import format_terms
 
     base = {k: v for k, v in data.items() if k != "options"}
     results = []
@@ -159,6 +161,9 @@ def validate_options(model: "ProjectModel", data: Mapping[str, Any], filename: s
                 raise located("an option cannot change the options", here + (key,))
         try:
             result = parse_project_data(changed, filename=filename, loaded=None)
+            check_physics(  # each option is a whole project: the same checks as the base
+                result, lambda message, path: error_at(None, filename, format_terms(message, result.project.units), path)
+            )
         except ProjectFileError as exc:
             where = exc.key or ""
             path = here

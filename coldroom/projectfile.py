@@ -51,7 +51,6 @@ import os
 import re
 from contextvars import ContextVar
 from functools import partial
-from pathlib import Path
 from typing import Annotated, Any, Literal, Optional, Union
 
 from pydantic import (
@@ -69,6 +68,7 @@ from pydantic import (
 from pydantic_core import PydanticCustomError
 
 from coldroom import units as _units
+from coldroom.design import CYCLE_DEFAULTS as _CYCLE
 from coldroom.errors import ColdroomError, ProjectFileError, UnitError
 
 # The unit system used for bare numbers while a file is being validated.
@@ -698,20 +698,20 @@ class CondensingSettings(Strict):
     refrigerant: str = "R448A"
     condenser_td: Optional[Q("temperature_difference", gt=0.0, le=30.0)] = None  # type: ignore[valid-type]
     condenser_air_temperature: Optional[OutdoorTemperature] = None
-    suction_line_superheat: Q("temperature_difference", ge=0.0, le=40.0) = 5.0  # type: ignore[valid-type]
+    suction_line_superheat: Q("temperature_difference", ge=0.0, le=40.0) = _CYCLE.suction_line_superheat  # type: ignore[valid-type]
     suction_line_drop: Q("temperature_difference", ge=0.0, le=10.0) = Field(  # type: ignore[valid-type]
         default=0.0,
         description="Suction-line pressure drop as a loss of saturation temperature [K] (trade: lines sized "
         "for about 1 K); the compressor works at the coldest member's evaporating temperature less this.",
     )
-    subcooling: Q("temperature_difference", ge=0.0, le=30.0) = 2.0  # type: ignore[valid-type]
+    subcooling: Q("temperature_difference", ge=0.0, le=30.0) = _CYCLE.subcooling  # type: ignore[valid-type]
     isentropic_efficiency: float = Field(
-        default=0.65,
+        default=_CYCLE.isentropic_efficiency,
         gt=0.2,
         le=1.0,
         description="Overall isentropic efficiency on the electrical input (motor included).",
     )
-    clearance: float = Field(default=0.04, ge=0.0, le=0.2)
+    clearance: float = Field(default=_CYCLE.clearance, ge=0.0, le=0.2)
     condenser_fan_power: Optional[Q("power", ge=0.0, le=1e5)] = Field(  # type: ignore[valid-type]
         default=None,
         description="Electrical input of the condenser fans; default estimated from the heat of rejection.",
@@ -742,14 +742,15 @@ ROOM_LEVEL_KEYS: tuple[str, ...] = ("evaporator_td", "superheat")
 
 
 class Refrigeration(CondensingSettings):
-    """Choices for the refrigerant side; every field has a documented default in coldroom.sizing.
+    """Choices for the refrigerant side. TDs default to the trade tables of :mod:`coldroom.design`;
+    the cycle figures to :data:`coldroom.design.CYCLE_DEFAULTS` (the same as ``coldroom cycle``).
 
     For a room in no ``systems`` entry this block also sets its own condensing
     unit; for a room in a system only :data:`ROOM_LEVEL_KEYS` may be given here.
     """
 
     evaporator_td: Optional[Q("temperature_difference", gt=0.0, le=25.0)] = None  # type: ignore[valid-type]
-    superheat: Q("temperature_difference", ge=0.0, le=30.0) = 5.0  # type: ignore[valid-type]
+    superheat: Q("temperature_difference", ge=0.0, le=30.0) = _CYCLE.superheat  # type: ignore[valid-type]
 
 
 class System(CondensingSettings):
@@ -1320,22 +1321,12 @@ def parse_project_data(data: Any, filename: str = "<input>", loaded: Any = None)
         message = _message(first)
         if len(errors) > 1:
             message += f" (and {len(errors) - 1} more error{'s' if len(errors) > 2 else ''})"
-        raise _error_at(loaded, filename, message, loc) from None
+        raise error_at(loaded, filename, message, loc) from None
     except ColdroomError as exc:  # pragma: no cover - pydantic wraps ValueErrors; kept as a guard
-        raise _error_at(loaded, filename, str(exc), ()) from None
+        raise error_at(loaded, filename, str(exc), ()) from None
     finally:
         _SYSTEM.reset(token)
-    from coldroom.checks import check_project
-    from coldroom.units import format_terms
-
-    check_project(
-        model, lambda message, path: _error_at(loaded, filename, format_terms(message, model.project.units), path)
-    )
     model._folder = os.path.dirname(os.path.abspath(filename)) if filename != "<input>" else os.getcwd()
-    if model.options and isinstance(data, dict):
-        from coldroom.options import validate_options
-
-        validate_options(model, data, filename, loaded)
     return model
 
 
@@ -1357,7 +1348,8 @@ def _refined_location(error: dict[str, Any]) -> tuple:
     return loc
 
 
-def _error_at(loaded: Any, filename: str, message: str, path: tuple) -> ProjectFileError:
+def error_at(loaded: Any, filename: str, message: str, path: tuple) -> ProjectFileError:
+    """The :class:`ProjectFileError` for *message* at the key *path*, with its file position when known."""
     if loaded is not None:
         return loaded.error(message, path)
     from coldroom.safeyaml import dotted
@@ -1366,25 +1358,12 @@ def _error_at(loaded: Any, filename: str, message: str, path: tuple) -> ProjectF
 
 
 def parse_project_text(text: str | bytes, filename: str = "<input>") -> ProjectModel:
-    """Load and validate a project from YAML text."""
+    """Load and validate a project from YAML text (each field; the physical checks are
+    :func:`coldroom.checks.check_physics`, run by :func:`coldroom.project.open_project`)."""
     from coldroom.safeyaml import load_yaml
 
     loaded = load_yaml(text, filename=filename)
     return parse_project_data(loaded.data, filename=filename, loaded=loaded)
-
-
-def load_project(path: str | os.PathLike[str]) -> ProjectModel:
-    """Read and validate the project file at *path*.
-
-    Raises
-    ------
-    ProjectFileError
-        Unreadable, malformed or physically impossible input (exit code 65).
-    """
-    from coldroom.safeyaml import read_source
-
-    name = str(Path(path))
-    return parse_project_text(read_source(name), filename=name)
 
 
 def json_schema() -> dict[str, Any]:

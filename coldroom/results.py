@@ -48,6 +48,16 @@ def _with_sep(part: object) -> object:
     return replace(part, sep="") if isinstance(part, Term) and part.sep == " × " else part
 
 
+#: Text mixed with SI numbers (:class:`Term`): ``("rated ", inline_term(4500.0, "power"), " at ΔT ", …)``;
+#: reports show it in their own unit system with :func:`coldroom.units.format_terms`.
+Phrase = tuple  # tuple[str | Term, ...]
+
+
+def inline_term(value: float, kind: str) -> Term:
+    """One number inside a phrase (no separator of its own)."""
+    return Term(value, kind, sep="")
+
+
 class Note(str):
     """A message whose numbers stay in SI so each report can show them in its own units.
 
@@ -266,7 +276,7 @@ class RoomResult:
     evaporating_temperature: Optional[float] = None  # °C, saturated dew point
     condensing_temperature: Optional[float] = None  # °C, saturated dew point
     condenser_air_temperature: Optional[float] = None  # °C
-    sizing_basis: tuple[tuple[str, str], ...] = ()  # (what, value and source) pairs for the sheet
+    sizing_basis: tuple[tuple[str, Phrase], ...] = ()  # (what, phrase in SI terms) pairs for the sheet
     cycle: Any = None  # coldroom.cycle.CycleResult; None for a member of a system of several rooms
     check: Any = None  # coldroom.equipment.CheckResult
     warnings: tuple[str, ...] = ()
@@ -284,7 +294,7 @@ class RoomResult:
         out["evaporating_temperature_c"] = self.evaporating_temperature
         out["condensing_temperature_c"] = self.condensing_temperature
         out["condenser_air_temperature_c"] = self.condenser_air_temperature
-        out["sizing_basis"] = [{"item": what, "value": value} for what, value in self.sizing_basis]
+        out["sizing_basis"] = [{"item": what, "value": format_terms(value, "SI")} for what, value in self.sizing_basis]
         out["cycle"] = self.cycle.to_json() if self.cycle is not None else None
         out["pulldown"] = self.pulldown.to_json() if self.pulldown is not None else None
         if self.check is not None:

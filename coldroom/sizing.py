@@ -7,11 +7,11 @@ For every room:
    capacity, :attr:`coldroom.results.RoomLoads.design_capacity`);
 2. the saturated evaporating (dew) temperature is the room temperature minus
    an evaporator TD chosen from the room's relative humidity
-   (:data:`EVAPORATOR_TD_BY_RH`, common practice [trade]) unless the project
+   (:data:`coldroom.design.EVAPORATOR_TD_BY_RH`, common practice [trade]) unless the project
    gives ``refrigeration.evaporator_td``;
 3. the saturated condensing (dew) temperature is the condenser air temperature
    (``refrigeration.condenser_air_temperature``, else the outdoor design dry
-   bulb) plus a condenser TD (:data:`DEFAULT_CONDENSER_TD`, [trade] 8–15 K for
+   bulb) plus a condenser TD (:data:`coldroom.design.DEFAULT_CONDENSER_TD`, [trade] 8–15 K for
    air-cooled condensers) unless the project gives
    ``refrigeration.condenser_td``;
 4. one compressor per system (:func:`size_system`; a room in no ``systems``
@@ -21,27 +21,21 @@ For every room:
    member design capacities × diversity, :mod:`coldroom.systems`), the warmer
    members' vapour mixed into the suction behind EPRs; superheat from each
    room's ``refrigeration`` block, subcooling, isentropic efficiency and
-   clearance from the system's (defaults documented in
-   :class:`coldroom.projectfile.Refrigeration`: superheat 5 K, suction-line
-   superheat 5 K, subcooling 2 K, overall isentropic efficiency 0.65,
-   clearance 0.04 — common practice, no source);
+   clearance from the system's (defaults: :data:`coldroom.design.CYCLE_DEFAULTS`,
+   the same table ``coldroom cycle`` uses);
 5. the system's electrical figures (:func:`coldroom.systems.electrical_figures`).
+
+This module is the orchestrator: it imports the parts (loads, design rules,
+systems, cycle, pipework, existing-unit check, pull-down); nothing below it
+imports it.
 
 Temperatures are in °C here (the trade states TDs against °C room
 temperatures); capacities in W.
 
-``RoomResult.sizing_basis`` holds ``(what, value)`` text pairs for the sheet,
-already in the project's unit system. *what* is ``"Group: label"``; the sheet
+``RoomResult.sizing_basis`` holds ``(what, phrase)`` pairs for the sheet: the
+phrase keeps its numbers in SI (:class:`coldroom.results.Term`) and the sheet
+shows it in the project's units. *what* is ``"Group: label"``; the sheet
 groups rows by the text before the first ``": "``.
-
-Examples
---------
->>> evaporator_td_for(room_temperature=2.0, relative_humidity=0.90)[0]
-4.5
->>> evaporator_td_for(room_temperature=2.0, relative_humidity=0.70)[0]
-7.5
->>> evaporator_td_for(room_temperature=-20.0, relative_humidity=0.80)[0]
-5.5
 """
 
 from __future__ import annotations
@@ -52,7 +46,7 @@ import os
 from dataclasses import dataclass
 from typing import TYPE_CHECKING, Any, Optional
 
-from coldroom import units as _units
+from coldroom.design import DesignTemperatures, room_design_temperatures
 from coldroom.errors import CalculationError
 
 if TYPE_CHECKING:  # pragma: no cover
@@ -60,158 +54,10 @@ if TYPE_CHECKING:  # pragma: no cover
     from coldroom.results import ProjectResult, RoomLoads, RoomResult, SystemResult
     from coldroom.systems import MemberDraw
 
-TD_SOURCE = "trade practice, evaporator TD vs room RH [trade]"
-
-#: Evaporator TD (room air − saturated evaporating dew temperature) by room
-#: relative humidity, for rooms above :data:`FREEZER_BELOW` [trade, common
-#: practice, no source]: 4–5 K ≈ 90 % RH; 5.5–6.5 K ≈ 80–85 %;
-#: 6.5–9 K ≈ 65–80 %; 9–12 K ≈ 50–65 %. Each row: (lowest RH of the band
-#: [-], TD [K], source). The TD is the middle of the trade band, rounded to
-#: 0.5 K; below 50 % RH the top of the last band is used.
-EVAPORATOR_TD_BY_RH: tuple[tuple[float, float, str], ...] = (
-    (0.875, 4.5, f"4–5 K for about 90 % RH, {TD_SOURCE}"),
-    (0.80, 6.0, f"5.5–6.5 K for 80–85 % RH, {TD_SOURCE}"),
-    (0.65, 7.5, f"6.5–9 K for 65–80 % RH, {TD_SOURCE}"),
-    (0.50, 10.0, f"9–12 K for 50–65 % RH, {TD_SOURCE}"),
-    (0.0, 12.0, f"12 K (top of the 9–12 K band) below 50 % RH, {TD_SOURCE}"),
-)
-
-#: Rooms colder than this are freezers: RH is not controlled, TD 5–6 K [trade]
-#: (the threshold is common practice, no source) [°C].
-FREEZER_BELOW = -5.0
-FREEZER_TD = (5.5, f"5–6 K for freezers, {TD_SOURCE}")
-
-#: Air-cooled condenser TD above the entering air [K]: 10 K, inside the trade
-#: range 8–15 K [trade].
-DEFAULT_CONDENSER_TD = 10.0
-CONDENSER_TD_SOURCE = "air-cooled condenser, trade range 8–15 K [trade]"
-
 # R-744: the transcritical boundary is coldroom.cycle.r744_transcritical; the gas-cooler
 # approach (outlet minus entering air) is the project's ``gas_cooler_approach`` (default 3 K,
 # common practice 2–5 K, from memory; verify).
 
-
-def evaporator_td_for(room_temperature: float, relative_humidity: float) -> tuple[float, str]:
-    """Evaporator TD for a room, from the trade table.
-
-    Parameters
-    ----------
-    room_temperature : float
-        Room air temperature [°C].
-    relative_humidity : float
-        Target room relative humidity [-].
-
-    Returns
-    -------
-    (float, str)
-        TD [K] and its source text.
-
-    Examples
-    --------
-    >>> evaporator_td_for(0.0, 0.55)
-    (10.0, '9–12 K for 50–65 % RH, trade practice, evaporator TD vs room RH [trade]')
-    """
-    if room_temperature < FREEZER_BELOW:
-        return FREEZER_TD
-    for lowest, td, source in EVAPORATOR_TD_BY_RH:
-        if relative_humidity >= lowest:
-            return td, source
-    return EVAPORATOR_TD_BY_RH[-1][1], EVAPORATOR_TD_BY_RH[-1][2]  # pragma: no cover
-
-
-@dataclass(frozen=True)
-class DesignTemperatures:
-    """Design temperatures of one room's refrigeration system.
-
-    Attributes
-    ----------
-    evaporating_temperature : float
-        Saturated evaporating (dew) temperature [°C].
-    condensing_temperature : float
-        Saturated condensing (dew) temperature [°C].
-    condenser_air_temperature : float
-        Air entering the condenser [°C].
-    evaporator_td, condenser_td : float
-        The TDs used [K].
-    evaporator_td_source, condenser_td_source, condenser_air_source : str
-        Where each came from.
-    """
-
-    evaporating_temperature: float
-    condensing_temperature: float
-    condenser_air_temperature: float
-    evaporator_td: float
-    condenser_td: float
-    evaporator_td_source: str
-    condenser_td_source: str
-    condenser_air_source: str
-
-
-def design_temperatures(
-    room_temperature: float,
-    relative_humidity: float,
-    outdoor_temperature: float,
-    evaporator_td: Optional[float] = None,
-    condenser_td: Optional[float] = None,
-    condenser_air_temperature: Optional[float] = None,
-) -> DesignTemperatures:
-    """Evaporating and condensing dew temperatures for one room.
-
-    Parameters
-    ----------
-    room_temperature : float
-        Room air [°C].
-    relative_humidity : float
-        Target room RH [-].
-    outdoor_temperature : float
-        Outdoor design dry bulb [°C], the condenser air unless given.
-    evaporator_td, condenser_td : float, optional
-        Overrides [K].
-    condenser_air_temperature : float, optional
-        Air entering the condenser [°C].
-
-    Examples
-    --------
-    >>> t = design_temperatures(2.0, 0.90, 32.0)
-    >>> (t.evaporating_temperature, t.condensing_temperature)
-    (-2.5, 42.0)
-    """
-    if evaporator_td is None:
-        td_e, td_e_source = evaporator_td_for(room_temperature, relative_humidity)
-    else:
-        td_e, td_e_source = evaporator_td, "given in the project file"
-    if condenser_td is None:
-        td_c, td_c_source = DEFAULT_CONDENSER_TD, CONDENSER_TD_SOURCE
-    else:
-        td_c, td_c_source = condenser_td, "given in the project file"
-    if condenser_air_temperature is None:
-        air, air_source = outdoor_temperature, "outdoor design dry bulb"
-    else:
-        air, air_source = condenser_air_temperature, "given in the project file"
-    return DesignTemperatures(
-        evaporating_temperature=room_temperature - td_e,
-        condensing_temperature=air + td_c,
-        condenser_air_temperature=air,
-        evaporator_td=td_e,
-        condenser_td=td_c,
-        evaporator_td_source=td_e_source,
-        condenser_td_source=td_c_source,
-        condenser_air_source=air_source,
-    )
-
-
-
-def room_design_temperatures(model: "ProjectModel", room: "Room") -> DesignTemperatures:
-    """:func:`design_temperatures` for one room of a project, with its refrigeration overrides."""
-    r = model.refrigeration_for(room)
-    return design_temperatures(
-        room.temperature,
-        room.rh,
-        model.design.outdoor_temperature,
-        evaporator_td=r.evaporator_td,
-        condenser_td=r.condenser_td,
-        condenser_air_temperature=r.condenser_air_temperature,
-    )
 
 def sheet_date(project_date: Optional[str], environ: Optional[dict] = None) -> str:
     """The date printed on the sheet: the project's, else SOURCE_DATE_EPOCH (UTC), else today.
@@ -249,45 +95,48 @@ def versions() -> dict[str, str]:
 
 
 def _basis(model: "ProjectModel", room: "Room", loads: "RoomLoads", temps: DesignTemperatures) -> tuple:
-    """The (what, value) pairs printed under "Basis of design", in the project's units."""
+    """The (what, phrase) pairs printed under "Basis of design"; each phrase keeps its numbers in SI.
+
+    A phrase is a tuple of text and :class:`coldroom.results.Term` (see
+    :data:`coldroom.results.Phrase`); the sheet shows it in the project's
+    units with :func:`coldroom.units.format_terms`, the JSON in SI.
+    """
     from coldroom.data import refrigerants
     from coldroom.loads import construction_u, outdoor_relative_humidity, site_pressure
+    from coldroom.results import inline_term as n
 
-    system = model.project.units
     d = model.design
-    show = _units.display
-    rows: list[tuple[str, str]] = []
-    add = rows.append
+    rows: list[tuple[str, tuple]] = []
+
+    def add(what: str, *phrase: object) -> None:
+        rows.append((what, tuple(phrase)))
+
     rh_out = outdoor_relative_humidity(d)
-    add(("Site: outdoor design dry bulb", show(d.outdoor_temperature, "temperature", system)))
+    add("Site: outdoor design dry bulb", n(d.outdoor_temperature, "temperature"))
     if d.outdoor_wet_bulb is not None:
-        add(("Site: outdoor wet bulb", f"{show(d.outdoor_wet_bulb, 'temperature', system)} (RH {rh_out:.0%})"))
+        add("Site: outdoor wet bulb", n(d.outdoor_wet_bulb, "temperature"), f" (RH {rh_out:.0%})")
     else:
-        add(("Site: outdoor relative humidity", f"{rh_out:.0%}"))
-    add(("Site: ground temperature", show(d.ground_temperature, "temperature", system)))
-    add(("Site: barometric pressure", show(site_pressure(d), "pressure", system)))
-    add(("Room: temperature and RH", f"{show(room.temperature, 'temperature', system)}, {room.rh:.0%} RH"))
-    length_unit = _units.DISPLAY_UNITS[system]["length"]
+        add("Site: outdoor relative humidity", f"{rh_out:.0%}")
+    add("Site: ground temperature", n(d.ground_temperature, "temperature"))
+    add("Site: barometric pressure", n(site_pressure(d), "pressure"))
+    add("Room: temperature and RH", n(room.temperature, "temperature"), f", {room.rh:.0%} RH")
     for where in ("inside", "outside"):
         box = room.box_dimensions(where)
         if box is None:
             break
         given = " (as given)" if room.dimensions is not None and room.dimensions.measured == where else ""
+        length, width, height = box
         add(
-            (
-                f"Room: {where} dimensions (L × W × H){given}",
-                " × ".join(_units.format_number(_units.to_unit(x, "length", length_unit)) for x in box)
-                + f" {length_unit}",
-            )
+            f"Room: {where} dimensions (L × W × H){given}",
+            n(length, "length:bare"), " × ", n(width, "length:bare"), " × ", n(height, "length"),
         )
-    add(("Room: inside volume and floor area",
-         f"{show(loads.volume, 'volume', system)}, {show(loads.floor_area, 'area', system)}"))
-    add(("Room: transmission areas", {
+    add("Room: inside volume and floor area", n(loads.volume, "volume"), ", ", n(loads.floor_area, "area"))
+    add("Room: transmission areas", {
         "outside": "outside surface of each section (outside dimensions: "
                    + ("as given)" if room.dimensions is not None and room.dimensions.measured == "outside"
                       else "inside + construction thickness)"),
         "given": "areas as given in the project file",
-    }.get(loads.transmission_area_basis, "outside surface of each section; given areas where stated")))
+    }.get(loads.transmission_area_basis, "outside surface of each section; given areas where stated"))
     # constructions: one row per construction used, with the sides it covers
     used: dict[str, list[str]] = {}
     u_of: dict[str, float] = {}
@@ -301,8 +150,7 @@ def _basis(model: "ProjectModel", room: "Room", loads: "RoomLoads", temps: Desig
         u_of[key] = construction_u(construction, surface.facing)
         desc[key] = construction.description or name
     for key, sides in used.items():
-        u_text = show(u_of[key], "u_value", system, 3 if system == "SI" else 4)
-        add((f"Construction: {desc[key]}", f"U {u_text} ({', '.join(sides)})"))
+        add(f"Construction: {desc[key]}", "U ", n(u_of[key], "u_value"), f" ({', '.join(sides)})")
     neighbours = []
     for side in ("north", "east", "south", "west", "ceiling", "floor"):
         surface = room.envelope.side(side)
@@ -313,73 +161,51 @@ def _basis(model: "ProjectModel", room: "Room", loads: "RoomLoads", temps: Desig
     if any(room.envelope.side(x).facing in ("space", "roof_void", "room") for x in ("north", "east", "south", "west",
                                                                                  "ceiling", "floor")):
         add(
-            (
-                "Construction: heat lost to a colder neighbour",
-                "not credited unless the surface says credit: true (the neighbour may be off, defrosting or "
-                "emptied); the colder room always counts what it gains"
-                + (f" — here: {', '.join(neighbours)}" if neighbours else ""),
-            )
+            "Construction: heat lost to a colder neighbour",
+            "not credited unless the surface says credit: true (the neighbour may be off, defrosting or "
+            "emptied); the colder room always counts what it gains"
+            + (f" — here: {', '.join(neighbours)}" if neighbours else ""),
         )
     for door in room.doors:
-        w = show(door.width, "length", system)
-        h = show(door.height, "length", system)
         add(
-            (
-                f"Door: {door.name}",
-                f"{w} × {h}, {door.passages_per_day:g} passages/day, open {door.open_time / 60:g} min/day, "
-                f"{door.protection.replace('_', ' ')}"
-                + (f"; into room {door.to_room} (its design temperature and RH)" if door.to_room else ""),
-            )
+            f"Door: {door.name}",
+            n(door.width, "length"), " × ", n(door.height, "length"),
+            f", {door.passages_per_day:g} passages/day, open {door.open_time / 60:g} min/day, "
+            f"{door.protection.replace('_', ' ')}"
+            + (f"; into room {door.to_room} (its design temperature and RH)" if door.to_room else ""),
         )
     if room.infiltration.method == "air_changes":
-        add(("Door: infiltration method", f"air changes ({room.infiltration.usage.replace('_', ' ')} use)"))
+        add("Door: infiltration method", f"air changes ({room.infiltration.usage.replace('_', ' ')} use)")
     for product in room.products:
         label = product.product.replace("_", " ") if product.product else "product (given properties)"
+        phrase: tuple = ()
         if product.daily_intake > 0:
             assert product.entering_temperature is not None and product.final_temperature is not None
-            text = (
-                f"{show(product.daily_intake, 'mass', system)}/day, "
-                f"{show(product.entering_temperature, 'temperature', system)} to "
-                f"{show(product.final_temperature, 'temperature', system)} in {product.pulldown_time / 3600:g} h"
+            phrase = (
+                n(product.daily_intake, "mass"), "/day, ", n(product.entering_temperature, "temperature"), " to ",
+                n(product.final_temperature, "temperature"), f" in {product.pulldown_time / 3600:g} h",
             )
         else:
-            text = "stored only"
+            phrase = ("stored only",)
         if product.stored_mass > 0:
-            text += f"; {show(product.stored_mass, 'mass', system)} stored"
-        add((f"Product: {label}", text))
-    add(("Operation: compressor run time", f"{loads.run_time / 3600:g} h/day ({loads.run_time_basis})"))
-    add(("Operation: safety factor", f"{loads.safety_factor:.0%}"))
-    add(("Operation: defrost", room.defrost.type.replace("_", "-")))
-    add(("Operation: design capacity set by", loads.governed_by))
+            phrase += ("; ", n(product.stored_mass, "mass"), " stored")
+        add(f"Product: {label}", *phrase)
+    add("Operation: compressor run time", f"{loads.run_time / 3600:g} h/day ({loads.run_time_basis})")
+    add("Operation: safety factor", f"{loads.safety_factor:.0%}")
+    add("Operation: defrost", room.defrost.type.replace("_", "-"))
+    add("Operation: design capacity set by", loads.governed_by)
     r = model.refrigeration_for(room)
     info = refrigerants.lookup(r.refrigerant)
-    add(("Refrigeration: refrigerant", f"{info.name} (safety class {info.safety_class}, GWP {info.gwp_ar4:g} AR4)"))
+    add("Refrigeration: refrigerant", f"{info.name} (safety class {info.safety_class}, GWP {info.gwp_ar4:g} AR4)")
+    add("Refrigeration: evaporator TD", n(temps.evaporator_td, "temperature_difference"), f" ({temps.evaporator_td_source})")
+    add("Refrigeration: condenser air", n(temps.condenser_air_temperature, "temperature"), f" ({temps.condenser_air_source})")
+    add("Refrigeration: condenser TD", n(temps.condenser_td, "temperature_difference"), f" ({temps.condenser_td_source})")
     add(
-        (
-            "Refrigeration: evaporator TD",
-            f"{show(temps.evaporator_td, 'temperature_difference', system)} ({temps.evaporator_td_source})",
-        )
+        "Refrigeration: superheat / suction line / subcooling",
+        n(r.superheat, "temperature_difference"), " / ", n(r.suction_line_superheat, "temperature_difference"),
+        " / ", n(r.subcooling, "temperature_difference"),
     )
-    add(
-        (
-            "Refrigeration: condenser air",
-            f"{show(temps.condenser_air_temperature, 'temperature', system)} ({temps.condenser_air_source})",
-        )
-    )
-    add(
-        (
-            "Refrigeration: condenser TD",
-            f"{show(temps.condenser_td, 'temperature_difference', system)} ({temps.condenser_td_source})",
-        )
-    )
-    add(
-        (
-            "Refrigeration: superheat / suction line / subcooling",
-            " / ".join(show(x, "temperature_difference", system)
-                       for x in (r.superheat, r.suction_line_superheat, r.subcooling)),
-        )
-    )
-    add(("Refrigeration: compressor", f"isentropic efficiency {r.isentropic_efficiency:.2f}, clearance {r.clearance:.2f}"))
+    add("Refrigeration: compressor", f"isentropic efficiency {r.isentropic_efficiency:.2f}, clearance {r.clearance:.2f}")
     return tuple(rows)
 
 
@@ -729,34 +555,36 @@ def size_system(
 
 def _system_basis(model: "ProjectModel", system: "SystemResult") -> tuple:
     """Sizing-basis rows about the room's system (only for a system of several rooms or with a drop)."""
+    from coldroom.results import inline_term as n
+
     if len(system.members) == 1 and system.suction_line_drop == 0.0 and system.diversity == 1.0:
         return ()
-    show = _units.display
-    units = model.project.units
     piping = system.pipework.piping if system.pipework is not None else None
     sized_suction = piping is not None and piping.line("suction") is not None
-    rows = [
-        (
-            "System: condensing unit",
-            f"{system.name}, serving {', '.join(system.rooms)}",
-        ),
+    rows: list[tuple[str, tuple]] = [
+        ("System: condensing unit", (f"{system.name}, serving {', '.join(system.rooms)}",)),
         (
             "System: suction (dew)",
-            f"{show(system.suction_temperature, 'temperature', units)} = coldest evaporating temperature less the "
-            f"suction-line drop {show(system.suction_line_drop, 'temperature_difference', units)}"
-            + (" (from the sized suction line)" if sized_suction else " (as given)"),
+            (
+                n(system.suction_temperature, "temperature"),
+                " = coldest evaporating temperature less the suction-line drop ",
+                n(system.suction_line_drop, "temperature_difference"),
+                " (from the sized suction line)" if sized_suction else " (as given)",
+            ),
         ),
     ]
     if len(system.members) > 1:
-        rows.append(("System: warmer rooms", "evaporator pressure regulator; vapour mixed into the suction"))
+        rows.append(("System: warmer rooms", ("evaporator pressure regulator; vapour mixed into the suction",)))
     if system.diversity != 1.0:
-        rows.append(("System: diversity", f"{system.diversity:.0%} of the rooms' summed design capacity"))
+        rows.append(("System: diversity", (f"{system.diversity:.0%} of the rooms' summed design capacity",)))
     if piping is not None and system.pipework.discharge_drop > 0.0:
         rows.append(
             (
                 "System: discharge line",
-                f"compressor discharges {show(system.pipework.discharge_drop, 'temperature_difference', units)} "
-                "(saturation) above condensing: the sized discharge line's drop",
+                (
+                    "compressor discharges ", n(system.pipework.discharge_drop, "temperature_difference"),
+                    " (saturation) above condensing: the sized discharge line's drop",
+                ),
             )
         )
     return tuple(rows)

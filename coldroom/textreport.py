@@ -1,10 +1,14 @@
-"""Plain-text tables for the terminal (no heavy imports; presents results, computes nothing new)."""
+"""What the terminal shows: tables and summaries of ``load``, ``size``, ``check``, ``cycle`` and ``compare``.
+
+Presents results in the project's unit system and computes nothing new; no
+heavy imports (CoolProp, reportlab).
+"""
 
 from __future__ import annotations
 
-from typing import TYPE_CHECKING, Any, Sequence
+from typing import TYPE_CHECKING, Any, Optional, Sequence
 
-from coldroom.results import COMPONENTS, RoomLoads
+from coldroom.results import COMPONENTS, RoomLoads, Term
 
 if TYPE_CHECKING:  # pragma: no cover
     from coldroom.results import SystemResult
@@ -313,3 +317,201 @@ def selection_report(selections: Sequence[object], system: str) -> str:
     if len(selections) > 1:
         lines.append(f"Total for the project: {_money(grand, currency)}")
     return "\n".join(lines).rstrip()
+
+
+def size_summary(result: Any, model: Any) -> str:
+    """The terminal summary of ``coldroom size`` (presents the result, computes nothing)."""
+    from coldroom.report.text import capacity, q, temperature
+
+    s = result.unit_system
+    lines = [f"{result.project_name}  ({result.date}, {s} units)"]
+    for room, room_in in zip(result.rooms, model.rooms):
+        loads = room.loads
+        lines.append("")
+        lines.append(f"{room.name}  ({temperature(room_in.temperature, s)}, {room_in.rh:.0%} RH)")
+        lines.append(
+            f"  required capacity   {capacity(loads.required_capacity, s)} (24 h)   "
+            f"design {capacity(loads.design_capacity, s)} (set by the {loads.governed_by})"
+        )
+        lines.append(
+            f"  evaporating / condensing (dew)   {temperature(room.evaporating_temperature, s)} / "
+            f"{temperature(room.condensing_temperature, s)}   condenser air {temperature(room.condenser_air_temperature, s)}"
+        )
+        if room.cycle is not None:
+            c = room.cycle.to_json()
+            lines.append(
+                f"  {c['refrigerant']}: mass flow {q(c['mass_flow_kg_s'], 'mass_flow', s)}   "
+                f"displacement {q(c['displacement_m3_h'] / 3600.0, 'volume_flow', s)}   "
+                f"compressor input {capacity(c['compressor_power_w'], s)}"
+            )
+            lines.append(
+                f"  heat of rejection {capacity(c['condenser_duty_w'], s)}   COP {c['cop']:.2f}   "
+                f"discharge {temperature(c['discharge_temperature_c'], s)}"
+            )
+        if room.check is not None:
+            k = room.check
+            at_balance = capacity(k.capacity_at_balance, s) if k.capacity_at_balance is not None else "n/a"
+            lines.append(
+                f"  existing unit: {k.verdict}; {at_balance} at balance vs "
+                f"{capacity(k.required_capacity, s)} required; see `coldroom check`"
+            )
+        for message in list(loads.warnings) + list(room.warnings):
+            lines.append(f"  warning: {format_terms(message, s)}")
+    if result.systems:
+        lines += [
+            "",
+            "Systems: design capacity, SST / SCT (dew), compressor electrical input, heat of rejection, "
+            "connected load, electricity per day",
+        ]
+        lines.append(systems_report(result.systems, s))
+        for system in result.systems:
+            if len(system.members) > 1:  # a one-room system's warnings are the room's, printed above
+                lines += [f"warning: {format_terms(message, s)}" for message in system.warnings]
+    for message in result.warnings:
+        lines.append(f"warning: {format_terms(message, s)}")
+    return "\n".join(lines)
+
+
+def cycle_table(result: Any) -> str:
+    """Readable table of a CycleResult for ``coldroom cycle`` (display units: kPa, kJ/kg, kW, m³/h)."""
+    lines = []
+    r = result
+    high = (
+        f"gas cooler outlet {r.gas_cooler_outlet_temperature:.1f} °C (transcritical)"
+        if r.transcritical
+        else f"condensing {r.condensing_temperature:.1f} °C (dew)"
+    )
+    lines.append(f"{r.refrigerant}  [{r.safety_class}, GWP {r.gwp_ar4:g} AR4]  {r.property_model}")
+    lines.append(
+        f"evaporating {r.evaporating_temperature:.1f} °C (dew), {high}; capacity {r.capacity / 1e3:.3f} kW"
+    )
+    lines.append(
+        f"superheat {r.superheat:g} K (+ {r.suction_line_superheat:g} K suction line), subcooling {r.subcooling:g} K, "
+        f"isentropic efficiency {r.isentropic_efficiency:g}, clearance {r.clearance:g}"
+    )
+    lines.append("")
+    lines.append(f"{'state':<26}{'p kPa':>10}{'t °C':>9}{'h kJ/kg':>10}{'s kJ/kg·K':>11}{'quality':>9}")
+    labels = ("1 compressor suction", "2 compressor discharge", "3 condenser outlet", "4 evaporator inlet")
+    for label, s in zip(labels, r.states):
+        q = "-" if s.quality is None else f"{s.quality:.3f}"
+        lines.append(f"{label:<26}{s.p / 1e3:>10.1f}{s.t:>9.1f}{s.h / 1e3:>10.2f}{s.s / 1e3:>11.4f}{q:>9}")
+    lines.append("")
+    rows = [
+        ("refrigerating effect", f"{r.refrigerating_effect / 1e3:.2f} kJ/kg"),
+        ("mass flow", f"{r.mass_flow * 3600:.2f} kg/h  ({r.mass_flow * 1e3:.3f} g/s)"),
+        ("suction volume flow", f"{r.suction_volume_flow * 3600:.3f} m³/h"),
+        ("volumetric efficiency", f"{r.volumetric_efficiency:.3f}"),
+        ("displacement", f"{r.displacement * 3600:.3f} m³/h"),
+        ("compressor power", f"{r.compressor_power / 1e3:.3f} kW"),
+        ("condenser duty (THR)", f"{r.condenser_duty / 1e3:.3f} kW"),
+        ("COP", f"{r.cop:.2f}  (Carnot {r.carnot_cop:.2f}, ratio {r.carnot_ratio:.2f})"),
+        ("discharge temperature", f"{r.discharge_temperature:.1f} °C"),
+        ("pressure ratio", f"{r.pressure_ratio:.2f}"),
+        ("glide evaporator / condenser", f"{r.glide_evaporator:.2f} K / "
+         + ("-" if r.glide_condenser is None else f"{r.glide_condenser:.2f} K")),
+    ]
+    if r.suction_line_heat_gain:
+        rows.insert(7, ("suction-line heat gain", f"{r.suction_line_heat_gain / 1e3:.3f} kW"))
+    width = max(len(k) for k, _ in rows)
+    lines.extend(f"{k:<{width}}  {v}" for k, v in rows)
+    for w in r.warnings:
+        lines.append(f"warning: {w}")
+    return "\n".join(lines)
+
+
+def check_report(model: Any, checks: Sequence[tuple[RoomLoads, Any]], limits: Optional[Sequence[Any]] = None) -> str:
+    """The terminal output of ``coldroom check``: the verdict per room in the project's unit system,
+    with what the unit can still do (*limits*: :class:`coldroom.unitlimits.UnitLimits` per room, or None)."""
+    from coldroom.design import AMBIENT_SWEEP
+
+    system = model.project.units
+    low, high = AMBIENT_SWEEP
+    sweep = format_terms((Term(low, "temperature:bare", sep=""), "…", Term(high, "temperature", sep="")), system)
+
+    def t(x):  # type: ignore[no-untyped-def]
+        return "-" if x is None else display(x, "temperature", system)
+
+    def q(x):  # type: ignore[no-untyped-def]
+        if x is None:
+            return "-"
+        if system == "IP":  # Btu/h with tons beside it, as IP contractors read capacities
+            return f"{display(x, 'power', system)} ({display(x, 'power_large', system)})"
+        return display(x, "power_large", system)
+
+    def electric(x):  # type: ignore[no-untyped-def]
+        return "-" if x is None else display(x, "power_large", "SI")  # electrical input in kW in both systems
+
+    lines = [f"{model.project.name}: existing-unit check"]
+    for k, (loads, check) in enumerate(checks):
+        limit = limits[k] if limits is not None else None
+        lines.append("")
+        lines.append(f"Room: {loads.name}")
+        if check is None:
+            lines.append("  no existing unit given")
+            continue
+        c = check
+        lines.append(f"  unit: {c.name} ({c.refrigerant}, {c.model} model)")
+        if limit is not None and limit.medium_at_low is not None:  # said first, before the margin
+            lines.append(f"  FIRST: {format_terms(limit.medium_at_low, system)}")
+        lines.append(f"  verdict: {c.verdict}")
+        lines.append(f"  room {t(c.room_temperature)}, condenser air {t(c.ambient_temperature)}")
+        lines.append(f"  balance: evaporating {t(c.balance_evaporating)} / condensing {t(c.balance_condensing)} (dew)")
+        lines.append(f"  capacity at balance   {q(c.capacity_at_balance)}")
+        lines.append(
+            f"  required capacity     {q(c.required_capacity)}  "
+            f"((1 + {c.safety_factor:.0%}) × daily load / {c.run_hours_available:.1f} h)"
+        )
+        if c.run_hours_needed is not None:
+            lines.append(
+                f"  run time needed       {c.run_hours_needed:.1f} h/day of {c.run_hours_available:.1f} h allowed; "
+                f"margin {c.margin_percent:+.0f} %"
+            )
+        if c.power_at_balance is not None:
+            t2 = "-" if c.discharge_temperature is None else t(c.discharge_temperature)
+            lines.append(
+                f"  power {electric(c.power_at_balance)}, heat rejection {q(c.heat_rejection_at_balance)}, "
+                f"discharge about {t2}, pressure ratio {c.pressure_ratio:.1f}"
+            )
+        if c.max_ambient_status == "found":
+            lines.append(f"  holds up to a condenser air of {t(c.max_ambient)}")
+        elif c.max_ambient_status == "holds_above_range":
+            lines.append(f"  holds over the whole ambient range searched ({sweep})")
+        elif c.max_ambient_status == "fails_below_range":
+            lines.append(f"  does not hold at any ambient in the range searched ({sweep})")
+        lines.append(f"  evaporator: {format_terms(c.evaporator_basis, system)}")
+        lines.append(f"  condenser: {format_terms(c.condenser_basis, system)}")
+        for note in c.compressor_basis:
+            lines.append(f"  compressor: {format_terms(note, system)}")
+        for warning in c.warnings:
+            lines.append(f"  WARNING: {format_terms(warning, system)}")
+        if limit is not None:
+            lines.append(f"  why: {format_terms(limit.reason(), system)}")
+            if limit.coldest_status == "found":
+                lines.append(f"  coldest room it holds   {t(limit.coldest_room_temperature_held)}")
+            elif limit.coldest_status == "never":
+                lines.append("  coldest room it holds   none in the room range")
+            else:
+                lines.append(f"  coldest room it holds   below {t(limit.coldest_room_temperature_held)}")
+            if limit.max_daily_intake is not None:
+                lines.append(
+                    f"  largest daily intake    {display(limit.max_daily_intake, 'mass', system, digits=0)}/day "
+                    f"at {t(limit.room_temperature)}"
+                )
+            lines.append(
+                f"  replacement duty        {q(limit.replacement_capacity)} at SST {t(limit.replacement_evaporating)}"
+                f" / SCT {t(limit.replacement_condensing)}"
+            )
+            pull = limit.pulldown
+            if pull is not None:
+                g = pull.governing
+                reached = (
+                    f"{pull.hours_to_final:.1f} h" if pull.hours_to_final is not None
+                    else f"not within {pull.duration / 3600:g} h"
+                )
+                asked = "" if g is None or g.asked_time is None else f" (asked {g.asked_time / 3600:g} h{'' if pull.met else ', NOT MET'})"
+                lines.append(f"  pull-down after a delivery with this unit: {reached}{asked}; "
+                             f"lowest room air {t(pull.lowest_air_temperature)}")
+            for sentence in limit.remedies():
+                if sentence is not limit.medium_at_low:
+                    lines.append(f"  - {format_terms(sentence, system)}")
+    return "\n".join(lines)

@@ -360,7 +360,7 @@ def unit_limits(
     pulldown : bool
         Also simulate the pull-down after a delivery with this unit.
     """
-    from coldroom.sizing import room_design_temperatures
+    from coldroom.design import room_design_temperatures
 
     room = model.rooms[index]
     temps = room_design_temperatures(model, room)

@@ -304,3 +304,48 @@ def lookup(name: str) -> RefrigerantInfo:
     if isinstance(name, RefrigerantInfo):
         return name
     return _NAMES.lookup(name)
+
+
+#: Temperature limits of each refrigerant's property model [°C]: the lowest
+#: saturated evaporating temperature (triple point of a pure fluid; the lower
+#: limit of CoolProp's pseudo-pure or mixture model for a blend) and the
+#: critical temperature (for a blend, the mixture critical point of the
+#: nominal composition). Values read from CoolProp 8.0
+#: (``PropsSI('Ttriple'|'Tcrit', fluid)``; for the ``.mix`` blends
+#: ``AbstractState('HEOS', fluid).all_critical_points()``: the physical one near the top
+#: of the two-phase region, the lowest where several lie within 2 K, R-452A)
+#: [pub: CoolProp 8.0 / NIST REFPROP values]. Kept as plain numbers so that
+#: ``coldroom validate`` never imports CoolProp.
+LIMITS_SOURCE = "CoolProp 8.0 Ttriple/Tmin and Tcrit (mixture critical point) [pub]"
+LIMITS: dict[str, tuple[float, float]] = {
+    # name: (lowest evaporating temperature [°C], critical temperature [°C])
+    "R-134a": (-103.30, 101.06),
+    "R-404A": (-73.15, 72.12),  # pseudo-pure model's lower limit
+    "R-507A": (-73.15, 70.62),  # pseudo-pure model's lower limit
+    "R-407A": (-114.11, 82.25),
+    "R-407C": (-73.15, 86.20),  # pseudo-pure model's lower limit
+    "R-407F": (-118.61, 82.60),
+    "R-448A": (-124.62, 82.79),
+    "R-449A": (-125.81, 82.49),
+    "R-452A": (-122.41, 74.22),  # CoolProp finds 75.10, 74.25 and 74.22: the lowest is kept
+    "R-513A": (-128.99, 95.41),
+    "R-454C": (-146.02, 87.64),
+    "R-455A": (-140.56, 85.63),
+    "R-290": (-187.62, 96.74),
+    "R-600a": (-159.42, 134.66),
+    "R-717": (-77.65, 132.41),
+    "R-744": (-56.56, 30.98),
+    "R-1234yf": (-151.55, 94.70),
+    "R-1234ze(E)": (-104.53, 109.36),
+    "R-22": (-157.42, 96.15),
+}
+
+def limits(name: str) -> tuple[float, float]:
+    """(lowest evaporating temperature, critical temperature) [°C] of a catalogue refrigerant.
+
+    Examples
+    --------
+    >>> limits("CO2")
+    (-56.56, 30.98)
+    """
+    return LIMITS[lookup(name).name]

@@ -4,10 +4,8 @@ Presents a :class:`coldroom.equipment.CheckResult` (``RoomResult.check``); it
 computes nothing new — the chart plots the arrays the check already holds
 (:meth:`CheckResult.chart`), converting units for display only.
 
-Hooked into the sheet through :data:`coldroom.report.sheet.ROOM_SECTIONS`.
-The sheet's building blocks (heading, grid, note, figure boxes, warning box)
-are imported from :mod:`coldroom.report.sheet` inside the section function, so
-this module can be imported by the sheet without a cycle.
+Hooked into the sheet through :data:`coldroom.report.sheet.ROOM_SECTIONS`;
+built from the blocks of :mod:`coldroom.report.layout` like every section.
 """
 
 from __future__ import annotations
@@ -19,7 +17,9 @@ from reportlab.pdfbase.pdfmetrics import stringWidth
 from reportlab.platypus import Flowable
 
 from coldroom import units as _units
+from coldroom.design import AMBIENT_SWEEP
 from coldroom.report.charts import INK, MUTED, PALETTE, RULE
+from coldroom.report.layout import TINY, figure_boxes, grid, heading, note, warning_box
 from coldroom.report.text import capacity, clean, temperature
 from coldroom.units import format_terms
 
@@ -211,23 +211,19 @@ def existing_unit_section(ctx: Any, index: int) -> list:
         return []
     from reportlab.platypus import KeepTogether, Spacer
 
-    from coldroom.report.sheet import TINY, _warning_box, figure_boxes, grid, heading, note
-
     s = ctx.system
     w = ctx.width
     hours = "–" if check.run_hours_needed is None else f"{check.run_hours_needed:.1f} h/day"
     if check.max_ambient_status == "found":
         max_ambient = temperature(check.max_ambient, s)
     elif check.max_ambient_status == "holds_above_range":
-        max_ambient = f"above {temperature(55.0, s)}"
+        max_ambient = f"above {temperature(AMBIENT_SWEEP[1], s)}"
     elif check.max_ambient_status == "fails_below_range":
-        max_ambient = f"none above {temperature(10.0, s)}"
+        max_ambient = f"none above {temperature(AMBIENT_SWEEP[0], s)}"
     else:
         max_ambient = "–"
     boxes = [
-        ("Verdict", "HOLDS" if check.holds else ("NOT RATED" if not check.within_envelope else "DOES NOT HOLD"),
-         "outside the compressor envelope" if not check.within_envelope
-         else ("no balance point" if check.margin_percent is None else f"margin {check.margin_percent:+.0f} %")),
+        ("Verdict", check.verdict_word, check.verdict_detail),
         ("Capacity at balance", "–" if check.capacity_at_balance is None else capacity(check.capacity_at_balance, s),
          f"required {capacity(check.required_capacity, s)}"),
         ("Run time needed", hours, f"of {check.run_hours_available:.1f} h/day allowed"),
@@ -287,5 +283,5 @@ def existing_unit_section(ctx: Any, index: int) -> list:
             Spacer(1, 6),
         ]
     if check.warnings:
-        out.append(KeepTogether([heading("Existing unit: warnings"), *_warning_box(ctx, check.warnings)]))
+        out.append(KeepTogether([heading("Existing unit: warnings"), *warning_box(ctx, check.warnings)]))
     return out

@@ -38,7 +38,7 @@ def pipework_flowables(ctx: Any, pipework: Any, system_name: str) -> list:
     """
     from reportlab.platypus import KeepTogether, Spacer
 
-    from coldroom.report.sheet import CELL_SMALL, TINY, _warning_box, grid, heading, note
+    from coldroom.report.layout import CELL_SMALL, TINY, grid, heading, note, warning_box
 
     system = ctx.system
     width = ctx.width
@@ -138,7 +138,7 @@ def pipework_flowables(ctx: Any, pipework: Any, system_name: str) -> list:
     flow.append(Spacer(1, 4))
     flow.append(KeepTogether(block))
     if pipework.warnings:
-        flow.extend(_warning_box(ctx, list(pipework.warnings)))
+        flow.extend(warning_box(ctx, list(pipework.warnings)))
     return flow
 
 

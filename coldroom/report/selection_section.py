@@ -19,9 +19,9 @@ def _money(value: float, currency: str) -> str:
 
 
 def _sheet():  # type: ignore[no-untyped-def]
-    from coldroom.report import sheet  # the shared helpers (sheet imports this module first)
+    from coldroom.report import layout  # the shared styles and building blocks
 
-    return sheet
+    return layout
 
 
 def selection_summary_section(ctx: Any) -> list:
@@ -54,7 +54,9 @@ def selected_equipment_section(ctx: Any) -> list:
     sh = _sheet()
     s_ = ctx.system
     w = ctx.width
-    out: list = [sh.CondPageBreak(220), sh.heading("Selected equipment", sh.H2)]
+    from reportlab.platypus import CondPageBreak
+
+    out: list = [CondPageBreak(220), sh.heading("Selected equipment", sh.H2)]
     out.append(sh.note(
         "Chosen from the contractor's catalogue: per room the cheapest unit coolers whose capacity at the room's TD "
         "covers its design capacity (throw shorter than the room: two coils; rooms below 0 °C: electric or hot-gas "
@@ -102,5 +104,5 @@ def selected_equipment_section(ctx: Any) -> list:
             facts.append([f"Coils, {k.room}", text])
         out.append(sh.grid(facts, [0.22 * w, 0.78 * w], header=False))
         if s.warnings:
-            out += sh._warning_box(ctx, list(s.warnings))
+            out += sh.warning_box(ctx, list(s.warnings))
     return out

@@ -11,8 +11,10 @@ Write ``def my_section(ctx: SheetContext, index: int) -> list`` returning
 reportlab flowables for room *index* (an empty list when it has nothing to
 show, e.g. ``ctx.result.rooms[index].check is None``), and insert it into
 :data:`ROOM_SECTIONS` where it belongs. Project-wide sections take only
-``ctx`` and go into :data:`PROJECT_SECTIONS`. Use :func:`heading`,
-:func:`grid` and :func:`note` so the section looks like the others.
+``ctx`` and go into :data:`PROJECT_SECTIONS`. Build it from the blocks of
+:mod:`coldroom.report.layout` (:func:`~coldroom.report.layout.heading`,
+:func:`~coldroom.report.layout.grid`, :func:`~coldroom.report.layout.note`,
+figure and warning boxes) so the section looks like the others.
 
 Determinism: the canvas runs with ``invariant=1`` and a fixed creation date
 (the sheet's date at 00:00 UTC), so the same input gives the same bytes.
@@ -22,10 +24,8 @@ from __future__ import annotations
 
 import io
 from dataclasses import dataclass, field
-from typing import Any, Callable, Optional, Sequence
+from typing import Any, Callable, Optional
 
-from reportlab.lib import colors
-from reportlab.lib.enums import TA_LEFT
 from reportlab.lib.pagesizes import A4, LETTER
 from reportlab.lib.styles import ParagraphStyle
 from reportlab.lib.units import mm
@@ -45,18 +45,28 @@ from reportlab.platypus import (
 
 from coldroom.report.charts import INK, MUTED, RULE, BarChart
 from coldroom.report.check_section import existing_unit_section
+from coldroom.report.layout import (
+    ACCENT,
+    CELL,
+    CELL_SMALL,
+    H1,
+    H2,
+    H3,
+    LABEL,
+    SMALL,
+    TINY,
+    figure_boxes,
+    grid,
+    heading,
+    note,
+    warning_box,
+)
 from coldroom.report.pipework_section import system_pipework_section
 from coldroom.report.selection_section import selected_equipment_section, selection_summary_section
 from coldroom.report.text import capacity, clean, esc, q, temperature
 from coldroom.report.timecharts import design_day_section, pulldown_section
 from coldroom.report.verdict_section import verdict_section
 from coldroom.units import format_terms
-
-ACCENT = colors.HexColor("#4F6D8A")
-BAND = colors.HexColor("#EEF2F5")
-SOFT = colors.HexColor("#F7F8FA")
-WARN = colors.HexColor("#9A5B2E")
-WARN_BG = colors.HexColor("#FBF4EC")
 
 COMPONENT_LABELS = {
     "transmission": "Transmission (walls, ceiling, floor)",
@@ -65,21 +75,6 @@ COMPONENT_LABELS = {
     "internal": "Internal (people, lights, trucks)",
     "equipment": "Equipment (fans, heaters, defrost)",
 }
-
-# --- styles ---------------------------------------------------------------------------------
-
-BODY = ParagraphStyle("body", fontName="Helvetica", fontSize=8.5, leading=11, textColor=INK, alignment=TA_LEFT)
-SMALL = ParagraphStyle("small", parent=BODY, fontSize=7.5, leading=9.5)
-TINY = ParagraphStyle("tiny", parent=BODY, fontSize=6.8, leading=8.4, textColor=MUTED)
-CELL = ParagraphStyle("cell", parent=BODY, fontSize=8, leading=10)
-CELL_SMALL = ParagraphStyle("cellsmall", parent=BODY, fontSize=7.2, leading=9)
-H1 = ParagraphStyle("h1", parent=BODY, fontName="Helvetica-Bold", fontSize=16, leading=20, textColor=INK)
-H2 = ParagraphStyle("h2", parent=BODY, fontName="Helvetica-Bold", fontSize=12.5, leading=16, textColor=ACCENT,
-                    spaceBefore=2, spaceAfter=4, keepWithNext=1)
-H3 = ParagraphStyle("h3", parent=BODY, fontName="Helvetica-Bold", fontSize=9.5, leading=12, textColor=INK,
-                    spaceBefore=8, spaceAfter=3, keepWithNext=1)
-FIGURE = ParagraphStyle("figure", parent=BODY, fontName="Helvetica-Bold", fontSize=12, leading=14, textColor=INK)
-LABEL = ParagraphStyle("label", parent=BODY, fontSize=7, leading=8.5, textColor=MUTED)
 
 
 @dataclass
@@ -110,88 +105,6 @@ class SheetContext:
         if self.model is None:
             return None
         return self.model.rooms[index]
-
-
-# --- building blocks -----------------------------------------------------------------------
-
-
-def heading(text: str, style: ParagraphStyle = H3) -> Paragraph:
-    """A section heading."""
-    return Paragraph(esc(text), style)
-
-
-def note(text: str, style: ParagraphStyle = SMALL) -> Paragraph:
-    """A paragraph of plain text (escaped)."""
-    return Paragraph(esc(text), style)
-
-
-def grid(
-    rows: Sequence[Sequence[Any]],
-    widths: Sequence[float],
-    header: bool = True,
-    align_right: Sequence[int] = (),
-    total_rows: Sequence[int] = (),
-    style: ParagraphStyle = CELL,
-) -> Table:
-    """A table in the sheet's style: header band, light rules, right-aligned number columns.
-
-    Plain strings are wrapped into paragraphs so long text breaks inside its cell.
-    """
-    right = ParagraphStyle("r", parent=style, alignment=2)
-    bold = ParagraphStyle("b", parent=style, fontName="Helvetica-Bold")
-    bold_right = ParagraphStyle("br", parent=right, fontName="Helvetica-Bold")
-    data = []
-    for r, row in enumerate(rows):
-        cells = []
-        for col, cell in enumerate(row):
-            if isinstance(cell, str):
-                strong = (header and r == 0) or r in total_rows
-                if col in align_right:
-                    st = bold_right if strong else right
-                else:
-                    st = bold if strong else style
-                cells.append(Paragraph(esc(cell), st))
-            else:
-                cells.append(cell)
-        data.append(cells)
-    table = Table(data, colWidths=list(widths), repeatRows=1 if header else 0, hAlign="LEFT")
-    commands = [
-        ("VALIGN", (0, 0), (-1, -1), "TOP"),
-        ("LEFTPADDING", (0, 0), (-1, -1), 4),
-        ("RIGHTPADDING", (0, 0), (-1, -1), 4),
-        ("TOPPADDING", (0, 0), (-1, -1), 2.2),
-        ("BOTTOMPADDING", (0, 0), (-1, -1), 2.2),
-        ("LINEBELOW", (0, 0), (-1, -1), 0.35, RULE),
-    ]
-    if header:
-        commands += [("BACKGROUND", (0, 0), (-1, 0), BAND), ("LINEBELOW", (0, 0), (-1, 0), 0.8, ACCENT)]
-    for r in total_rows:
-        commands += [("BACKGROUND", (0, r), (-1, r), SOFT), ("LINEABOVE", (0, r), (-1, r), 0.8, MUTED)]
-    table.setStyle(TableStyle(commands))
-    return table
-
-
-def figure_boxes(ctx: SheetContext, items: Sequence[tuple[str, str, str]]) -> Table:
-    """A band of key figures: (label, figure, subtext) per box."""
-    cells = [
-        [Paragraph(esc(label), LABEL), Paragraph(esc(figure), FIGURE), Paragraph(esc(sub), TINY)]
-        for label, figure, sub in items
-    ]
-    n = len(items)
-    table = Table([cells], colWidths=[ctx.width / n] * n, hAlign="LEFT")
-    table.setStyle(
-        TableStyle(
-            [
-                ("BACKGROUND", (0, 0), (-1, -1), BAND),
-                ("LINEBEFORE", (1, 0), (-1, -1), 2.5, colors.white),
-                ("VALIGN", (0, 0), (-1, -1), "TOP"),
-                ("LEFTPADDING", (0, 0), (-1, -1), 7),
-                ("TOPPADDING", (0, 0), (-1, -1), 5),
-                ("BOTTOMPADDING", (0, 0), (-1, -1), 6),
-            ]
-        )
-    )
-    return table
 
 
 def _room_cycle(ctx: SheetContext, index: int) -> Optional[dict]:
@@ -440,7 +353,7 @@ def system_cycles_section(ctx: SheetContext) -> list:
                                  "State 1 is the warmer coils' vapour (through their EPRs) mixed with the "
                                  "coldest coil's, then the suction-line superheat and drop.")
         if system.warnings:
-            out += [heading("Check these"), *_warning_box(ctx, system.warnings)]
+            out += [heading("Check these"), *warning_box(ctx, system.warnings)]
     return out
 
 
@@ -448,32 +361,7 @@ def project_warnings_section(ctx: SheetContext) -> list:
     """Warnings about the project file as a whole (implausible inputs)."""
     if not ctx.result.warnings:
         return []
-    return [heading("Check these inputs"), *_warning_box(ctx, ctx.result.warnings)]
-
-
-def _warning_box(ctx: SheetContext, messages: Sequence[str]) -> list:
-    style = ParagraphStyle("warn", parent=SMALL, textColor=WARN)
-    data = [
-        [
-            Paragraph("!", ParagraphStyle("bang", parent=style, fontName="Helvetica-Bold")),
-            Paragraph(esc(format_terms(m, ctx.system)), style),
-        ]
-        for m in messages
-    ]
-    table = Table(data, colWidths=[16, ctx.width - 16], hAlign="LEFT")
-    table.setStyle(
-        TableStyle(
-            [
-                ("BACKGROUND", (0, 0), (-1, -1), WARN_BG),
-                ("LEFTPADDING", (0, 0), (0, -1), 6),
-                ("RIGHTPADDING", (0, 0), (0, -1), 0),
-                ("VALIGN", (0, 0), (-1, -1), "TOP"),
-                ("TOPPADDING", (0, 0), (-1, -1), 2.5),
-                ("BOTTOMPADDING", (0, 0), (-1, -1), 2.5),
-            ]
-        )
-    )
-    return [table]
+    return [heading("Check these inputs"), *warning_box(ctx, ctx.result.warnings)]
 
 
 # --- room sections ------------------------------------------------------------------------------
@@ -523,7 +411,7 @@ def basis_section(ctx: SheetContext, index: int) -> list:
             current = group
             group_rows.append(len(rows))
             rows.append([group, ""])
-        rows.append([label, value])
+        rows.append([label, format_terms(value, ctx.system)])
     w = ctx.width
     label_style = ParagraphStyle("g", parent=CELL_SMALL, fontName="Helvetica-Bold", textColor=ACCENT)
     data = []
@@ -733,7 +621,7 @@ def room_warnings_section(ctx: SheetContext, index: int) -> list:
     messages = list(room.loads.warnings) + list(room.warnings)
     if not messages:
         return []
-    return [KeepTogether([heading("Warnings"), *_warning_box(ctx, messages)])]
+    return [KeepTogether([heading("Warnings"), *warning_box(ctx, messages)])]
 
 
 def safety_cautions(ctx: SheetContext, index: int) -> list[str]:

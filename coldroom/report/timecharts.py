@@ -212,7 +212,7 @@ def design_day_section(ctx: object, index: int) -> list:
     from reportlab.platypus import KeepTogether, Spacer
 
     from coldroom.designday import run_hours
-    from coldroom.report.sheet import heading, note
+    from coldroom.report.layout import heading, note
 
     room = ctx.result.rooms[index]  # type: ignore[attr-defined]
     day = room.loads.design_day
@@ -255,7 +255,7 @@ def pulldown_section(ctx: object, index: int) -> list:
 def _pulldown_block(ctx: object, title: str, p: object) -> list:
     from reportlab.platypus import KeepTogether, Spacer
 
-    from coldroom.report.sheet import heading, note
+    from coldroom.report.layout import heading, note
 
     from coldroom.pulldown import FINAL_TOLERANCE
     from coldroom.units import display

@@ -24,7 +24,7 @@ def verdict_section(ctx: Any) -> list:
     from reportlab.lib.styles import ParagraphStyle
     from reportlab.platypus import KeepTogether, Paragraph, Spacer
 
-    from coldroom.report.sheet import H3, SMALL, _warning_box, figure_boxes, heading, note
+    from coldroom.report.layout import H3, SMALL, figure_boxes, heading, note, warning_box
     from coldroom.report.text import esc
 
     s = ctx.system
@@ -65,7 +65,7 @@ def verdict_section(ctx: Any) -> list:
         remedies = [format_terms(r, s) for r in limits.remedies() if r is not limits.medium_at_low]
         block = []
         if limits.medium_at_low is not None:  # said first, before the margin
-            block += _warning_box(ctx, [limits.medium_at_low]) + [Spacer(1, 3)]
+            block += warning_box(ctx, [limits.medium_at_low]) + [Spacer(1, 3)]
         block += [line, Spacer(1, 3), boxes, Spacer(1, 3), note("The way forward: " + " ".join(remedies))]
         out += [KeepTogether(block), Spacer(1, 6)]
     return out

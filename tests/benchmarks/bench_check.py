@@ -32,17 +32,17 @@ def main() -> None:
     condenser = E.HeatExchanger.from_rating(7500.0, 15.0, "condenser")
 
     t1 = time.perf_counter()
-    bp, point = E._solve(compressor, evaporator, condenser, -18.0, 32.0)
+    bp, point = E.solve_balance(compressor, evaporator, condenser, -18.0, 32.0)
     cold = time.perf_counter() - t1
     t2 = time.perf_counter()
-    bp2, _ = E._solve(compressor, evaporator, condenser, -18.0, 34.0, guess=(bp.suction_dew, bp.discharge_dew))
+    bp2, _ = E.solve_balance(compressor, evaporator, condenser, -18.0, 34.0, guess=(bp.suction_dew, bp.discharge_dew))
     warm = time.perf_counter() - t2
 
-    from coldroom.projectfile import load_project
+    from coldroom.project import open_project
 
-    model = load_project(REPO / "project_files" / "cooler_to_freezer.yaml")
+    model = open_project(REPO / "project_files" / "cooler_to_freezer.yaml").model
     t3 = time.perf_counter()
-    E.check_project(model)
+    E.check_existing_units(model)
     full = time.perf_counter() - t3
 
     print(f"CoolProp import + R-448A setup (once per process): {setup:.2f} s")

@@ -7,7 +7,7 @@ R-448A tables are set up, so what is compared is the work each command does:
 * select: the unit coolers per room and the condensing unit from 200 models (the
   demo's units scaled in size and price, both refrigerants), including the
   highest-ambient search for the choice and its two alternatives;
-* check: `equipment.check_project` with the chosen unit written as the room's
+* check: `equipment.check_existing_units` with the chosen unit written as the room's
   ``existing_unit`` (balance, chart, highest-ambient search), as `coldroom check` runs it.
 
 Each side is timed as the best of three runs.
@@ -60,11 +60,12 @@ def best_of(n: int, work) -> float:  # type: ignore[no-untyped-def]
 
 
 def main() -> None:
-    from coldroom.equipment import check_project
-    from coldroom.projectfile import ExistingUnit, load_project
+    from coldroom.equipment import check_existing_units as check_project
+    from coldroom.project import open_project
+    from coldroom.projectfile import ExistingUnit
     from coldroom.selection import select_project
 
-    model = load_project(REPO / "project_files" / "cooler_to_freezer.yaml")
+    model = open_project(REPO / "project_files" / "cooler_to_freezer.yaml").model
     model = model.model_copy(update={"rooms": [model.rooms[0].model_copy(update={"existing_unit": None})]})
     catalogue = big_catalogue()
     (first,) = select_project(model, catalogue)  # warm-up: CoolProp, R-448A and R-290 tables

@@ -198,14 +198,14 @@ class _FullTerminal(io.StringIO):
 
 def test_size_with_stdout_full_writes_no_pdf(project: Path, monkeypatch: pytest.MonkeyPatch, capsys) -> None:
     """In-process, with the sizing and the sheet stubbed: what matters is the order (terminal text first)."""
-    import coldroom.cli
     import coldroom.report.sheet
     import coldroom.sizing
+    import coldroom.textreport
     from coldroom.cli import app
 
     monkeypatch.setattr(coldroom.sizing, "size_project", lambda *a: None)
     monkeypatch.setattr(coldroom.report.sheet, "render_sheet", lambda *a: b"%PDF-stub")
-    monkeypatch.setattr(coldroom.cli, "_size_summary", lambda *a: "the summary")
+    monkeypatch.setattr(coldroom.textreport, "size_summary", lambda *a: "the summary")
     monkeypatch.setattr(sys, "stdout", _FullTerminal())
     with pytest.raises(SystemExit) as stop:
         app(["size", str(project)])

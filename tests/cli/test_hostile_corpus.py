@@ -22,7 +22,7 @@ import pytest
 import yaml
 
 from coldroom.errors import ProjectFileError
-from coldroom.projectfile import load_project
+from coldroom.project import open_project
 
 CORPUS = Path(__file__).resolve().parents[1] / "data" / "hostile"
 EXPECTED: dict[str, dict] = yaml.safe_load((CORPUS / "expected.yaml").read_text(encoding="utf-8"))
@@ -79,7 +79,7 @@ def test_validate_reports_one_line_and_exit_65(name: str, tmp_path: Path) -> Non
 def test_in_process_parse_is_fast_and_raises_project_file_error(name: str) -> None:
     start = time.perf_counter()
     with pytest.raises(ProjectFileError) as info:
-        load_project(CORPUS / name)
+        open_project(CORPUS / name)
     elapsed = time.perf_counter() - start
     assert elapsed < IN_PROCESS_LIMIT, f"{name}: {elapsed:.3f} s"
     assert EXPECTED[name]["message"] in str(info.value)
@@ -117,7 +117,7 @@ def test_oversize_file_is_refused_fast(tmp_path: Path) -> None:
     assert big.stat().st_size > MAX_BYTES
     start = time.perf_counter()
     with pytest.raises(ProjectFileError, match="larger than the limit"):
-        load_project(big)
+        open_project(big)
     assert time.perf_counter() - start < IN_PROCESS_LIMIT
     result, elapsed = run("validate", str(big), cwd=tmp_path)
     assert result.returncode == 65

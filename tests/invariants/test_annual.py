@@ -12,7 +12,7 @@ from pathlib import Path
 import pytest
 
 from coldroom.annual import _Context, _lighting_energy_per_day, compare, option_year
-from coldroom.projectfile import load_project
+from coldroom.project import open_project
 from coldroom.sizing import size_project
 from coldroom.weather import AmbientBin
 
@@ -23,7 +23,7 @@ COMBO = REPO / "project_files" / "combo_cooler_freezer.yaml"
 
 @pytest.mark.parametrize("path", [FARM, COMBO], ids=lambda p: p.stem)
 def test_single_design_bin_is_365_design_days(path: Path) -> None:
-    model = load_project(path)
+    model = open_project(path).model
     bins = (AmbientBin(model.design.outdoor_temperature, 8760.0),)
     year = option_year(model, "base", "", _Context(), bins)
     sized = size_project(model, str(path), path.read_bytes())
@@ -37,7 +37,7 @@ def test_single_design_bin_is_365_design_days(path: Path) -> None:
 
 
 def test_warmer_year_costs_more_and_options_are_all_there() -> None:
-    model = load_project(FARM)
+    model = open_project(FARM).model
     result = compare(model)
     assert [o.name for o in result.options] == ["base", "R-290", "R-744", "150 mm cooler panels", "R-290 + 150 mm"]
     base = result.options[0]
@@ -53,13 +53,13 @@ def test_warmer_year_costs_more_and_options_are_all_there() -> None:
 
 def test_given_charge_wins_and_sets_the_direct_part(tmp_path: Path) -> None:
     from coldroom.annual import _Context, option_year
-    from coldroom.projectfile import parse_project_text
+    from coldroom.project import open_project_text
 
     text = FARM.read_text(encoding="utf-8") + (
         "  - name: weighed in\n    changes:\n      systems.CU-1.charge: 3 kg\n"
         "  - name: weighed in twice\n    changes:\n      systems.CU-1.charge: {total: 6 kg}\n"
     )
-    model = parse_project_text(text, filename=str(tmp_path / "p.yaml"))
+    model = open_project_text(text, filename=str(tmp_path / "p.yaml"))
     named = {name: m for name, _note, m in model._option_models}
     bins = (AmbientBin(20.0, 8760.0),)
     one = option_year(named["weighed in"], "one", "", _Context(), bins)

@@ -19,7 +19,7 @@ from hypothesis import strategies as st
 
 from coldroom.designday import room_design_day
 from coldroom.loads import product_peak, room_loads, internal_peak
-from coldroom.projectfile import parse_project_data
+from coldroom.project import open_project_data
 from coldroom.safeyaml import load_yaml
 from tests.conftest import PROJECT_FILES
 
@@ -28,7 +28,7 @@ DEMOS = sorted(PROJECT_FILES.glob("*.yaml"))
 
 
 def _model(data):
-    return parse_project_data(copy.deepcopy(data), "test")
+    return open_project_data(copy.deepcopy(data), "test")
 
 
 hours = st.integers(min_value=0, max_value=23)

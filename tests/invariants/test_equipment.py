@@ -99,7 +99,7 @@ def test_balance_point_satisfies_the_three_equations(compressor, room: float, am
     comp = compressor()
     evaporator = E.HeatExchanger.from_rating(4000.0, 8.0)
     condenser = E.HeatExchanger.from_rating(7500.0, 15.0)
-    bp, point = E._solve(comp, evaporator, condenser, room, ambient)
+    bp, point = E.solve_balance(comp, evaporator, condenser, room, ambient)
     assert point.capacity == pytest.approx(evaporator.conductance * (room - bp.suction_dew), rel=1e-5)
     assert point.heat_rejection == pytest.approx(condenser.conductance * (bp.discharge_dew - ambient), rel=1e-5)
     extra = point.heat_rejection - point.capacity - point.power

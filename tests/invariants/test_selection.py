@@ -12,7 +12,8 @@ from hypothesis import strategies as st
 
 from coldroom.catalogue import catalogue_rows, load_catalogue, parse_catalogue
 from coldroom.equipment import check_room
-from coldroom.projectfile import ExistingUnit, load_project
+from coldroom.project import open_project
+from coldroom.projectfile import ExistingUnit
 from coldroom.safeyaml import load_yaml
 from coldroom.selection import choose_condensing_unit, select_project
 
@@ -46,13 +47,13 @@ def test_yaml_csv_xlsx_give_the_same_selection(tmp_path: Path) -> None:
     # the shipped table versions are the same list too
     assert load_catalogue(REPO / "project_files" / "catalogue" / "demo_catalogue.csv") == CATALOGUE
     assert load_catalogue(REPO / "project_files" / "catalogue" / "demo_catalogue.xlsx") == CATALOGUE
-    model = load_project(REPO / "project_files" / "combo_cooler_freezer.yaml")
+    model = open_project(REPO / "project_files" / "combo_cooler_freezer.yaml").model
     expected = _summary(select_project(model, CATALOGUE, max_ambient=False))
     assert _summary(select_project(model, from_csv, max_ambient=False)) == expected
     assert _summary(select_project(model, from_xlsx, max_ambient=False)) == expected
 
 
-_FREEZER = load_project(REPO / "project_files" / "cooler_to_freezer.yaml")
+_FREEZER = open_project(REPO / "project_files" / "cooler_to_freezer.yaml").model
 
 
 def _duty():  # type: ignore[no-untyped-def]
@@ -89,7 +90,7 @@ def test_a_larger_load_never_selects_a_smaller_unit(scale: float, step: float) -
 def test_the_quoted_unit_rechecks_to_the_same_balance() -> None:
     """The `existing_unit` block, written into the room, gives `coldroom check` the same balance and a hold."""
     for name in ("cooler_to_freezer", "produce_cooler", "propane_cooler", "meat_cooler_ip"):
-        model = load_project(REPO / "project_files" / f"{name}.yaml")
+        model = open_project(REPO / "project_files" / f"{name}.yaml").model
         (selection,) = select_project(model, CATALOGUE, max_ambient=False)
         block = selection.existing_unit
         unit = ExistingUnit.model_validate(block, context={"system": model.project.units})

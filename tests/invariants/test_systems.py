@@ -19,7 +19,7 @@ from hypothesis import given, settings
 from hypothesis import strategies as st
 
 from coldroom.cycle import solve_cycle, solve_system_cycle
-from coldroom.projectfile import load_project, parse_project_data
+from coldroom.project import open_project, open_project_data
 from coldroom.sizing import size_project, size_system
 
 REPO = Path(__file__).resolve().parents[2]
@@ -81,7 +81,7 @@ def _assert_adds_up(system, rooms) -> None:
 
 
 def test_combo_demo_system_is_the_sum_of_its_rooms() -> None:
-    model = load_project(COMBO)
+    model = open_project(COMBO).model
     result = size_project(model, str(COMBO), COMBO.read_bytes())
     assert [s.name for s in result.systems] == ["CU-1"]
     system = result.systems[0]
@@ -102,7 +102,7 @@ def test_combo_demo_system_is_the_sum_of_its_rooms() -> None:
     refrigerant=st.sampled_from(["R448A", "R134a", "R290"]),
 )
 def test_random_combos_add_up(temperatures, lengths, diversity, refrigerant) -> None:
-    model = parse_project_data(_combo(temperatures, lengths[: len(temperatures)], diversity, refrigerant))
+    model = open_project_data(_combo(temperatures, lengths[: len(temperatures)], diversity, refrigerant))
     name, entry, indices = model.system_groups()[0]
     system, rooms = size_system(model, name, indices, entry.diversity)
     _assert_adds_up(system, rooms)
@@ -136,7 +136,7 @@ def test_the_mixture_lies_between_the_coil_outlets() -> None:
 
 
 def test_every_project_has_systems_and_each_room_names_its_own() -> None:
-    model = load_project(PRODUCE)
+    model = open_project(PRODUCE).model
     data = size_project(model, str(PRODUCE), PRODUCE.read_bytes()).to_json()
     assert [s["name"] for s in data["systems"]] == [r["name"] for r in data["rooms"]]
     for system, room in zip(data["systems"], data["rooms"]):
@@ -149,10 +149,10 @@ def test_every_project_has_systems_and_each_room_names_its_own() -> None:
 
 def test_diversity_scales_the_compressor_not_the_coils() -> None:
     data = _combo([2.0, -20.0], [4.0, 3.0], 1.0, "R448A")
-    full = parse_project_data(data)
+    full = open_project_data(data)
     data = copy.deepcopy(data)
     data["systems"][0]["diversity"] = "80 %"
-    part = parse_project_data(data)
+    part = open_project_data(data)
     a, _ = size_system(full, "S1", (0, 1), 1.0)
     b, _ = size_system(part, "S1", (0, 1), 0.8)
     assert b.design_capacity == pytest.approx(0.8 * a.design_capacity, rel=1e-12)

@@ -20,7 +20,7 @@ import pytest
 
 from coldroom.equipment import check_room
 from coldroom.loads import room_loads
-from coldroom.projectfile import parse_project_data
+from coldroom.project import open_project_data
 from coldroom.safeyaml import load_yaml
 from coldroom.unitlimits import unit_limits
 from tests.conftest import PROJECT_FILES
@@ -29,7 +29,7 @@ DEMO = load_yaml((PROJECT_FILES / "cooler_to_freezer.yaml").read_bytes(), "demo"
 
 
 def _model(data):
-    return parse_project_data(copy.deepcopy(data), "test")
+    return open_project_data(copy.deepcopy(data), "test")
 
 
 def _check(data):

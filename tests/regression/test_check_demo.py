@@ -32,10 +32,10 @@ PINS = {
 
 @pytest.fixture(scope="module")
 def check():  # type: ignore[no-untyped-def]
-    from coldroom.equipment import check_project
-    from coldroom.projectfile import load_project
+    from coldroom.equipment import check_existing_units
+    from coldroom.project import open_project
 
-    ((loads, result),) = check_project(load_project(DEMO))
+    ((loads, result),) = check_existing_units(open_project(DEMO).model)
     return result
 
 
@@ -67,12 +67,12 @@ def test_size_carries_the_check_into_json_and_sheet() -> None:
     """`size` runs the same check (one call, coldroom.equipment.check_room) and prints its section."""
     import io
 
-    from coldroom.projectfile import load_project
+    from coldroom.project import open_project
     from coldroom.report.sheet import render_sheet
     from coldroom.sizing import size_project
 
     pypdf = pytest.importorskip("pypdf")
-    model = load_project(DEMO)
+    model = open_project(DEMO).model
     result = size_project(model, str(DEMO), DEMO.read_bytes())
     unit = result.to_json()["rooms"][0]["existing_unit"]
     assert unit["capacity_at_balance_w"] == pytest.approx(PINS["capacity_at_balance_w"], rel=1e-4)

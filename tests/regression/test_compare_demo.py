@@ -23,9 +23,9 @@ KEYS = ("design_capacity_w", "compressor_input_power_w", "annual_energy_kwh", "a
 
 def compute() -> dict:
     from coldroom.annual import compare
-    from coldroom.projectfile import load_project
+    from coldroom.project import open_project
 
-    result = compare(load_project(DEMO)).to_json()
+    result = compare(open_project(DEMO).model).to_json()
     return {
         o["name"]: {**{k: o[k] for k in KEYS}, "by_use": o["annual_energy_by_use_kwh"], "tewi": o["tewi_kg_co2e"]}
         for o in result["options"]

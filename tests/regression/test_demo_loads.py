@@ -23,9 +23,9 @@ DEMOS = sorted((REPO / "project_files").glob("*.yaml"))
 
 def compute(path: Path) -> list[dict[str, object]]:
     from coldroom.loads import project_loads
-    from coldroom.projectfile import load_project
+    from coldroom.project import open_project
 
-    model = load_project(path)
+    model = open_project(path).model
     out = []
     for room in project_loads(model):
         out.append(

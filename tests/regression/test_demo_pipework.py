@@ -21,11 +21,11 @@ DEMOS = sorted(p for p in (REPO / "project_files").glob("*.yaml") if "piping:" i
 
 
 def compute(path: Path) -> list[dict[str, object]]:
-    from coldroom.projectfile import load_project
+    from coldroom.project import open_project
     from coldroom.sizing import size_project
 
     out = []
-    for system in size_project(load_project(path), str(path), path.read_bytes()).systems:
+    for system in size_project(open_project(path).model, str(path), path.read_bytes()).systems:
         data = system.to_json()
         out.append(
             {

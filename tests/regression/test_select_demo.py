@@ -9,7 +9,7 @@ import pytest
 from coldroom.catalogue import load_catalogue
 from coldroom.data import refrigerants
 from coldroom.equipment import RATING_SUCTION_GAP, build_compressor
-from coldroom.projectfile import load_project
+from coldroom.project import open_project
 from coldroom.selection import _condenser, _rate, select_project
 
 REPO = Path(__file__).resolve().parents[2]
@@ -31,7 +31,7 @@ def holds_by_brute_force(entry, duty, refrigeration) -> bool:  # type: ignore[no
 
 @pytest.mark.parametrize("name", ["produce_cooler", "combo_cooler_freezer", "propane_cooler"])
 def test_choice_is_the_cheapest_that_holds(name: str, monkeypatch: pytest.MonkeyPatch) -> None:
-    model = load_project(REPO / "project_files" / f"{name}.yaml")
+    model = open_project(REPO / "project_files" / f"{name}.yaml").model
     import coldroom.selection as selection
 
     duties = []
@@ -58,7 +58,7 @@ def test_demo_choices_pinned() -> None:
     """The demo answers a contractor sees (change on purpose with the catalogue)."""
     got = {}
     for name in ("produce_cooler", "combo_cooler_freezer", "cooler_to_freezer"):
-        for s in select_project(load_project(REPO / "project_files" / f"{name}.yaml"), CATALOGUE, max_ambient=False):
+        for s in select_project(open_project(REPO / "project_files" / f"{name}.yaml").model, CATALOGUE, max_ambient=False):
             got[name] = (s.choice.model, tuple((c.model, c.count) for c in s.coolers), s.total_price)
     assert got == {
         "produce_cooler": ("DX-M18", (("UC-C50", 1),), 2680.0),

@@ -30,11 +30,11 @@ DEMOS = sorted(p for p in (REPO / "project_files").glob("*.yaml") if p.stem in {
 
 
 def _size(path: Path):
-    from coldroom.projectfile import load_project
+    from coldroom.project import open_project
     from coldroom.report.sheet import render_sheet
     from coldroom.sizing import size_project
 
-    model = load_project(path)
+    model = open_project(path).model
     result = size_project(model, str(path), path.read_bytes())
     return model, result, render_sheet(result, model)
 
@@ -177,10 +177,10 @@ def test_date_from_source_date_epoch(tmp_path, monkeypatch):
     ],
 )
 def test_design_temperatures_follow_the_td_table(stem, evaporating, condensing):
-    from coldroom.projectfile import load_project
-    from coldroom.sizing import design_temperatures
+    from coldroom.project import open_project
+    from coldroom.design import design_temperatures
 
-    model = load_project(REPO / "project_files" / f"{stem}.yaml")
+    model = open_project(REPO / "project_files" / f"{stem}.yaml").model
     room = model.rooms[0]
     r = room.refrigeration
     t = design_temperatures(
@@ -197,7 +197,7 @@ def test_design_temperatures_follow_the_td_table(stem, evaporating, condensing):
 )
 def test_td_inside_the_trade_band(rh, td):
     """The chosen TD lies inside the trade band for the RH [trade]."""
-    from coldroom.sizing import evaporator_td_for
+    from coldroom.design import evaporator_td_for
 
     bands = [(0.875, 1.01, 4.0, 5.0), (0.80, 0.875, 5.5, 6.5), (0.65, 0.80, 6.5, 9.0), (0.50, 0.65, 9.0, 12.0),
              (0.0, 0.50, 9.0, 12.0)]
@@ -209,7 +209,7 @@ def test_td_inside_the_trade_band(rh, td):
 
 
 def test_freezer_td_is_the_freezer_band():
-    from coldroom.sizing import evaporator_td_for
+    from coldroom.design import evaporator_td_for
 
     td, _source = evaporator_td_for(-25.0, 0.9)
     assert 5.0 <= td <= 6.0  # freezers ≈ 5–6 K [trade]

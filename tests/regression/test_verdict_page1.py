@@ -21,11 +21,11 @@ DEMO = REPO / "project_files" / "cooler_to_freezer.yaml"
 def sheet():
     import pypdf
 
-    from coldroom.projectfile import load_project
+    from coldroom.project import open_project
     from coldroom.report.sheet import render_sheet
     from coldroom.sizing import size_project
 
-    model = load_project(DEMO)
+    model = open_project(DEMO).model
     result = size_project(model, str(DEMO), DEMO.read_bytes())
     pdf = render_sheet(result, model)
     pages = [re.sub(r"\s+", " ", p.extract_text() or "") for p in pypdf.PdfReader(io.BytesIO(pdf)).pages]

@@ -25,7 +25,7 @@ from coldroom.cycle import liao_optimum_pressure, solve_cycle
 from coldroom.errors import CalculationError, LookupNameError
 from coldroom.refrigerant import get_fluid
 
-IDEAL = dict(superheat=0.0, subcooling=0.0, isentropic_efficiency=1.0)
+IDEAL = dict(superheat=0.0, suction_line_superheat=0.0, subcooling=0.0, isentropic_efficiency=1.0)
 
 
 # ------------------------------------------------ the four facts of the ideal cycle
@@ -96,7 +96,7 @@ def test_cengel_boles_7th_example_11_2_actual_r134a():
     tc = fluid.dew_temperature(0.8e6)
     r = solve_cycle(
         "R-134a", te, tc, 0.05 * (inlet.h - liquid.h),
-        superheat=-10.0 - te, subcooling=tc - 26.0, isentropic_efficiency=eta,
+        superheat=-10.0 - te, subcooling=tc - 26.0, isentropic_efficiency=eta, suction_line_superheat=0.0,
     )
     assert r.mass_flow == pytest.approx(0.05, rel=1e-3)
     assert r.compressor_power == pytest.approx(2.02e3, rel=0.01)
@@ -162,13 +162,13 @@ def test_r744_optimum_pressure_near_liao_correlation():
     # correlate that optimum as (2.778 − 0.0157 t_e) t_gc + 0.381 t_e − 9.34 bar
     # (from memory). Agreement within 3 % over their fitted range.
     for te, tgc in [(-10.0, 35.0), (0.0, 40.0), (-5.0, 45.0)]:
-        r = solve_cycle("R-744", te, None, 5000.0, gas_cooler_outlet_temperature=tgc)
+        r = solve_cycle("R-744", te, None, 5000.0, gas_cooler_outlet_temperature=tgc, suction_line_superheat=0.0)
         assert r.transcritical and r.condensing_temperature is None
         assert r.discharge_pressure == pytest.approx(liao_optimum_pressure(te, tgc), rel=0.03)
         # the optimum beats nearby pressures
         for dp in (-5e5, 5e5):
             other = solve_cycle("R-744", te, None, 5000.0, gas_cooler_outlet_temperature=tgc,
-                                high_side_pressure=r.discharge_pressure + dp)
+                                high_side_pressure=r.discharge_pressure + dp, suction_line_superheat=0.0)
             assert other.cop <= r.cop + 1e-9
 
 
@@ -220,7 +220,7 @@ def test_json_has_contract_keys_and_state_order():
 def test_blend_pressures_from_dew_points_and_glide_reported():
     # Blends [trade]: pressures from dew points; superheat from dew, subcooling from bubble.
     fluid = get_fluid("R-448A")
-    r = solve_cycle("R-448A", -10.0, 40.0, 5000.0, superheat=5.0, subcooling=2.0)
+    r = solve_cycle("R-448A", -10.0, 40.0, 5000.0, superheat=5.0, subcooling=2.0, suction_line_superheat=0.0)
     assert r.evaporating_pressure == pytest.approx(fluid.dew_pressure(-10.0), rel=1e-12)
     assert r.discharge_pressure == pytest.approx(fluid.dew_pressure(40.0), rel=1e-12)
     assert r.states[0].t == pytest.approx(-5.0, abs=1e-9)

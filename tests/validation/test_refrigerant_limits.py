@@ -1,6 +1,6 @@
-"""The refrigerant temperature limits used by `coldroom validate` (coldroom.checks.REFRIGERANT_LIMITS).
+"""The refrigerant temperature limits used by `coldroom validate` (coldroom.data.refrigerants.LIMITS).
 
-checks.py keeps plain numbers so that validation never imports CoolProp; here
+the catalogue keeps plain numbers so that validation never imports CoolProp; here
 they are compared with CoolProp 8.0 itself (the reference library, which
 implements the NIST REFPROP-grade equations of state): the triple point /
 model lower limit (``Ttriple``) and the critical temperature (``Tcrit``; for the
@@ -15,7 +15,7 @@ from __future__ import annotations
 
 import pytest
 
-from coldroom.checks import REFRIGERANT_LIMITS
+from coldroom.data.refrigerants import LIMITS as REFRIGERANT_LIMITS
 from coldroom.data.refrigerants import CATALOGUE
 
 CP = pytest.importorskip("CoolProp.CoolProp")

@@ -117,7 +117,8 @@ def test_u_value_construction_counts_its_given_thickness() -> None:
 
 def test_outside_dimensions_smaller_than_the_walls_are_refused() -> None:
     from coldroom.errors import ProjectFileError
+    from coldroom.project import open_project_data
 
     bad = copy.deepcopy(_project({"length": 0.15, "width": 3, "height": 2.6, "measured": "outside"}))
     with pytest.raises(ProjectFileError, match="dimensions: inside volume"):
-        parse_project_data(bad)
+        open_project_data(bad)

@@ -1,0 +1,151 @@
+"""The sheet's look: colours, paragraph styles and building blocks (headings, grids, boxes).
+
+Every section of the sheet (:mod:`coldroom.report.sheet`,
+:mod:`coldroom.report.check_section`, and any new one) builds its flowables
+from these, so all sections look alike and no section module imports another.
+A block that needs the page takes ``ctx`` (a
+:class:`coldroom.report.sheet.SheetContext`: ``ctx.width`` [pt], ``ctx.system``).
+"""
+
+from __future__ import annotations
+
+from typing import Any, Sequence
+
+from reportlab.lib import colors
+from reportlab.lib.enums import TA_LEFT
+from reportlab.lib.styles import ParagraphStyle
+from reportlab.platypus import Paragraph, Table, TableStyle
+
+from coldroom.report.charts import INK, MUTED, RULE
+from coldroom.report.text import esc
+from coldroom.units import format_terms
+
+ACCENT = colors.HexColor("#4F6D8A")
+BAND = colors.HexColor("#EEF2F5")
+SOFT = colors.HexColor("#F7F8FA")
+WARN = colors.HexColor("#9A5B2E")
+WARN_BG = colors.HexColor("#FBF4EC")
+
+# --- styles ---------------------------------------------------------------------------------
+
+BODY = ParagraphStyle("body", fontName="Helvetica", fontSize=8.5, leading=11, textColor=INK, alignment=TA_LEFT)
+SMALL = ParagraphStyle("small", parent=BODY, fontSize=7.5, leading=9.5)
+TINY = ParagraphStyle("tiny", parent=BODY, fontSize=6.8, leading=8.4, textColor=MUTED)
+CELL = ParagraphStyle("cell", parent=BODY, fontSize=8, leading=10)
+CELL_SMALL = ParagraphStyle("cellsmall", parent=BODY, fontSize=7.2, leading=9)
+H1 = ParagraphStyle("h1", parent=BODY, fontName="Helvetica-Bold", fontSize=16, leading=20, textColor=INK)
+H2 = ParagraphStyle("h2", parent=BODY, fontName="Helvetica-Bold", fontSize=12.5, leading=16, textColor=ACCENT,
+                    spaceBefore=2, spaceAfter=4, keepWithNext=1)
+H3 = ParagraphStyle("h3", parent=BODY, fontName="Helvetica-Bold", fontSize=9.5, leading=12, textColor=INK,
+                    spaceBefore=8, spaceAfter=3, keepWithNext=1)
+FIGURE = ParagraphStyle("figure", parent=BODY, fontName="Helvetica-Bold", fontSize=12, leading=14, textColor=INK)
+LABEL = ParagraphStyle("label", parent=BODY, fontSize=7, leading=8.5, textColor=MUTED)
+
+
+# --- building blocks -----------------------------------------------------------------------
+
+
+def heading(text: str, style: ParagraphStyle = H3) -> Paragraph:
+    """A section heading."""
+    return Paragraph(esc(text), style)
+
+
+def note(text: str, style: ParagraphStyle = SMALL) -> Paragraph:
+    """A paragraph of plain text (escaped)."""
+    return Paragraph(esc(text), style)
+
+
+def grid(
+    rows: Sequence[Sequence[Any]],
+    widths: Sequence[float],
+    header: bool = True,
+    align_right: Sequence[int] = (),
+    total_rows: Sequence[int] = (),
+    style: ParagraphStyle = CELL,
+) -> Table:
+    """A table in the sheet's style: header band, light rules, right-aligned number columns.
+
+    Plain strings are wrapped into paragraphs so long text breaks inside its cell.
+    """
+    right = ParagraphStyle("r", parent=style, alignment=2)
+    bold = ParagraphStyle("b", parent=style, fontName="Helvetica-Bold")
+    bold_right = ParagraphStyle("br", parent=right, fontName="Helvetica-Bold")
+    data = []
+    for r, row in enumerate(rows):
+        cells = []
+        for col, cell in enumerate(row):
+            if isinstance(cell, str):
+                strong = (header and r == 0) or r in total_rows
+                if col in align_right:
+                    st = bold_right if strong else right
+                else:
+                    st = bold if strong else style
+                cells.append(Paragraph(esc(cell), st))
+            else:
+                cells.append(cell)
+        data.append(cells)
+    table = Table(data, colWidths=list(widths), repeatRows=1 if header else 0, hAlign="LEFT")
+    commands = [
+        ("VALIGN", (0, 0), (-1, -1), "TOP"),
+        ("LEFTPADDING", (0, 0), (-1, -1), 4),
+        ("RIGHTPADDING", (0, 0), (-1, -1), 4),
+        ("TOPPADDING", (0, 0), (-1, -1), 2.2),
+        ("BOTTOMPADDING", (0, 0), (-1, -1), 2.2),
+        ("LINEBELOW", (0, 0), (-1, -1), 0.35, RULE),
+    ]
+    if header:
+        commands += [("BACKGROUND", (0, 0), (-1, 0), BAND), ("LINEBELOW", (0, 0), (-1, 0), 0.8, ACCENT)]
+    for r in total_rows:
+        commands += [("BACKGROUND", (0, r), (-1, r), SOFT), ("LINEABOVE", (0, r), (-1, r), 0.8, MUTED)]
+    table.setStyle(TableStyle(commands))
+    return table
+
+
+def figure_boxes(ctx: Any, items: Sequence[tuple[str, str, str]]) -> Table:
+    """A band of key figures: (label, figure, subtext) per box."""
+    cells = [
+        [Paragraph(esc(label), LABEL), Paragraph(esc(figure), FIGURE), Paragraph(esc(sub), TINY)]
+        for label, figure, sub in items
+    ]
+    n = len(items)
+    table = Table([cells], colWidths=[ctx.width / n] * n, hAlign="LEFT")
+    table.setStyle(
+        TableStyle(
+            [
+                ("BACKGROUND", (0, 0), (-1, -1), BAND),
+                ("LINEBEFORE", (1, 0), (-1, -1), 2.5, colors.white),
+                ("VALIGN", (0, 0), (-1, -1), "TOP"),
+                ("LEFTPADDING", (0, 0), (-1, -1), 7),
+                ("TOPPADDING", (0, 0), (-1, -1), 5),
+                ("BOTTOMPADDING", (0, 0), (-1, -1), 6),
+            ]
+        )
+    )
+    return table
+
+
+
+def warning_box(ctx: Any, messages: Sequence[str]) -> list:
+    """The warnings in a tinted box, one row each, shown in the sheet's unit system (``ctx.system``)."""
+    style = ParagraphStyle("warn", parent=SMALL, textColor=WARN)
+    data = [
+        [
+            Paragraph("!", ParagraphStyle("bang", parent=style, fontName="Helvetica-Bold")),
+            Paragraph(esc(format_terms(m, ctx.system)), style),
+        ]
+        for m in messages
+    ]
+    table = Table(data, colWidths=[16, ctx.width - 16], hAlign="LEFT")
+    table.setStyle(
+        TableStyle(
+            [
+                ("BACKGROUND", (0, 0), (-1, -1), WARN_BG),
+                ("LEFTPADDING", (0, 0), (0, -1), 6),
+                ("RIGHTPADDING", (0, 0), (0, -1), 0),
+                ("VALIGN", (0, 0), (-1, -1), "TOP"),
+                ("TOPPADDING", (0, 0), (-1, -1), 2.5),
+                ("BOTTOMPADDING", (0, 0), (-1, -1), 2.5),
+            ]
+        )
+    )
+    return [table]

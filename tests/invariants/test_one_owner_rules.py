@@ -1,0 +1,145 @@
+"""Rules with one owner give one answer wherever they are applied.
+
+Each test takes two routes that used to hold their own copy of a rule
+(validate and size and the cycle; ``coldroom cycle`` and a project's
+refrigeration block; the cycle's and the existing unit's pressure-ratio flag)
+and checks that they now agree.
+"""
+
+from __future__ import annotations
+
+import json
+from importlib.resources import files
+
+import pytest
+
+from coldroom import design
+from coldroom.data import refrigerants
+from coldroom.errors import CalculationError
+
+STARTER = files("coldroom.data").joinpath("starter.yaml").read_text(encoding="utf-8")
+
+
+def _project(refrigerant: str, condenser_air: float, condenser_td: float = 10.0) -> str:
+    return STARTER.replace(
+        "      refrigerant: R-448A      # `coldroom refrigerants` lists the catalogue\n",
+        f"      refrigerant: {refrigerant}\n"
+        f"      condenser_air_temperature: {condenser_air!r} °C\n"
+        f"      condenser_td: {condenser_td!r} K\n",
+    )
+
+
+# --- (a) the R-744 transcritical boundary ------------------------------------------------------
+
+
+@pytest.mark.parametrize("side", [-1, 1], ids=["below", "above"])
+def test_validate_size_and_cycle_agree_on_the_r744_boundary(side: int) -> None:
+    """One rule (coldroom.cycle.r744_transcritical): validate accepts, size sizes on the same side."""
+    from coldroom.cycle import R744_SUBCRITICAL_MARGIN, r744_transcritical, solve_cycle
+    from coldroom.project import open_project_text
+    from coldroom.sizing import size_room
+
+    critical = refrigerants.limits("R-744")[1]
+    condensing = critical - R744_SUBCRITICAL_MARGIN + side * 0.05
+    model = open_project_text(_project("R-744", condensing - 10.0), "co2.yaml")  # validate accepts both sides
+    temps = design.room_design_temperatures(model, model.rooms[0])
+    assert temps.condensing_temperature == pytest.approx(condensing)
+    above = side > 0
+    assert r744_transcritical(condensing) is above
+    result = size_room(model, model.rooms[0])
+    assert result.cycle.transcritical is above
+    if above:
+        with pytest.raises(CalculationError, match="transcritical"):
+            solve_cycle("R-744", temps.evaporating_temperature, condensing, 5000.0)
+
+
+# --- (b) the pressure-ratio advisory ------------------------------------------------------------
+
+
+def test_pressure_ratio_table_has_a_limit_and_a_trade_tag_for_every_application_and_kind() -> None:
+    for application in ("medium", "low"):
+        for kind in ("reciprocating", "scroll"):
+            limit, source = design.PRESSURE_RATIO_LIMITS[(application, kind)]
+            assert 5.0 < limit < 20.0 and "[trade]" in source
+    # a low-temperature compressor is allowed more lift than a medium-temperature one
+    assert design.pressure_ratio_limit(-30.0) > design.pressure_ratio_limit(-10.0)
+
+
+def test_ordinary_low_temperature_r448a_unit_gets_no_two_stage_advisory() -> None:
+    """A −20 °C freezer: evaporating −25.5 °C (TD 5.5 K), condensing 42 °C: ratio ≈ 9."""
+    from coldroom.cycle import solve_cycle
+
+    r = solve_cycle("R-448A", -25.5, 42.0, 5000.0)
+    assert 8.4 <= r.pressure_ratio <= 9.2
+    assert not any("pressure ratio" in w for w in r.warnings)
+    # the same rule flags the same ratio on a medium-temperature suction
+    assert design.pressure_ratio_advisory(r.pressure_ratio, -10.0) is not None
+    # and a low-temperature lift past the limit
+    deep = solve_cycle("R-448A", -40.0, 45.0, 5000.0)
+    assert deep.pressure_ratio > design.pressure_ratio_limit(-40.0)
+    assert any("pressure ratio" in w and "two stages" in w for w in deep.warnings)
+
+
+def test_existing_unit_check_flags_pressure_ratio_by_the_same_table() -> None:
+    from coldroom import equipment as E
+
+    compressor = E.RatedPointCompressor.from_rating("R-448A", 4000.0, -35.0, 40.0)
+    common = dict(room_temperature=-20.0, daily_energy=4000.0 * 16 * 3600 / 1.1, safety_factor=0.1,
+                  run_time=16 * 3600.0, chart_ambients=(), search_max_ambient=False)
+    evaporator = E.HeatExchanger.fixed(5.5, ("fixed",))
+    condenser = E.HeatExchanger.fixed(10.0, ("fixed",))
+    result = E.check_unit(compressor, evaporator, condenser, ambient_temperature=32.0, **common)
+    expected = design.pressure_ratio_advisory(result.pressure_ratio, result.balance_evaporating)
+    flagged = [w for w in result.warnings if "pressure ratio" in w]
+    assert flagged == ([] if expected is None else [expected])
+
+
+# --- (c) the ambient sweep ----------------------------------------------------------------------
+
+
+def test_chart_ambients_lie_inside_the_sweep() -> None:
+    from coldroom.equipment import CHART_AMBIENTS
+
+    low, high = design.AMBIENT_SWEEP
+    assert low < min(CHART_AMBIENTS) and max(CHART_AMBIENTS) < high
+
+
+# --- (d) one table of cycle defaults ------------------------------------------------------------
+
+
+def test_project_block_and_solve_cycle_defaults_are_the_table() -> None:
+    import inspect
+
+    from coldroom.cycle import solve_cycle
+    from coldroom.projectfile import Refrigeration
+
+    block = Refrigeration()
+    parameters = inspect.signature(solve_cycle).parameters
+    for name in ("superheat", "suction_line_superheat", "subcooling", "isentropic_efficiency", "clearance"):
+        assert getattr(block, name) == getattr(design.CYCLE_DEFAULTS, name), name
+        assert parameters[name].default == getattr(design.CYCLE_DEFAULTS, name), name
+
+
+def test_cycle_command_with_defaults_matches_the_project_sizing_for_the_same_duty() -> None:
+    """The route a contractor takes by hand (`coldroom cycle`) and the project's own sizing agree."""
+    from typer.testing import CliRunner
+
+    from coldroom.cli import app
+    from coldroom.project import open_project_text
+    from coldroom.sizing import size_room
+
+    model = open_project_text(STARTER, "starter.yaml")
+    sized = size_room(model, model.rooms[0])
+    out = CliRunner().invoke(app, [
+        "cycle", "-r", "R-448A",
+        "--evaporating", repr(sized.evaporating_temperature),
+        "--condensing", repr(sized.condensing_temperature),
+        "--capacity", f"{sized.loads.design_capacity!r} W",
+        "--json",
+    ])
+    assert out.exit_code == 0, out.output
+    by_hand = json.loads(out.stdout)
+    project = sized.cycle.to_json()
+    for key in ("mass_flow_kg_s", "displacement_m3_h", "compressor_power_w", "condenser_duty_w", "cop",
+                "discharge_temperature_c", "suction_line_superheat_k", "isentropic_efficiency"):
+        assert by_hand[key] == pytest.approx(project[key], rel=1e-12), key
