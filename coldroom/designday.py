@@ -389,7 +389,7 @@ def room_design_day(model: "ProjectModel", room: "Room") -> DesignDay:
         line = take()
         add(line.component, spread(line.daily_energy, even()))
     d = room.defrost
-    if d.type != "off_cycle" and d.heater_power > 0 and d.per_day > 0 and d.duration > 0:
+    if d.type != "off_cycle" and d.heater_power > 0 and d.per_day > 0:
         line = take()
         if schedule is not None and schedule.defrost is not None:
             starts = list(schedule.defrost)
