@@ -32,11 +32,11 @@ from coldroom.report.sheet import (
     people_cautions,
     refrigerant_cautions,
 )
-from coldroom.report.text import clean
+from coldroom.report.text import clean, temperature
 from coldroom.textreport import charge_notes, compare_rows
 
 
-def _basis_rows(comparison: Any) -> list[list[str]]:
+def _basis_rows(comparison: Any, system: str = "SI") -> list[list[str]]:
     base = comparison.options[0]
     econ = base.economics
     marked = set(econ.get("defaulted", ()))
@@ -50,7 +50,8 @@ def _basis_rows(comparison: Any) -> list[list[str]]:
     return [
         ["basis", "value"],
         ["Ambient", f"{comparison.ambient_source}: {len(comparison.bins)} bins, "
-                    f"{hours:,.0f} h, {low:.1f} to {high:.1f} °C (an EPW file's hours are binned at 1 K)"],
+                    f"{hours:,.0f} h, {temperature(low, system)} to {temperature(high, system)} "
+                    "(an EPW file's hours are binned at 1 K)"],
         ["Electricity price", m("electricity_price", f"{econ['electricity_price']:g} {econ['currency']} per kWh")],
         ["Grid emission factor", m("emission_factor", f"{econ['emission_factor']:g} kg CO2e per kWh")],
         ["Service life", m("service_life", f"{econ['service_life']:g} years")],
@@ -99,7 +100,7 @@ def render_compare(comparison: Any, system: str, meta: dict) -> bytes:
         note(" · ".join(x for x in (comparison.project_name, meta.get("client"), meta.get("site")) if x)),
         Spacer(1, 6),
     ]
-    basis = _basis_rows(comparison)
+    basis = _basis_rows(comparison, system)
     story.append(grid(basis, [width * 0.2, width * 0.8], style=CELL_SMALL))
     story.append(heading("Base and options"))
     headers, rows = compare_rows(comparison, system)
