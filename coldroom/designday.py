@@ -41,7 +41,7 @@ from __future__ import annotations
 
 import math
 from dataclasses import dataclass, field
-from typing import TYPE_CHECKING, Iterable, Sequence
+from typing import TYPE_CHECKING, Any, Callable, Iterable, Sequence
 
 from coldroom.errors import CalculationError, finite, non_negative
 from coldroom.results import LoadLine
@@ -280,7 +280,23 @@ def _hour_model(model: "ProjectModel", temperature: float, rh: float) -> "Projec
     return model.model_copy(update={"design": design})
 
 
-def room_design_day(model: "ProjectModel", room: "Room") -> DesignDay:
+@dataclass(frozen=True)
+class LineSources:
+    """The load-line functions of :mod:`coldroom.loads` this module places in the hours.
+
+    ``loads`` hands them in (``coldroom.loads.design_day``), so this module does
+    not import ``loads`` and the two form no import circle.
+    """
+
+    product_loads: Callable[..., Any]
+    transmission_lines: Callable[..., Any]
+    infiltration_lines: Callable[..., Any]
+    internal_lines: Callable[..., Any]
+    outdoor_relative_humidity: Callable[..., Any]
+    site_pressure: Callable[..., Any]
+
+
+def room_design_day(model: "ProjectModel", room: "Room", sources: LineSources) -> DesignDay:
     """The design day of *room*: the 24-hour lines placed in the hours by the schedule.
 
     Parameters
@@ -289,21 +305,22 @@ def room_design_day(model: "ProjectModel", room: "Room") -> DesignDay:
         The validated project (``design.daily_range`` sets the outdoor profile).
     room : Room
         One of its rooms; ``room.schedule`` may be ``None`` (default placing).
+    sources : LineSources
+        The load-line functions (``coldroom.loads.design_day`` passes them).
 
     Returns
     -------
     DesignDay
     """
     from coldroom import psychrometrics
-    from coldroom.loads import (
-        _product_loads,
-        infiltration_lines,
-        internal_lines,
-        outdoor_relative_humidity,
-        site_pressure,
-        transmission_lines,
-    )
     from coldroom.results import COMPONENTS
+
+    _product_loads = sources.product_loads
+    infiltration_lines = sources.infiltration_lines
+    internal_lines = sources.internal_lines
+    outdoor_relative_humidity = sources.outdoor_relative_humidity
+    site_pressure = sources.site_pressure
+    transmission_lines = sources.transmission_lines
 
     design = model.design
     schedule = room.schedule

@@ -410,6 +410,21 @@ def _run_time(room: "Room") -> tuple[float, str]:
 LineSource = Callable[["ProjectModel", "Room"], list[LoadLine]]
 
 
+def design_day(model: "ProjectModel", room: "Room") -> "DesignDay":
+    """The room's design day (:func:`coldroom.designday.room_design_day`) from this module's lines."""
+    from coldroom.designday import LineSources, room_design_day
+
+    sources = LineSources(
+        product_loads=_product_loads,
+        transmission_lines=transmission_lines,
+        infiltration_lines=infiltration_lines,
+        internal_lines=internal_lines,
+        outdoor_relative_humidity=outdoor_relative_humidity,
+        site_pressure=site_pressure,
+    )
+    return room_design_day(model, room, sources)
+
+
 def room_loads(model: "ProjectModel", room: "Room") -> RoomLoads:
     """The 24-hour heat load of *room* in *model*.
 
@@ -430,9 +445,7 @@ def room_loads(model: "ProjectModel", room: "Room") -> RoomLoads:
     ) / DAY
     peak = steady + product_peak(model, room, products) + internal_peak(model, room)
     warnings = storage_advice(room)
-    from coldroom.designday import room_design_day
-
-    day = room_design_day(model, room)
+    day = design_day(model, room)
     if day.scheduled:  # the schedule replaces the all-at-once approximation
         peak = day.peak_load
     warnings += list(day.notes)

@@ -17,8 +17,7 @@ import pytest
 from hypothesis import given
 from hypothesis import strategies as st
 
-from coldroom.designday import room_design_day
-from coldroom.loads import product_peak, room_loads, internal_peak
+from coldroom.loads import design_day as room_design_day, product_peak, room_loads, internal_peak
 from coldroom.project import open_project_data
 from coldroom.safeyaml import load_yaml
 from tests.conftest import PROJECT_FILES
