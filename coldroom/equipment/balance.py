@@ -10,8 +10,8 @@ Neither knows the project model nor the compressor's kind.
 from __future__ import annotations
 
 import math
-from dataclasses import dataclass
-from typing import Callable, Optional, Sequence
+from dataclasses import dataclass, replace
+from typing import Any, Callable, Optional, Sequence
 
 from coldroom.design import AMBIENT_SWEEP
 from coldroom.errors import CalculationError, PropertyRangeError
@@ -103,6 +103,18 @@ def _at(before: str, suction: float, discharge: float, after: str = "") -> Note:
 CompressorFunction = Callable[[float, float], tuple[float, float]]
 
 BALANCE_TOLERANCE = 1e-6  # relative residual of both balance equations [-]
+BALANCE_ACCEPTANCE = 10.0  # a bracketed root is a balance only within this many tolerances [-]
+NEWTON_BUDGET = 40  # compressor evaluations for the quick Newton search before the bracketed one [-]
+BRACKET_EDGE = 1e-4  # closest approach of a dew point to its air temperature in the bracketed search [K]
+BRACKET_SPAN = 50.0  # farthest a dew point may sit from its air temperature [K]
+
+
+class _OverBudget(Exception):
+    """The quick search used up its compressor evaluations (not a ColdroomError: never leaves this module)."""
+
+
+class _NoBalance(CalculationError):
+    """One of the 1-D searches found no balance (the message says which component limits)."""
 
 
 def balance_point(
@@ -124,9 +136,14 @@ def balance_point(
     * Q_comp(S, D) = K_e·(t_room − S)   (or S = t_room − TD_e when fixed)
     * THR_comp(S, D) = K_c·(D − t_amb)  (or D = t_amb + TD_c when fixed)
 
-    Solved by Newton's method with a finite-difference Jacobian (kept while
-    each step at least halves the residual: chord method), steps limited
-    to 8 K and kept inside S < t_room, D > t_amb, halved while the residual grows.
+    First a quick Newton search (:func:`_newton_balance`) with at most
+    :data:`NEWTON_BUDGET` compressor evaluations; when it fails or runs out, a
+    bracketed search (:func:`_bracketed_balance`) whose brackets come from the
+    physics: the suction lies between t_room − 50 K and the room air (where an
+    unlimited coil puts it), the condensing between the condenser air (an
+    unlimited condenser) and t_amb + 50 K. That search ends within a bounded
+    number of evaluations for any ratings, and either finds the balance or
+    says which component leaves none.
 
     Parameters
     ----------
@@ -158,12 +175,223 @@ def balance_point(
     """
     counter = [0]
 
+    def counted(s: float, d: float) -> tuple[float, float]:
+        counter[0] += 1
+        return compressor(s, d)
+
+    def limited(s: float, d: float) -> tuple[float, float]:
+        if counter[0] >= NEWTON_BUDGET:
+            raise _OverBudget
+        return counted(s, d)
+
+    try:
+        quick = _newton_balance(
+            limited, evaporator, condenser, room_temperature, ambient_temperature,
+            guess=guess, tolerance=tolerance, max_iterations=max_iterations,
+        )
+        return replace(quick, evaluations=counter[0])
+    except (_OverBudget, CalculationError):
+        pass
+    found = _bracketed_balance(counted, evaporator, condenser, room_temperature, ambient_temperature, tolerance)
+    return replace(found, evaluations=counter[0])
+
+
+def _falling_root(
+    f: Callable[[float], Optional[float]],
+    favourable: float,
+    far: float,
+    start: float,
+    converged: Callable[[float, float], bool],
+    step: float = 0.5,
+) -> tuple[str, float, Optional[float]]:
+    """Root of *f*, which falls from its *favourable* end to its *far* end; ``None`` from *f*
+    means "cannot run here" and counts as negative.
+
+    Returns (outcome, x, f(x)): ``"cannot"`` (None already at the favourable end),
+    ``"edge"`` (f ≤ 0 there: the root lies beyond the favourable end), ``"short"``
+    (f > 0 up to the far end: no root in range) or ``"root"`` (x the best point found:
+    the caller checks its residual). The bracket is found by stepping from *start*
+    towards the far end (steps growing fourfold) and refined by the Illinois variant of
+    regula falsi (Dowell & Jarratt, BIT 11 (1971) 168 [mem]), by bisection while an end
+    cannot run (then only to 0.01 K: a root that close to the edge of what the compressor
+    can do is no balance).
+    """
+    f_fav = f(favourable)
+    if f_fav is None:
+        return "cannot", favourable, None
+    if f_fav <= 0.0:
+        return "edge", favourable, f_fav
+    direction = 1.0 if far > favourable else -1.0
+    pos, f_pos = favourable, f_fav
+    x = min(max(start, min(favourable, far)), max(favourable, far))
+    while True:
+        fx = f(x)
+        if fx is None or fx <= 0.0:
+            neg, f_neg = x, fx
+            break
+        if fx is not None and (x - pos) * direction > 0.0:
+            pos, f_pos = x, fx
+        if x == far:
+            return "short", far, fx
+        x = min(x + direction * step, far) if direction > 0 else max(x + direction * step, far)
+        step *= 4.0
+    best_x, best_f = (neg, f_neg) if f_neg is not None and -f_neg < f_pos else (pos, f_pos)
+    side = 0
+    for _ in range(100):
+        if best_f == 0.0 or converged(best_x, best_f):
+            break
+        width = abs(neg - pos)
+        if width < (1e-2 if f_neg is None else 1e-9):
+            break
+        if f_neg is None:
+            x = 0.5 * (pos + neg)
+        else:
+            x = neg - f_neg * (neg - pos) / (f_neg - f_pos) if f_neg != f_pos else 0.5 * (pos + neg)
+            if not min(pos, neg) < x < max(pos, neg):
+                x = 0.5 * (pos + neg)
+        fx = f(x)
+        if fx is not None and abs(fx) < abs(best_f):
+            best_x, best_f = x, fx
+        if fx is None or fx <= 0.0:
+            neg, f_neg = x, fx
+            if side == -1 and f_pos is not None:
+                f_pos /= 2.0  # Illinois: halve the stale end
+            side = -1
+        else:
+            pos, f_pos = x, fx
+            if side == 1 and f_neg is not None:
+                f_neg /= 2.0
+            side = 1
+    return "root", best_x, best_f
+
+
+def _bracketed_balance(
+    compressor: CompressorFunction,
+    evaporator: HeatExchanger,
+    condenser: HeatExchanger,
+    room_temperature: float,
+    ambient_temperature: float,
+    tolerance: float,
+) -> BalancePoint:
+    """The balance as two nested 1-D root searches, each bracketed by the heat exchangers' limits.
+
+    Inner: at a discharge dew D, the suction S where Q_comp(S, D) = K_e·(t_room − S);
+    g(S) = Q_comp − K_e·(t_room − S) rises with S (the compressor's capacity rises, the
+    coil's falls), so g ≤ 0 at t_room − :data:`BRACKET_EDGE` means the coil takes all the
+    compressor pumps (S at the room air, coil capacity = compressor capacity) and g > 0 at
+    t_room − :data:`BRACKET_SPAN` means the coil is too small for any suction. Outer:
+    h(D) = THR(S(D), D) − K_c·(D − t_amb) falls with D, read the same way. Where the
+    compressor cannot run, g and h count as "below the balance". A root is a balance only
+    when its residual is within :data:`BALANCE_ACCEPTANCE` tolerances.
+    """
+    def run(s: float, d: float) -> Optional[tuple[float, float]]:
+        try:
+            q, thr = compressor(s, d)
+        except CalculationError:  # PropertyRangeError, no flow, outside a model: cannot run here
+            return None
+        return (q, thr) if math.isfinite(q) and math.isfinite(thr) else None
+
+    accept = BALANCE_ACCEPTANCE * tolerance
+    s_fixed = room_temperature - evaporator.temperature_difference if evaporator.is_fixed else None  # type: ignore[operator]
+    d_fixed = ambient_temperature + condenser.temperature_difference if condenser.is_fixed else None  # type: ignore[operator]
+    s_low, s_high = room_temperature - BRACKET_SPAN, room_temperature - BRACKET_EDGE
+    d_low, d_high = ambient_temperature + BRACKET_EDGE, ambient_temperature + BRACKET_SPAN
+    last_s = [room_temperature - 8.0]
+
+    def suction(d: float) -> tuple[float, float, float, float]:
+        """(S, Q, THR, unit-cooler capacity) where compressor and unit cooler agree at *d*."""
+        if s_fixed is not None:
+            v = run(s_fixed, d)
+            if v is None:
+                raise _NoBalance(_at("no balance point: the compressor cannot run at ", s_fixed, d))
+            return s_fixed, v[0], v[1], v[0]
+        k: float = evaporator.conductance  # type: ignore[assignment]
+        memo: dict[float, Optional[tuple[float, float]]] = {}
+
+        def g(s: float) -> Optional[float]:
+            memo[s] = v = run(s, d)
+            return None if v is None else v[0] - k * (room_temperature - s)
+
+        outcome, s, gs = _falling_root(
+            lambda x: g(-x),  # in −S, g falls from the room air downwards
+            -s_high, -s_low, -last_s[0],
+            lambda x, fx: abs(fx) <= tolerance * max(abs(memo[-x][0]), 1.0),  # type: ignore[index]
+        )
+        s = -s
+        if outcome == "cannot":
+            raise _NoBalance(_at("no balance point: the compressor cannot run even at ", s, d))
+        v = memo[s]
+        if outcome == "edge":  # the coil is not what limits: it takes all the compressor pumps
+            return s, v[0], v[1], v[0]  # type: ignore[index]
+        if outcome == "short":
+            raise _NoBalance(_at("no balance point: the unit cooler is too small for the compressor (balance below ", s, d, ")"))
+        if v is None or abs(gs) > accept * max(abs(v[0]), 1.0):  # type: ignore[arg-type]
+            raise _NoBalance(_at("no balance point: the compressor cannot run where the unit cooler needs it, ", s, d))
+        last_s[0] = s
+        return s, v[0], v[1], k * (room_temperature - s)
+
+    if d_fixed is not None:
+        s, q, thr, evap = suction(d_fixed)
+        return BalancePoint(s, d_fixed, q, evap, thr, thr, 0)
+    kc: float = condenser.conductance  # type: ignore[assignment]
+    found: dict[float, Any] = {}
+
+    def h(d: float) -> Optional[float]:
+        try:
+            found[d] = v = suction(d)
+        except _NoBalance as exc:
+            found[d] = exc
+            return None
+        return v[2] - kc * (d - ambient_temperature)
+
+    outcome, d, hd = _falling_root(
+        h, d_low, d_high, ambient_temperature + 12.0,
+        lambda x, fx: abs(fx) <= tolerance * max(abs(found[x][2]), 1.0),
+    )
+    v = found[d]
+    if outcome == "cannot":
+        raise v
+    if outcome == "edge":  # the condenser is not what limits: it rejects all the compressor gives
+        s, q, thr, evap = v
+        return BalancePoint(s, d, q, evap, thr, thr, 0)
+    if outcome == "short":
+        raise _NoBalance(_at("no balance point: the condenser is too small for the compressor (balance above ", v[0], d, ")"))
+    if not isinstance(v, tuple) or abs(hd) > accept * max(abs(v[2]), 1.0):  # type: ignore[arg-type]
+        raise _NoBalance(_at("no balance point: the compressor cannot run where the condenser needs it, ", last_s[0], d))
+    s, q, thr, evap = v
+    return BalancePoint(s, d, q, evap, thr, kc * (d - ambient_temperature), 0)
+
+
+def _newton_balance(
+
+    compressor: CompressorFunction,
+    evaporator: HeatExchanger,
+    condenser: HeatExchanger,
+    room_temperature: float,
+    ambient_temperature: float,
+    *,
+    guess: Optional[tuple[float, float]] = None,
+    tolerance: float = BALANCE_TOLERANCE,
+    max_iterations: int = 60,
+) -> BalancePoint:
+    """Newton's method on both balance equations (see :func:`balance_point`).
+
+    Finite-difference Jacobian, kept while each step at least halves the residual
+    (chord method); steps limited to 8 K and kept inside S < t_room, D > t_amb,
+    halved while the residual grows. Quick from a good start; no bracket, so it may
+    fail on extreme ratings, where :func:`_bracketed_balance` decides.
+    """
+    counter = [0]
+
     def comp(s: float, d: float) -> tuple[float, float]:
         counter[0] += 1
         try:
-            return compressor(s, d)
+            q, thr = compressor(s, d)
         except PropertyRangeError as exc:
             raise CalculationError(_at("no balance point: the compressor cannot run at ", s, d, f" ({exc})")) from None
+        if not (math.isfinite(q) and math.isfinite(thr)):
+            raise CalculationError(_at("no balance point: the compressor model gives no finite capacity at ", s, d))
+        return q, thr
 
     s_fixed = room_temperature - evaporator.temperature_difference if evaporator.is_fixed else None  # type: ignore[operator]
     d_fixed = ambient_temperature + condenser.temperature_difference if condenser.is_fixed else None  # type: ignore[operator]

@@ -129,7 +129,9 @@ class CheckResult:
     def verdict_detail(self) -> str:
         """Why, in a few words: the margin, or what stopped the rating."""
         if self.capacity_at_balance is None:
-            return "outside the compressor envelope" if not self.within_envelope else "no balance point"
+            if not self.within_envelope:
+                return "outside the compressor envelope"
+            return "no capacity at the balance point" if self.balance_evaporating is not None else "no balance point"
         return f"margin {self.margin_percent:+.0f} %"
 
     @property
@@ -341,6 +343,15 @@ def check_unit(
         value, guess = capacity_at(ambient, guess)
         chart_capacity.append(value)
         chart_load.append(load(ambient))
+        if ambient == ambient_temperature:
+            continue
+        # The search assumes one crossing (capacity falls, load rises with ambient), and the
+        # design point decides: a chart point that contradicts it (holds above a design that
+        # fails, fails below a design that holds) is a solver artefact and is left out, so
+        # the highest ambient agrees with the verdict.
+        held = value is not None and value >= load(ambient)
+        if (ambient > ambient_temperature and held and not holds) or (ambient < ambient_temperature and not held and holds):
+            continue
         samples.append((ambient, value, guess))
     # 3. highest ambient at which it holds (regula falsi on capacity − load, to 0.05 K)
     max_ambient: Optional[float] = None
