@@ -363,7 +363,6 @@ def _bracketed_balance(
 
 
 def _newton_balance(
-
     compressor: CompressorFunction,
     evaporator: HeatExchanger,
     condenser: HeatExchanger,

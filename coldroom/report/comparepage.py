@@ -16,9 +16,10 @@ from typing import Any
 
 from reportlab.lib.pagesizes import A4, LETTER, landscape
 from reportlab.lib.units import mm
-from reportlab.platypus import BaseDocTemplate, CondPageBreak, Frame, PageTemplate, Spacer
+from reportlab.platypus import CondPageBreak, Spacer
 
 from coldroom.report.charts import BarChart
+from coldroom.report.layout import document
 from coldroom.report.sheet import (
     CELL_SMALL,
     H1,
@@ -77,23 +78,15 @@ def render_compare(comparison: Any, system: str, meta: dict) -> bytes:
     pagesize = landscape(LETTER if system == "IP" else A4)
     margin = 14 * mm
     buffer = io.BytesIO()
-    doc = BaseDocTemplate(
+    doc = document(
         buffer,
-        pagesize=pagesize,
-        leftMargin=margin,
-        rightMargin=margin,
-        topMargin=margin + 6,
-        bottomMargin=margin + 2,
-        title=clean(f"Options compared: {comparison.project_name}"),
-        author=clean(meta.get("prepared_by") or ""),
-        subject=clean(f"{meta['input_file']} sha256 {meta['input_sha256']}"),
-        creator=clean(f"coldroom {meta['versions'].get('coldroom', '')}"),
-        producer="coldroom (reportlab)",
-        invariant=1,
+        pagesize,
+        margin,
+        title=f"Options compared: {comparison.project_name}",
+        author=meta.get("prepared_by") or "",
+        subject=f"{meta['input_file']} sha256 {meta['input_sha256']}",
+        creator=f"coldroom {meta['versions'].get('coldroom', '')}",
     )
-    frame = Frame(doc.leftMargin, doc.bottomMargin, doc.width, doc.height, id="body", leftPadding=0,
-                  rightPadding=0, topPadding=0, bottomPadding=0)
-    doc.addPageTemplates([PageTemplate(id="page", frames=[frame])])
     width = doc.width
     story: list = [
         heading("Options compared over a year", H1),

@@ -14,10 +14,10 @@ from typing import Any, Sequence
 from reportlab.lib import colors
 from reportlab.lib.enums import TA_LEFT
 from reportlab.lib.styles import ParagraphStyle
-from reportlab.platypus import Paragraph, Table, TableStyle
+from reportlab.platypus import BaseDocTemplate, Frame, PageTemplate, Paragraph, Table, TableStyle
 
 from coldroom.report.charts import INK, MUTED, RULE
-from coldroom.report.text import esc
+from coldroom.report.text import clean, esc
 from coldroom.units import format_terms
 
 ACCENT = colors.HexColor("#4F6D8A")
@@ -149,3 +149,29 @@ def warning_box(ctx: Any, messages: Sequence[str]) -> list:
         )
     )
     return [table]
+
+
+def document(buffer: Any, pagesize: tuple[float, float], margin: float, *, title: str, author: str,
+             subject: str, creator: str) -> BaseDocTemplate:
+    """A one-frame document with the margins, metadata and ``invariant=1`` every coldroom PDF uses.
+
+    ``invariant=1`` with a fixed date makes the PDF byte-identical run to run.
+    """
+    doc = BaseDocTemplate(
+        buffer,
+        pagesize=pagesize,
+        leftMargin=margin,
+        rightMargin=margin,
+        topMargin=margin + 6,
+        bottomMargin=margin + 2,
+        title=clean(title),
+        author=clean(author),
+        subject=clean(subject),
+        creator=clean(creator),
+        producer="coldroom (reportlab)",
+        invariant=1,
+    )
+    frame = Frame(doc.leftMargin, doc.bottomMargin, doc.width, doc.height, id="body", leftPadding=0,
+                  rightPadding=0, topPadding=0, bottomPadding=0)
+    doc.addPageTemplates([PageTemplate(id="page", frames=[frame])])
+    return doc

@@ -31,12 +31,9 @@ from reportlab.lib.styles import ParagraphStyle
 from reportlab.lib.units import mm
 from reportlab.pdfgen.canvas import Canvas
 from reportlab.platypus import (
-    BaseDocTemplate,
     CondPageBreak,
-    Frame,
     KeepTogether,
     PageBreak,
-    PageTemplate,
     Paragraph,
     Spacer,
     Table,
@@ -46,6 +43,7 @@ from reportlab.platypus import (
 from coldroom.report.charts import INK, MUTED, RULE, BarChart
 from coldroom.report.check_section import existing_unit_section
 from coldroom.report.layout import (
+    document,
     ACCENT,
     CELL,
     CELL_SMALL,
@@ -851,23 +849,15 @@ def render_sheet(result: Any, model: Any = None, selection: Any = None) -> bytes
     pagesize = LETTER if system == "IP" else A4
     margin = 16 * mm
     buffer = io.BytesIO()
-    doc = BaseDocTemplate(
+    doc = document(
         buffer,
-        pagesize=pagesize,
-        leftMargin=margin,
-        rightMargin=margin,
-        topMargin=margin + 6,
-        bottomMargin=margin + 2,
-        title=clean(f"Sizing sheet: {result.project_name}"),
-        author=clean(result.prepared_by or ""),
-        subject=clean(f"{result.input_file} sha256 {result.input_sha256}"),
-        creator=clean(f"coldroom {result.versions.get('coldroom', '')}"),
-        producer="coldroom (reportlab)",
-        invariant=1,
+        pagesize,
+        margin,
+        title=f"Sizing sheet: {result.project_name}",
+        author=result.prepared_by or "",
+        subject=f"{result.input_file} sha256 {result.input_sha256}",
+        creator=f"coldroom {result.versions.get('coldroom', '')}",
     )
-    frame = Frame(doc.leftMargin, doc.bottomMargin, doc.width, doc.height, id="body", leftPadding=0,
-                  rightPadding=0, topPadding=0, bottomPadding=0)
-    doc.addPageTemplates([PageTemplate(id="page", frames=[frame])])
     ctx = SheetContext(result=result, model=model, system=system, width=doc.width, selection=selection)
     story = build_story(ctx)
     doc.build(story, canvasmaker=_canvas_maker(result, pagesize[0], margin))
