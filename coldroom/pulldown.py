@@ -237,6 +237,41 @@ def _inverse_table(mass: ThermalMass, low: float, high: float) -> tuple[list[flo
     return enth, temps
 
 
+class _Inverse:
+    """T(h) of every mass at once, from tables on one temperature grid.
+
+    Does in one vectorised step what ``np.interp(h[i], enthalpies[i], temperatures)``
+    does row by row — the same bracket xp[j] ≤ x < xp[j+1], the same arithmetic
+    ``slope·(x − xp[j]) + fp[j]``, the ends clamped — so results are bit-identical.
+    Column j of the lookups serves an x with j grid points at or below it (0: below
+    the table, slope 0 and the first temperature; N: at or above the top, slope 0,
+    the last temperature).
+    """
+
+    def __init__(self, tables: Sequence[tuple[Sequence[float], Sequence[float]]]) -> None:
+        import numpy as np
+
+        if tables:
+            h_grid = np.array([e for e, _ in tables], dtype=float)
+            t_grid = np.asarray(tables[0][1], dtype=float)
+        else:
+            h_grid, t_grid = np.zeros((0, 2)), np.array([0.0, 1.0])
+        zero = np.zeros((h_grid.shape[0], 1))
+        self.h_grid = h_grid
+        self.slope_at = np.hstack([zero, (t_grid[1:] - t_grid[:-1]) / (h_grid[:, 1:] - h_grid[:, :-1]), zero]).ravel()
+        self.base_h = np.hstack([h_grid[:, :1], h_grid]).ravel()
+        self.base_t = np.concatenate([t_grid[:1], t_grid])
+        self.row_start = np.arange(h_grid.shape[0]) * (t_grid.size + 1)
+
+    def __call__(self, h: Any) -> Any:
+        import numpy as np
+
+        h = np.asarray(h, dtype=float)
+        j = np.count_nonzero(self.h_grid <= h[:, None], axis=1)
+        at = self.row_start + j
+        return self.slope_at[at] * (h - self.base_h[at]) + self.base_t[j]
+
+
 def simulate(
     air_heat_capacity: float,
     masses: Sequence[ThermalMass],
@@ -287,16 +322,22 @@ def simulate(
         raise CalculationError(f"thermostat band {band!r} K must be positive")
     temps0 = [initial_air_temperature, set_point] + [m.initial_temperature for m in masses]
     low, high = min(temps0) - 40.0, max(temps0) + 10.0
-    tables = [_inverse_table(m, low, high) for m in masses]
-    h_grid = [np.asarray(e) for e, _ in tables]
-    t_grid = [np.asarray(t) for _, t in tables]
+    # one table per enthalpy function (a product's delivery and its stored stock share one)
+    tables, known = [], {}
+    for m in masses:
+        key = (m.enthalpy, None if m.enthalpy is not None else m.specific_heat)
+        try:
+            table = known[key]
+        except KeyError:
+            table = known[key] = _inverse_table(m, low, high)
+        except TypeError:  # an unhashable enthalpy callable
+            table = _inverse_table(m, low, high)
+        tables.append(table)
+    temperatures = _Inverse(tables)  # h → T of every mass at once
     ua = np.array([m.conductance for m in masses], dtype=float)
     mass = np.array([m.mass for m in masses], dtype=float)
     n = len(masses)
     massless_air = air_heat_capacity <= 0.0
-
-    def temperatures(h: np.ndarray) -> np.ndarray:
-        return np.array([np.interp(h[i], h_grid[i], t_grid[i]) for i in range(n)])
 
     def air_balance(ta: float, tm: np.ndarray) -> float:
         return steady_load(ta) + float(np.dot(ua, tm - ta)) - thermostat(ta, set_point, band) * capacity(ta)
@@ -341,8 +382,7 @@ def simulate(
         raise CalculationError(f"the pull-down simulation failed: {solution.message}")
     ys = solution.y
     product_h = ys if massless_air else ys[1:]
-    mass_t = np.array([[np.interp(product_h[i, k], h_grid[i], t_grid[i]) for k in range(ys.shape[1])]
-                       for i in range(n)]).reshape(n, ys.shape[1])
+    mass_t = np.array([temperatures(product_h[:, k]) for k in range(ys.shape[1])]).T.reshape(n, ys.shape[1])
     if massless_air:
         air = np.array([quasi_steady_air(mass_t[:, k]) for k in range(ys.shape[1])])
     else:

@@ -273,26 +273,21 @@ def _decode(source: str | bytes, filename: str, max_bytes: int) -> str:
     return text
 
 
-class _Composer(yaml.SafeLoader):
-    """SafeLoader's reader, scanner, parser and resolver with a guarded composer.
+class _GuardedCompose:
+    """The guarded composer: builds the node graph from parser events with the limits checked.
 
+    Mixed into a loader class that brings the reader, scanner, parser and
+    resolver (PyYAML's pure-Python ``SafeLoader`` or libyaml's ``CSafeLoader``).
     Only the composition of the node graph is replaced; construction is done
     by :func:`_build` from the checked graph, never by a PyYAML constructor.
     """
 
-    def __init__(self, text: str, max_depth: int, max_aliases: int) -> None:
+    def _start_guard(self, max_depth: int, max_aliases: int) -> None:
         self.max_depth = max_depth
         self.max_aliases = max_aliases
         self.alias_count = 0
         self.depth = 0
-        super().__init__(text)
-
-    def fetch_flow_collection_start(self, TokenClass: type) -> None:  # noqa: N803
-        # Stop deep flow nesting ("[[[[...") in the scanner already: its
-        # look-ahead for simple keys costs time per open flow level.
-        if self.flow_level >= self.max_depth:
-            raise _Located(f"nested deeper than {self.max_depth} levels", self.get_mark())
-        super().fetch_flow_collection_start(TokenClass)
+        self.node_anchors: dict[str, Node] = {}
 
     def compose_single(self) -> Node | None:
         self.get_event()  # STREAM-START
@@ -318,17 +313,17 @@ class _Composer(yaml.SafeLoader):
                     f"more than {self.max_aliases} aliases (*name); write the values out",
                     event.start_mark,
                 )
-            if event.anchor not in self.anchors:
+            if event.anchor not in self.node_anchors:
                 raise _Located(f"alias *{event.anchor} has no anchor &{event.anchor} before it", event.start_mark)
             # A shallow copy sharing the children: the alias keeps its own
             # position for messages; the size check still sees shared nodes.
-            proxy = copy.copy(self.anchors[event.anchor])
+            proxy = copy.copy(self.node_anchors[event.anchor])
             proxy.start_mark, proxy.end_mark = event.start_mark, event.end_mark
             return proxy
         event = self.peek_event()
         anchor = event.anchor
-        if anchor is not None and anchor in self.anchors:
-            first = self.anchors[anchor].start_mark
+        if anchor is not None and anchor in self.node_anchors:
+            first = self.node_anchors[anchor].start_mark
             raise _Located(
                 f"anchor &{anchor} defined twice (first at line {first.line + 1})", event.start_mark
             )
@@ -338,11 +333,11 @@ class _Composer(yaml.SafeLoader):
             explicit = tag not in (None, "!")
             if not explicit:
                 tag = self.resolve(ScalarNode, event.value, event.implicit)
-            node: Node = ScalarNode(tag, event.value, event.start_mark, event.end_mark, style=event.style)
+            node: Node = ScalarNode(tag, event.value, event.start_mark, event.end_mark, style=event.style or None)
             node.explicit_tag = explicit  # type: ignore[attr-defined]
-            node.plain = event.style is None and event.implicit[0] and not explicit  # type: ignore[attr-defined]
+            node.plain = not event.style and event.implicit[0] and not explicit  # type: ignore[attr-defined]
             if anchor is not None:
-                self.anchors[anchor] = node
+                self.node_anchors[anchor] = node
             return node
         if self.check_event(SequenceStartEvent, MappingStartEvent):
             is_seq = self.check_event(SequenceStartEvent)
@@ -355,7 +350,7 @@ class _Composer(yaml.SafeLoader):
                 tag = _SEQ if is_seq else _MAP
             node = (SequenceNode if is_seq else MappingNode)(tag, [], start.start_mark, None)
             if anchor is not None:
-                self.anchors[anchor] = node
+                self.node_anchors[anchor] = node
             if is_seq:
                 i = 0
                 while not self.check_event(SequenceEndEvent):
@@ -371,6 +366,40 @@ class _Composer(yaml.SafeLoader):
             return node
         event = self.get_event()  # pragma: no cover - the parser never yields anything else here
         raise _Located(f"unexpected {type(event).__name__}", event.start_mark)  # pragma: no cover
+
+
+class _Composer(_GuardedCompose, yaml.SafeLoader):
+    """PyYAML's pure-Python reader, scanner, parser and resolver under the guarded composer.
+
+    Its error messages are the ones a user sees (every problem is reported from
+    this loader, see :func:`load_yaml`).
+    """
+
+    def __init__(self, text: str, max_depth: int, max_aliases: int) -> None:
+        self._start_guard(max_depth, max_aliases)
+        super().__init__(text)
+
+    def fetch_flow_collection_start(self, TokenClass: type) -> None:  # noqa: N803
+        # Stop deep flow nesting ("[[[[...") in the scanner already: its
+        # look-ahead for simple keys costs time per open flow level.
+        if self.flow_level >= self.max_depth:
+            raise _Located(f"nested deeper than {self.max_depth} levels", self.get_mark())
+        super().fetch_flow_collection_start(TokenClass)
+
+
+_CLoader = getattr(yaml, "CSafeLoader", None) if getattr(yaml, "__with_libyaml__", False) else None
+
+if _CLoader is not None:
+
+    class _FastComposer(_GuardedCompose, _CLoader):  # type: ignore[valid-type, misc]
+        """libyaml's scanner and parser (C; about 10× faster on a large project) under the
+        same guarded composer. It gives the same events (a plain scalar's style is ''
+        where PyYAML has None; :meth:`_GuardedCompose.compose_node` reads both alike);
+        a file it cannot load is loaded again by :class:`_Composer` for the message."""
+
+        def __init__(self, text: str, max_depth: int, max_aliases: int) -> None:
+            self._start_guard(max_depth, max_aliases)
+            super().__init__(text)
 
 
 class _Located(Exception):
@@ -632,6 +661,31 @@ def read_source(path: "str | os.PathLike[str]", *, max_bytes: int = MAX_BYTES) -
     return raw
 
 
+def _compose_fast(text: str, filename: str, max_depth: int, max_aliases: int, max_nodes: int) -> LoadedYaml | None:
+    """The file loaded through libyaml with every check of :func:`load_yaml`, or None
+    if anything at all goes wrong (the pure-Python loader then reports it)."""
+    try:
+        loader = _FastComposer(text, max_depth, max_aliases)
+        try:
+            root = loader.compose_single()
+        finally:
+            loader.dispose()
+        if not isinstance(root, MappingNode):
+            return None
+        _check_size(root, max_nodes, max_depth)
+        marks: dict[KeyPath, Mark] = {(): _mark(root)}
+        value_marks: dict[KeyPath, Mark] = {}
+        data = _build(root, (), marks, value_marks)
+    except Exception:  # noqa: BLE001 - any problem: load again with the loader whose messages we show
+        return None
+    return LoadedYaml(
+        data=data,
+        marks=MappingProxyType(marks),
+        value_marks=MappingProxyType(value_marks),
+        filename=filename,
+    )
+
+
 def load_yaml(
     source: str | bytes,
     filename: str = "<input>",
@@ -680,6 +734,10 @@ def load_yaml(
     coldroom.errors.ProjectFileError: p.yaml:2:1: a: duplicate key 'a' (first at line 1, again at line 2); remove one
     """
     text = _decode(source, filename, max_bytes)
+    if _CLoader is not None:
+        fast = _compose_fast(text, filename, max_depth, max_aliases, max_nodes)
+        if fast is not None:
+            return fast
     try:
         try:
             loader = _Composer(text, max_depth, max_aliases)

@@ -14,6 +14,7 @@ from typing import Any, Sequence
 from reportlab.lib import colors
 from reportlab.lib.enums import TA_LEFT
 from reportlab.lib.styles import ParagraphStyle
+from reportlab.pdfbase.pdfmetrics import stringWidth
 from reportlab.platypus import BaseDocTemplate, Frame, PageTemplate, Paragraph, Table, TableStyle
 
 from coldroom.report.charts import INK, MUTED, RULE
@@ -65,7 +66,9 @@ def grid(
 ) -> Table:
     """A table in the sheet's style: header band, light rules, right-aligned number columns.
 
-    Plain strings are wrapped into paragraphs so long text breaks inside its cell.
+    A string that fits its cell on one line is left a plain string (drawn
+    exactly where its Paragraph would be, at a fraction of the cost); a longer
+    one becomes a Paragraph so it breaks inside its cell.
     """
     right = ParagraphStyle("r", parent=style, alignment=2)
     bold = ParagraphStyle("b", parent=style, fontName="Helvetica-Bold")
@@ -73,14 +76,14 @@ def grid(
     data = []
     for r, row in enumerate(rows):
         cells = []
+        strong = (header and r == 0) or r in total_rows
         for col, cell in enumerate(row):
             if isinstance(cell, str):
-                strong = (header and r == 0) or r in total_rows
                 if col in align_right:
                     st = bold_right if strong else right
                 else:
                     st = bold if strong else style
-                cells.append(Paragraph(esc(cell), st))
+                cells.append(cell_text(cell, st, widths[col]))
             else:
                 cells.append(cell)
         data.append(cells)
@@ -93,12 +96,42 @@ def grid(
         ("BOTTOMPADDING", (0, 0), (-1, -1), 2.2),
         ("LINEBELOW", (0, 0), (-1, -1), 0.35, RULE),
     ]
+    # the cells left as plain strings are drawn in the paragraph styles' fonts
+    # (same baseline: a Paragraph's first line sits fontSize below the cell top too)
+    commands += [
+        ("FONT", (0, 0), (-1, -1), style.fontName, style.fontSize, style.leading),
+        ("TEXTCOLOR", (0, 0), (-1, -1), style.textColor),
+    ]
+    commands += [("ALIGN", (col, 0), (col, -1), "RIGHT") for col in align_right]
+    for r in ([0] if header else []) + list(total_rows):
+        commands.append(("FONT", (0, r), (-1, r), bold.fontName, bold.fontSize, bold.leading))
     if header:
         commands += [("BACKGROUND", (0, 0), (-1, 0), BAND), ("LINEBELOW", (0, 0), (-1, 0), 0.8, ACCENT)]
     for r in total_rows:
         commands += [("BACKGROUND", (0, r), (-1, r), SOFT), ("LINEABOVE", (0, r), (-1, r), 0.8, MUTED)]
     table.setStyle(TableStyle(commands))
     return table
+
+
+def cell_text(text: str, style: ParagraphStyle, width: float, padding: float = 8.0) -> Any:
+    """A table cell of *text* in *style*: the cleaned plain string if it sets on
+    one line in a column *width* wide (*padding* = left + right cell padding),
+    else a Paragraph that breaks inside the cell.
+
+    A plain string is drawn where its Paragraph would be (a Paragraph's first
+    baseline sits fontSize below the cell's top, as a string's does) at a
+    fraction of the cost, provided the table gives string cells the style's
+    font, size, leading and colour (``FONT`` and ``TEXTCOLOR`` commands). Text a
+    Paragraph would set differently (runs of spaces, line breaks) stays one.
+    """
+    plain = clean(text)
+    if (
+        plain
+        and " ".join(plain.split()) == plain
+        and stringWidth(plain, style.fontName, style.fontSize) <= width - padding - 0.01
+    ):
+        return plain
+    return Paragraph(esc(text), style)
 
 
 def figure_boxes(ctx: Any, items: Sequence[tuple[str, str, str]]) -> Table:

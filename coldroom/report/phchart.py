@@ -351,15 +351,18 @@ class _Occupancy:
 
     def box(self, x0: float, y0: float, x1: float, y1: float) -> None:
         c = self.CELL
-        for i in range(int(x0 // c), int(x1 // c) + 1):
-            for j in range(int(y0 // c), int(y1 // c) + 1):
-                self.cells.add((i, j))
+        js = range(int(y0 // c), int(y1 // c) + 1)
+        self.cells.update([(i, j) for i in range(int(x0 // c), int(x1 // c) + 1) for j in js])
 
     def free(self, x0: float, y0: float, x1: float, y1: float) -> bool:
         c = self.CELL
-        return not any(
-            (i, j) in self.cells for i in range(int(x0 // c), int(x1 // c) + 1) for j in range(int(y0 // c), int(y1 // c) + 1)
-        )
+        cells = self.cells
+        js = range(int(y0 // c), int(y1 // c) + 1)
+        for i in range(int(x0 // c), int(x1 // c) + 1):
+            for j in js:
+                if (i, j) in cells:
+                    return False
+        return True
 
 
 # --- the chart -------------------------------------------------------------------------------------
@@ -398,42 +401,93 @@ def ph_chart(cycle: Any, system: str, width: float, height: float, title: str = 
     title : str
         Caption above the chart.
     """
-    from coldroom.phdiagram import chart_data
-
     window = choose_window(cycle, system)
-    data = chart_data(cycle.refrigerant, window.pressure_low, window.pressure_high, window.isotherms, window.isentropes)
-    return _draw(cycle, data, window, system, width, height, title)
+    return _draw(cycle, window, system, width, height, title)
 
 
-def _draw(cycle: Any, data: Any, window: Window, system: str, width: float, height: float, title: str) -> Drawing:
+@dataclass(frozen=True)
+class _Plot:
+    """Where the plot sits on the drawing and what its axes span (display units)."""
+
+    x0: float
+    y0: float
+    x1: float
+    y1: float
+    h_lo: float
+    h_hi: float
+    p_lo: float
+    p_hi: float
+    lp_lo: float
+    lp_hi: float
+
+
+@dataclass
+class _Background:
+    """The part of a chart that depends on the refrigerant and the window only (cached)."""
+
+    shapes: list[Any]  # frame, grid, ticks, axis titles, lines, dome, critical point, in drawing order
+    occupied: frozenset[tuple[int, int]]  # cells covered by anything
+    strong: frozenset[tuple[int, int]]  # cells covered by the dome and the critical point
+    quality_pieces: list[tuple[float, list[list[tuple[float, float]]]]]
+    isentrope_pieces: list[tuple[float, list[list[tuple[float, float]]]]]
+    isotherm_pieces: list[tuple[float, list[list[tuple[float, float]]]]]
+    crit: tuple[float, float]
+    data: Any
+
+
+def _plot(window: Window, system: str, width: float, height: float, title: str) -> _Plot:
     h_unit = _units.DISPLAY_UNITS[system]["specific_energy"]
     p_unit = _units.DISPLAY_UNITS[system]["pressure"]
-    s_unit = _units.DISPLAY_UNITS[system]["specific_heat"]
-
-    hd = _units.unit_for("specific_energy", h_unit).from_si  # display value of an SI enthalpy
-    pd = _units.unit_for("pressure", p_unit).from_si  # display value of an SI pressure
-
-    drawing = Drawing(width, height)
-    occupied = _Occupancy()  # everything drawn
-    strong = _Occupancy()  # the dome, the cycle, markers and labels: never covered
-    states = cycle_states(cycle)
-    s1, s2, s3, s4 = cycle.states
-    evap_out = cycle.evaporator_outlet
-
+    hd = _units.unit_for("specific_energy", h_unit).from_si
+    pd = _units.unit_for("pressure", p_unit).from_si
     # layout: title, the span strip, the plot, the axes
     top_title = 14.0 if title else 0.0
     strip = 52.0
     left, right, bottom = 50.0, 14.0, 42.0
     x0, y0 = left, bottom
     x1, y1 = width - right, height - top_title - strip
-    box = (x0, y0, x1, y1)
     h_lo, h_hi = hd(window.enthalpy_low), hd(window.enthalpy_high)
     h_ticks = linear_ticks(h_lo, h_hi, 8)
     step = h_ticks[1] - h_ticks[0] if len(h_ticks) > 1 else (h_hi - h_lo)
     h_lo = math.floor(h_lo / step) * step
     h_hi = math.ceil(h_hi / step) * step
     p_lo, p_hi = pd(window.pressure_low), pd(window.pressure_high)
-    lp_lo, lp_hi = math.log10(p_lo), math.log10(p_hi)
+    return _Plot(x0, y0, x1, y1, h_lo, h_hi, p_lo, p_hi, math.log10(p_lo), math.log10(p_hi))
+
+
+_BACKGROUNDS: dict[tuple, _Background] = {}
+
+
+def _background(refrigerant: str, window: Window, system: str, plot: _Plot) -> _Background:
+    """The chart's background for *refrigerant* on *plot*, computed once per process.
+
+    Rooms of one job mostly share a refrigerant and, the window being on round
+    values, a window: their charts differ only in the cycle and the labels.
+    The shapes are shared between drawings (reportlab only reads them).
+    """
+    key = (refrigerant, window.pressure_low, window.pressure_high, window.isotherms, window.isentropes, system, plot)
+    found = _BACKGROUNDS.get(key)
+    if found is None:
+        if len(_BACKGROUNDS) >= 64:
+            _BACKGROUNDS.clear()
+        found = _BACKGROUNDS[key] = _build_background(refrigerant, window, system, plot)
+    return found
+
+
+def _build_background(refrigerant: str, window: Window, system: str, plot: _Plot) -> _Background:
+    from coldroom.phdiagram import chart_data
+
+    data = chart_data(refrigerant, window.pressure_low, window.pressure_high, window.isotherms, window.isentropes)
+    h_unit = _units.DISPLAY_UNITS[system]["specific_energy"]
+    p_unit = _units.DISPLAY_UNITS[system]["pressure"]
+    hd = _units.unit_for("specific_energy", h_unit).from_si
+    pd = _units.unit_for("pressure", p_unit).from_si
+    x0, y0, x1, y1 = plot.x0, plot.y0, plot.x1, plot.y1
+    h_lo, h_hi, lp_lo, lp_hi = plot.h_lo, plot.h_hi, plot.lp_lo, plot.lp_hi
+    box = (x0, y0, x1, y1)
+    drawing = Drawing(1, 1)  # a container: its contents are the shapes
+    occupied = _Occupancy()
+    strong = _Occupancy()
 
     def X(h_si: float) -> float:
         return x0 + (x1 - x0) * (hd(h_si) - h_lo) / (h_hi - h_lo)
@@ -445,10 +499,8 @@ def _draw(cycle: Any, data: Any, window: Window, system: str, width: float, heig
         return [(X(h), Y(p)) for h, p in points]
 
     # --- frame, grid, ticks -----------------------------------------------------------
-    if title:
-        drawing.add(String(0, height - 10.0, clean(title), fontName=FONT_BOLD, fontSize=9, fillColor=INK))
     drawing.add(Rect(x0, y0, x1 - x0, y1 - y0, fillColor=PLOT_BG, strokeColor=None))
-    major, minor = log_ticks(p_lo, p_hi)
+    major, minor = log_ticks(plot.p_lo, plot.p_hi)
     for v in minor:
         y = y0 + (y1 - y0) * (math.log10(v) - lp_lo) / (lp_hi - lp_lo)
         drawing.add(Line(x0, y, x1, y, strokeColor=GRID_MINOR, strokeWidth=0.35))
@@ -510,7 +562,6 @@ def _draw(cycle: Any, data: Any, window: Window, system: str, width: float, heig
                 pieces += got
         isotherm_pieces.append((line.value, pieces))
     # --- the dome up to the critical point ----------------------------------------------
-    dome = xy(data.bubble) + [crit] + list(reversed(xy(data.dew)))
     # smooth each branch apart (the critical point is where they meet with a common tangent)
     bubble_pts = _catmull_rom(xy(data.bubble) + [crit])
     dew_pts = _catmull_rom([crit] + list(reversed(xy(data.dew))))
@@ -518,12 +569,47 @@ def _draw(cycle: Any, data: Any, window: Window, system: str, width: float, heig
         drawing.add(PolyLine(piece, strokeColor=DOME, strokeWidth=1.4, strokeLineJoin=1, strokeLineCap=1))
         occupied.line(piece, pad=1.0)
         strong.line(piece, pad=1.0)
-    del dome
     if box[0] <= crit[0] <= box[2] and box[1] <= crit[1] <= box[3]:
         cx, cy = crit
         drawing.add(Polygon([cx, cy + 3.4, cx + 3.4, cy, cx, cy - 3.4, cx - 3.4, cy], fillColor=DOME, strokeColor=None))
         occupied.box(cx - 4, cy - 4, cx + 4, cy + 4)
         strong.box(cx - 4, cy - 4, cx + 4, cy + 4)
+    return _Background(list(drawing.contents), frozenset(occupied.cells), frozenset(strong.cells),
+                       quality_pieces, isentrope_pieces, isotherm_pieces, crit, data)
+
+
+def _draw(cycle: Any, window: Window, system: str, width: float, height: float, title: str) -> Drawing:
+    h_unit = _units.DISPLAY_UNITS[system]["specific_energy"]
+    s_unit = _units.DISPLAY_UNITS[system]["specific_heat"]
+    hd = _units.unit_for("specific_energy", h_unit).from_si  # display value of an SI enthalpy
+    pd = _units.unit_for("pressure", _units.DISPLAY_UNITS[system]["pressure"]).from_si
+
+    plot = _plot(window, system, width, height, title)
+    x0, y0, x1, y1 = plot.x0, plot.y0, plot.x1, plot.y1
+    h_lo, h_hi, lp_lo, lp_hi = plot.h_lo, plot.h_hi, plot.lp_lo, plot.lp_hi
+    strip = 52.0
+    box = (x0, y0, x1, y1)
+    states = cycle_states(cycle)
+    s1, s2, s3, s4 = cycle.states
+    evap_out = cycle.evaporator_outlet
+
+    def X(h_si: float) -> float:
+        return x0 + (x1 - x0) * (hd(h_si) - h_lo) / (h_hi - h_lo)
+
+    def Y(p_si: float) -> float:
+        return y0 + (y1 - y0) * (math.log10(pd(p_si)) - lp_lo) / (lp_hi - lp_lo)
+
+    drawing = Drawing(width, height)
+    if title:
+        drawing.add(String(0, height - 10.0, clean(title), fontName=FONT_BOLD, fontSize=9, fillColor=INK))
+    bg = _background(cycle.refrigerant, window, system, plot)
+    drawing.contents.extend(bg.shapes)
+    occupied = _Occupancy()  # everything drawn
+    occupied.cells = set(bg.occupied)
+    strong = _Occupancy()  # the dome, the cycle, markers and labels: never covered
+    strong.cells = set(bg.strong)
+    data, crit = bg.data, bg.crit
+    quality_pieces, isentrope_pieces, isotherm_pieces = bg.quality_pieces, bg.isentrope_pieces, bg.isotherm_pieces
 
     # --- SST / SCT isobars across the chart --------------------------------------------------
     isobars = [(cycle.evaporating_pressure, f"SST {_temperature_text(cycle.evaporating_temperature, system)} dew")]
@@ -579,31 +665,35 @@ def _draw(cycle: Any, data: Any, window: Window, system: str, width: float, heig
     _legend(drawing, x0, x1, 4.0, s_unit)
 
     # --- labels -----------------------------------------------------------------------------------------
-    def place(text: str, candidates: Iterable[tuple[float, float]], color: Any, size: float = 6.3,
-              bold: bool = False, anchor: str = "start", pad: float = 0.8, patch_only: bool | None = None) -> bool:
-        """Put *text* at the first candidate where nothing is drawn; failing that, at the first
-        where only thin lines are, on a patch of the plot's background that hides them."""
+    def place(text: str, candidates: Iterable[tuple], color: Any, size: float = 6.3,
+              bold: bool = False, anchor: str = "start", pad: float = 0.8,
+              patch_only: bool | None = None) -> tuple[float, float] | None:
+        """Put *text* at the first candidate (x, y) or (x, y, anchor) where nothing is drawn;
+        failing that, at the first where only thin lines are, on a patch of the plot's
+        background that hides them. Returns the (x, y) used, or None."""
         font = FONT_BOLD if bold else FONT
         w = stringWidth(text, font, size)
         boxes = []
-        for x, y in candidates:
-            bx0 = x if anchor == "start" else x - w if anchor == "end" else x - w / 2
+        for cand in candidates:
+            x, y = cand[0], cand[1]
+            a = cand[2] if len(cand) > 2 else anchor
+            bx0 = x if a == "start" else x - w if a == "end" else x - w / 2
             bx1 = bx0 + w
             by0, by1 = y - 1.6, y + size * 0.76
             if bx0 < x0 + 1 or bx1 > x1 - 1 or by0 < y0 + 1 or by1 > y1 - 1:
                 continue
-            boxes.append((x, y, bx0 - pad, by0 - pad, bx1 + pad, by1 + pad))
+            boxes.append((x, y, a, bx0 - pad, by0 - pad, bx1 + pad, by1 + pad))
         for patch in ((False, True) if patch_only is None else (patch_only,)):
             grid = strong if patch else occupied
-            for x, y, a, b, c, d in boxes:
-                if grid.free(a, b, c, d):
+            for x, y, a, ba, bb, bc, bd in boxes:
+                if grid.free(ba, bb, bc, bd):
                     if patch:
-                        drawing.add(Rect(a, b, c - a, d - b, fillColor=PLOT_BG, strokeColor=None))
-                    drawing.add(String(x, y, text, fontName=font, fontSize=size, fillColor=color, textAnchor=anchor))
-                    occupied.box(a, b, c, d)
-                    strong.box(a, b, c, d)
-                    return True
-        return False
+                        drawing.add(Rect(ba, bb, bc - ba, bd - bb, fillColor=PLOT_BG, strokeColor=None))
+                    drawing.add(String(x, y, text, fontName=font, fontSize=size, fillColor=color, textAnchor=a))
+                    occupied.box(ba, bb, bc, bd)
+                    strong.box(ba, bb, bc, bd)
+                    return (x, y)
+        return None
 
     def along(pieces: Sequence[Sequence[tuple[float, float]]], dx: float, dy: float, every: int = 3) -> list[tuple[float, float]]:
         out = []
@@ -625,13 +715,13 @@ def _draw(cycle: Any, data: Any, window: Window, system: str, width: float, heig
 
     def place_near(text: str, x: float, y: float, color: Any, size: float, bold: bool = False,
                    radii: Sequence[float] = (6, 10, 15, 22, 30, 40, 52, 66)) -> bool:
-        for cx, cy, anchor in ring_around(x, y, size, radii):
-            if place(text, [(cx, cy)], color, size, bold=bold, anchor=anchor, pad=0.4, patch_only=False):
-                if math.dist((cx, cy + size * 0.35), (x, y)) > 12:
-                    drawing.add(Line(x, y, cx, cy + size * 0.35, strokeColor=color, strokeWidth=0.35))
-                return True
-        for cx, cy, anchor in ring_around(x, y, size, radii):
-            if place(text, [(cx, cy)], color, size, bold=bold, anchor=anchor, pad=0.4, patch_only=True):
+        """*text* near (x, y): the first free spot around it, then the first over thin lines only;
+        a leader line when it sits more than 12 pt away."""
+        ring = ring_around(x, y, size, radii)
+        for patch in (False, True):
+            spot = place(text, ring, color, size, bold=bold, pad=0.4, patch_only=patch)
+            if spot is not None:
+                cx, cy = spot
                 if math.dist((cx, cy + size * 0.35), (x, y)) > 12:
                     drawing.add(Line(x, y, cx, cy + size * 0.35, strokeColor=color, strokeWidth=0.35))
                 return True

@@ -53,6 +53,7 @@ from coldroom.report.layout import (
     LABEL,
     SMALL,
     TINY,
+    cell_text,
     figure_boxes,
     grid,
     heading,
@@ -413,20 +414,26 @@ def basis_section(ctx: SheetContext, index: int) -> list:
     w = ctx.width
     label_style = ParagraphStyle("g", parent=CELL_SMALL, fontName="Helvetica-Bold", textColor=ACCENT)
     data = []
+    pad = 4 + 6  # left padding below + reportlab's default right padding
     for r, (a, b) in enumerate(rows):
         if r in group_rows:
-            data.append([Paragraph(esc(a), label_style), ""])
+            data.append([cell_text(a, label_style, 0.36 * w, pad), ""])
         else:
-            data.append([Paragraph(esc(a), CELL_SMALL), Paragraph(esc(b), CELL_SMALL)])
+            data.append([cell_text(a, CELL_SMALL, 0.36 * w, pad), cell_text(b, CELL_SMALL, 0.64 * w, pad)])
     table = Table(data, colWidths=[0.36 * w, 0.64 * w], hAlign="LEFT")
     commands = [
         ("VALIGN", (0, 0), (-1, -1), "TOP"),
         ("LEFTPADDING", (0, 0), (-1, -1), 4),
         ("TOPPADDING", (0, 0), (-1, -1), 1.4),
         ("BOTTOMPADDING", (0, 0), (-1, -1), 1.4),
+        ("FONT", (0, 0), (-1, -1), CELL_SMALL.fontName, CELL_SMALL.fontSize, CELL_SMALL.leading),
+        ("TEXTCOLOR", (0, 0), (-1, -1), CELL_SMALL.textColor),
     ]
     for r in group_rows:
-        commands += [("LINEBELOW", (0, r), (-1, r), 0.5, RULE), ("TOPPADDING", (0, r), (-1, r), 5)]
+        commands += [("LINEBELOW", (0, r), (-1, r), 0.5, RULE), ("TOPPADDING", (0, r), (-1, r), 5),
+                     ("FONT", (0, r), (-1, r), label_style.fontName, label_style.fontSize, label_style.leading),
+                     ("TEXTCOLOR", (0, r), (-1, r), label_style.textColor),
+                     ("FONT", (1, r), (1, r), "Helvetica", 10, 12)]  # the empty cell: reportlab's default, as before
     table.setStyle(TableStyle(commands))
     return [heading("Basis of design"), table]
 

@@ -72,3 +72,35 @@ def test_energy_balance_with_freezing() -> None:
     lost_air = c_air * (air[0] - air[-1])
     assert BEEF.freezing_point > r.products[0].temperature[-1]  # it froze on the way
     assert removed == pytest.approx(lost_product + lost_air, rel=0.01)
+
+
+# --- the vectorised h → T inversion is np.interp, bit for bit ------------------------------------
+
+
+@settings(max_examples=60)
+@given(
+    steps=st.lists(st.lists(st.floats(min_value=1e-3, max_value=5e4), min_size=6, max_size=6), min_size=1, max_size=5),
+    picks=st.lists(st.floats(min_value=-0.2, max_value=1.2), min_size=5, max_size=5),
+    on_grid=st.integers(min_value=0, max_value=5),
+)
+def test_inverse_is_np_interp_row_by_row(steps, picks, on_grid):
+    """The pull-down's one-step inversion of all masses' tables equals np.interp per mass
+    exactly (==), below, inside, on a grid point and above each table (the reference is
+    numpy's own np.interp)."""
+    from coldroom.pulldown import _Inverse
+
+    temps = [-40.0 + 10.0 * k for k in range(7)]
+    tables = []
+    for row in steps:
+        h = [-1e5]
+        for d in row:
+            h.append(h[-1] + d)
+        tables.append((h, temps))
+    for pick in picks:
+        x = []
+        for h, _ in tables:
+            lo, hi = h[0], h[-1]
+            x.append(h[on_grid] if pick < 0.0 and on_grid < len(h) else lo + pick * (hi - lo))
+        got = _Inverse(tables)(np.array(x))
+        want = [np.interp(x[i], tables[i][0], temps) for i in range(len(tables))]
+        assert list(got) == want

@@ -207,3 +207,77 @@ def test_every_plain_surprise_is_rejected_or_read_as_its_yaml12_value(word):
     else:
         assert is_surprise(word)
         assert re.fullmatch("|".join(f"(?:{p})" for p in _YAML12_CORE), word.strip())
+
+
+# --- 4: the libyaml fast path and the pure-Python loader agree ------------------------------------
+
+
+def _both(source):
+    """(fast path result or None, pure-Python result or the ProjectFileError)."""
+    import coldroom.safeyaml as sy
+
+    if sy._CLoader is None:  # PyYAML built without libyaml: there is no fast path to check
+        return None, None
+    text = source if isinstance(source, str) else None
+    fast = None
+    if text is not None:
+        fast = sy._compose_fast(text, "f.yaml", sy.MAX_DEPTH, sy.MAX_ALIASES, sy.MAX_NODES)
+    saved = sy._CLoader
+    sy._CLoader = None
+    try:
+        try:
+            slow = load_yaml(source, "f.yaml")
+        except ProjectFileError as exc:
+            slow = exc
+    finally:
+        sy._CLoader = saved
+    return fast, slow
+
+
+def _agree(source) -> None:
+    fast, slow = _both(source)
+    if fast is None:
+        return  # declined (or no libyaml): the pure-Python loader decides, as load_yaml does
+    # whatever the fast path accepts, the pure-Python loader accepts with the same data and marks
+    assert not isinstance(slow, ProjectFileError), (source, slow)
+    assert fast.data == slow.data
+    assert dict(fast.marks) == dict(slow.marks)
+    assert dict(fast.value_marks) == dict(slow.value_marks)
+
+
+@given(st.lists(st.sampled_from(TOKENS), max_size=200))
+def test_fast_loader_agrees_on_token_soup(tokens):
+    _agree("".join(tokens))
+
+
+@given(st.text(max_size=400))
+def test_fast_loader_agrees_on_random_text(source):
+    _agree(source)
+
+
+@given(documents, st.sampled_from([None, True, False]))
+def test_fast_loader_agrees_on_dumped_documents(data, flow):
+    dumped = yaml.safe_dump(data, default_flow_style=flow, allow_unicode=True, sort_keys=False)
+    fast, slow = _both(dumped)
+    if fast is not None:
+        assert fast.data == slow.data == data
+        assert dict(fast.marks) == dict(slow.marks)
+
+
+def test_fast_loader_agrees_on_every_project_and_hostile_file():
+    from pathlib import Path
+
+    root = Path(__file__).resolve().parents[2]
+    files = sorted(root.glob("project_files/*.yaml")) + sorted(root.glob("tests/data/**/*.yaml"))
+    assert len(files) > 50
+    accepted = 0
+    for path in files:
+        raw = path.read_bytes()
+        try:
+            text = raw.decode("utf-8-sig")
+        except UnicodeDecodeError:
+            continue
+        _agree(text)
+        fast, _ = _both(text)
+        accepted += fast is not None
+    assert accepted >= 8  # the demo projects at least go the fast way
