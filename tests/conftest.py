@@ -22,3 +22,21 @@ settings.load_profile("coldroom")
 REPO = Path(__file__).resolve().parent.parent
 PROJECT_FILES = REPO / "project_files"
 TEST_DATA = Path(__file__).resolve().parent / "data"
+
+
+def pytest_sessionfinish(session, exitstatus):  # noqa: ARG001 - pytest's hook signature
+    """Let go of the CoolProp states the project caches (memoised functions, module-level tables)
+    before the interpreter exits, so CoolProp's binding layer finds nothing alive at shutdown
+    (under pytest-xdist each worker's exit otherwise prints "nanobind: leaked N instances")."""
+    import gc
+    import sys
+
+    for name, module in list(sys.modules.items()):
+        if not (name == "coldroom" or name.startswith("coldroom.")) or module is None:
+            continue
+        for value in list(vars(module).values()):
+            if callable(getattr(value, "cache_clear", None)):
+                value.cache_clear()
+            elif isinstance(value, dict) and any(type(v).__module__.startswith("CoolProp") for v in list(value.values())[:1]):
+                value.clear()
+    gc.collect()

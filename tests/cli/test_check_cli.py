@@ -21,6 +21,8 @@ def run(*args: str) -> subprocess.CompletedProcess[str]:
 
 
 def test_check_demo_prints_the_verdict() -> None:
+    # the process-level run of `coldroom check` (interpreter start, CoolProp import ~2 s, the
+    # balance-point and highest-ambient searches): about 3-5 s, the one slow test of this file
     result = run("check", str(DEMO))
     assert result.returncode == 0, result.stderr
     out = result.stdout
@@ -33,8 +35,13 @@ def test_check_demo_prints_the_verdict() -> None:
 
 
 def test_check_json_to_stdout() -> None:
-    result = run("check", str(DEMO), "--json", "-")
-    assert result.returncode == 0, result.stderr
+    # in-process (typer's CliRunner, separate stdout and stderr): the process path is the test above
+    from typer.testing import CliRunner
+
+    from coldroom.cli import app
+
+    result = CliRunner().invoke(app, ["check", str(DEMO), "--json", "-"])
+    assert result.exit_code == 0, result.stderr
     data = json.loads(result.stdout, parse_constant=_not_json)  # only strict JSON on stdout; the text goes to stderr
     assert "verdict" in result.stderr
     room = data["rooms"][0]

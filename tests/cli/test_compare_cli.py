@@ -23,8 +23,20 @@ def run(*args: str) -> subprocess.CompletedProcess[str]:
     return subprocess.run([sys.executable, "-m", "coldroom", *args], capture_output=True, text=True, timeout=180)
 
 
+def invoke(*args: str) -> subprocess.CompletedProcess[str]:
+    """The command in-process (typer's CliRunner), in the shape of :func:`run`."""
+    from typer.testing import CliRunner
+
+    from coldroom.cli import app
+
+    r = CliRunner().invoke(app, list(args))
+    return subprocess.CompletedProcess(list(args), r.exit_code, r.stdout, r.stderr)
+
+
 @pytest.fixture(scope="module")
 def demo(tmp_path_factory: pytest.TempPathFactory) -> dict:
+    # the process-level runs of `compare` (every option over a year of hourly bins) and `size`,
+    # shared by the tests below: 5-8 s in all, once per module
     folder = tmp_path_factory.mktemp("compare")
     pdf = folder / "compare.pdf"
     done = run("compare", str(DEMO), "--json", "-", "--out", str(pdf))
@@ -90,14 +102,14 @@ def test_weather_file_relative_to_the_project(tmp_path: Path) -> None:
     text = COOLER.read_text(encoding="utf-8").replace("design:\n", "design:\n  weather: site/w.epw\n", 1)
     project = tmp_path / "p.yaml"
     project.write_text(text, encoding="utf-8")
-    done = run("compare", str(project), "--json", "-")
+    done = invoke("compare", str(project), "--json", "-")
     assert done.returncode == 0, done.stderr
     result = json.loads(done.stdout)
     assert sum(b["hours_h"] for b in result["ambient_bins"]) == 8760
     assert "w.epw" in result["ambient_source"]
     # a missing weather file is a located error too
     project.write_text(text.replace("site/w.epw", "site/none.epw"), encoding="utf-8")
-    done = run("compare", str(project))
+    done = invoke("compare", str(project))
     assert done.returncode == 65 and "not found" in done.stderr
 
 
@@ -106,7 +118,7 @@ def test_r744_project_is_sized_transcritical(tmp_path: Path) -> None:
     assert "R-744" in text
     project = tmp_path / "co2.yaml"
     project.write_text(text, encoding="utf-8")
-    done = run("size", str(project), "--out", str(tmp_path / "co2.pdf"), "--json", "-")
+    done = invoke("size", str(project), "--out", str(tmp_path / "co2.pdf"), "--json", "-")
     assert done.returncode == 0, done.stderr
     cycle = json.loads(done.stdout)["rooms"][0]["cycle"]
     assert cycle["transcritical"] is True

@@ -42,7 +42,8 @@ def run(*args: str) -> Result:
 
 
 def test_real_process_exit_codes_and_stdout():
-    # one end-to-end run through `python -m coldroom` (a fresh process)
+    # one end-to-end run through `python -m coldroom` (a fresh process; two interpreter starts and
+    # one CoolProp import: about 3 s, the price of checking the real exit codes and streams)
     ok = subprocess.run([*COLDROOM, "cycle", "-r", "R134a", "--evaporating", "-10", "--condensing", "40",
                          "--capacity", "5 kW", "--json"], capture_output=True, text=True, timeout=120)
     assert ok.returncode == 0 and json.loads(ok.stdout)["refrigerant"] == "R-134a"
@@ -58,7 +59,8 @@ def test_listing_and_help_do_not_import_coolprop(args):
 
 
 def test_probe_detects_coolprop_when_cycle_runs():
-    # the probe itself can fail: a real cycle does import CoolProp
+    # the probe itself can fail: a real cycle does import CoolProp (a fresh process that imports
+    # CoolProp: 2-3 s, needed to show the import probe above can see CoolProp at all)
     args = ["cycle", "--refrigerant", "R134a", "--evaporating", "-10", "--condensing", "40", "--capacity", "5 kW"]
     result = subprocess.run([sys.executable, "-c", PROBE, *args], capture_output=True, text=True, timeout=60)
     assert result.stdout.strip().splitlines()[-1] == "COOLPROP:True"

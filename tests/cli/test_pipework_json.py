@@ -19,11 +19,13 @@ LINE_KEYS = {
 
 def test_size_json_has_the_pipework_contract(tmp_path: Path) -> None:
     out = tmp_path / "result.json"
-    result = subprocess.run(
-        [sys.executable, "-m", "coldroom", "size", str(DEMO), "--out", str(tmp_path / "s.pdf"), "--json", str(out)],
-        capture_output=True, text=True, timeout=120,
-    )
-    assert result.returncode == 0, result.stderr
+    # in-process (typer's CliRunner): the same command from arguments to files, no interpreter start
+    from typer.testing import CliRunner
+
+    from coldroom.cli import app
+
+    result = CliRunner().invoke(app, ["size", str(DEMO), "--out", str(tmp_path / "s.pdf"), "--json", str(out)])
+    assert result.exit_code == 0, result.stderr
     system = json.loads(out.read_text(encoding="utf-8"))["systems"][0]
     piping = system["piping"]
     assert piping["tube_series"] == "EN 12735-1"

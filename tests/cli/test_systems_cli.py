@@ -22,11 +22,13 @@ SYSTEM_KEYS = {
 @pytest.fixture(scope="module")
 def sized(tmp_path_factory):
     out = tmp_path_factory.mktemp("combo")
-    result = subprocess.run(
-        [sys.executable, "-m", "coldroom", "size", str(COMBO), "--out", str(out / "combo.pdf"), "--json", "-"],
-        capture_output=True, text=True, timeout=120,
-    )
-    assert result.returncode == 0, result.stderr
+    # in-process (typer's CliRunner, separate stdout and stderr): no interpreter start per module
+    from typer.testing import CliRunner
+
+    from coldroom.cli import app
+
+    result = CliRunner().invoke(app, ["size", str(COMBO), "--out", str(out / "combo.pdf"), "--json", "-"])
+    assert result.exit_code == 0, result.stderr
     return json.loads(result.stdout), result.stderr
 
 
