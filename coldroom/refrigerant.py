@@ -889,9 +889,13 @@ class Fluid:
             lo, hi = self.minimum_temperature + KELVIN, t_sat
         st.specify_phase(phase)
         try:
-            # first guess from the saturation state's heat capacity
-            st.update(CP.PT_INPUTS, pressure, t_sat)
+            # first guess from the saturation state's heat capacity (its density seeds the solve)
             guess = PyGuessesStructure()
+            if sat.density > 0.0 and math.isfinite(sat.density):
+                guess.rhomolar = sat.density / st.molar_mass()
+                st.update_with_guesses(CP.PT_INPUTS, pressure, t_sat, guess)
+            else:
+                st.update(CP.PT_INPUTS, pressure, t_sat)
             cp = st.cpmass()
             if prop == "h":
                 t = t_sat + (target - sat_value) / cp
