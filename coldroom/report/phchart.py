@@ -34,6 +34,7 @@ from typing import Any, Iterable, Sequence
 
 from reportlab.graphics.shapes import Circle, Drawing, Group, Line, PolyLine, Polygon, Rect, String
 from reportlab.lib import colors
+from reportlab.platypus.flowables import Flowable
 from reportlab.pdfbase.pdfmetrics import stringWidth
 
 from coldroom import units as _units
@@ -326,17 +327,29 @@ def _clip(points: Sequence[tuple[float, float]], box: tuple[float, float, float,
 
 
 class _Occupancy:
-    """Which cells (2 pt square) of the drawing something already covers."""
+    """Which cells (2 pt square) of the drawing something already covers.
+
+    One integer per row of cells, bit i set when cell i of that row is covered
+    (cells left of the drawing's origin are shifted by :attr:`SHIFT` bits), so a
+    label's box is marked and tested a row at a time.
+    """
 
     CELL = 2.0
+    SHIFT = 4096  # bit position of cell column 0; columns left of -SHIFT share bit 0
 
-    def __init__(self) -> None:
-        self.cells: set[tuple[int, int]] = set()
+    def __init__(self, rows: dict[int, int] | None = None) -> None:
+        self.rows: dict[int, int] = dict(rows) if rows else {}
 
     def line(self, points: Sequence[tuple[float, float]], pad: float = 0.6) -> None:
         """Mark the cells under a polyline, widened by *pad* [pt] across it (sampled every 1.6 pt)."""
         c = self.CELL
-        add = self.cells.add
+        rows = self.rows
+        shift = self.SHIFT
+
+        def mark(x: float, y: float) -> None:
+            j = int(y // c)
+            rows[j] = rows.get(j, 0) | (1 << max(int(x // c) + shift, 0))
+
         for a, b in zip(points, points[1:]):
             length = math.dist(a, b)
             n = max(1, int(length / 1.6))
@@ -345,23 +358,29 @@ class _Occupancy:
             ox, oy = (-dy * pad / (length / n), dx * pad / (length / n)) if length > 0 else (pad, pad)
             for k in range(n + 1):
                 x, y = a[0] + dx * k, a[1] + dy * k
-                add((int(x // c), int(y // c)))
-                add((int((x + ox) // c), int((y + oy) // c)))
-                add((int((x - ox) // c), int((y - oy) // c)))
+                mark(x, y)
+                mark(x + ox, y + oy)
+                mark(x - ox, y - oy)
+
+    def _bits(self, x0: float, x1: float) -> int:
+        c, shift = self.CELL, self.SHIFT
+        i0, i1 = max(int(x0 // c) + shift, 0), max(int(x1 // c) + shift, 0)
+        return ((1 << (i1 - i0 + 1)) - 1) << i0
 
     def box(self, x0: float, y0: float, x1: float, y1: float) -> None:
         c = self.CELL
-        js = range(int(y0 // c), int(y1 // c) + 1)
-        self.cells.update([(i, j) for i in range(int(x0 // c), int(x1 // c) + 1) for j in js])
+        bits = self._bits(x0, x1)
+        rows = self.rows
+        for j in range(int(y0 // c), int(y1 // c) + 1):
+            rows[j] = rows.get(j, 0) | bits
 
     def free(self, x0: float, y0: float, x1: float, y1: float) -> bool:
         c = self.CELL
-        cells = self.cells
-        js = range(int(y0 // c), int(y1 // c) + 1)
-        for i in range(int(x0 // c), int(x1 // c) + 1):
-            for j in js:
-                if (i, j) in cells:
-                    return False
+        bits = self._bits(x0, x1)
+        rows = self.rows
+        for j in range(int(y0 // c), int(y1 // c) + 1):
+            if rows.get(j, 0) & bits:
+                return False
         return True
 
 
@@ -426,13 +445,14 @@ class _Background:
     """The part of a chart that depends on the refrigerant and the window only (cached)."""
 
     shapes: list[Any]  # frame, grid, ticks, axis titles, lines, dome, critical point, in drawing order
-    occupied: frozenset[tuple[int, int]]  # cells covered by anything
-    strong: frozenset[tuple[int, int]]  # cells covered by the dome and the critical point
+    occupied: dict[int, int]  # cells covered by anything (rows of _Occupancy; never changed)
+    strong: dict[int, int]  # cells covered by the dome and the critical point
     quality_pieces: list[tuple[float, list[list[tuple[float, float]]]]]
     isentrope_pieces: list[tuple[float, list[list[tuple[float, float]]]]]
     isotherm_pieces: list[tuple[float, list[list[tuple[float, float]]]]]
     crit: tuple[float, float]
     data: Any
+    name: str = ""  # a stable name for the background (a digest of its cache key)
 
 
 def _plot(window: Window, system: str, width: float, height: float, title: str) -> _Plot:
@@ -471,6 +491,9 @@ def _background(refrigerant: str, window: Window, system: str, plot: _Plot) -> _
         if len(_BACKGROUNDS) >= 64:
             _BACKGROUNDS.clear()
         found = _BACKGROUNDS[key] = _build_background(refrigerant, window, system, plot)
+        import hashlib
+
+        found.name = "phchart" + hashlib.sha1(repr(key).encode("utf-8")).hexdigest()[:16]
     return found
 
 
@@ -574,7 +597,7 @@ def _build_background(refrigerant: str, window: Window, system: str, plot: _Plot
         drawing.add(Polygon([cx, cy + 3.4, cx + 3.4, cy, cx, cy - 3.4, cx - 3.4, cy], fillColor=DOME, strokeColor=None))
         occupied.box(cx - 4, cy - 4, cx + 4, cy + 4)
         strong.box(cx - 4, cy - 4, cx + 4, cy + 4)
-    return _Background(list(drawing.contents), frozenset(occupied.cells), frozenset(strong.cells),
+    return _Background(list(drawing.contents), occupied.rows, strong.rows,
                        quality_pieces, isentrope_pieces, isotherm_pieces, crit, data)
 
 
@@ -603,11 +626,11 @@ def _draw(cycle: Any, window: Window, system: str, width: float, height: float, 
     if title:
         drawing.add(String(0, height - 10.0, clean(title), fontName=FONT_BOLD, fontSize=9, fillColor=INK))
     bg = _background(cycle.refrigerant, window, system, plot)
+    start = len(drawing.contents)
     drawing.contents.extend(bg.shapes)
-    occupied = _Occupancy()  # everything drawn
-    occupied.cells = set(bg.occupied)
-    strong = _Occupancy()  # the dome, the cycle, markers and labels: never covered
-    strong.cells = set(bg.strong)
+    drawing._shared_background = (start, len(drawing.contents), bg.name)  # for SharedBackgroundChart
+    occupied = _Occupancy(bg.occupied)  # everything drawn (a copy of the background's)
+    strong = _Occupancy(bg.strong)  # the dome, the cycle, markers and labels: never covered
     data, crit = bg.data, bg.crit
     quality_pieces, isentrope_pieces, isotherm_pieces = bg.quality_pieces, bg.isentrope_pieces, bg.isotherm_pieces
 
@@ -793,3 +816,42 @@ def _legend(drawing: Drawing, x0: float, x1: float, y: float, s_unit: str) -> No
         drawing.add(Line(x, y + 2.2, x + 16, y + 2.2, strokeColor=color, strokeWidth=lw, strokeDashArray=dash))
         drawing.add(String(x + 20, y, text, fontName=FONT, fontSize=6.3, fillColor=INK))
         x += w
+
+
+class SharedBackgroundChart(Flowable):
+    """A chart from :func:`ph_chart` that draws its background into a PDF form once per document.
+
+    The sizing sheet has one chart per room, and rooms on one refrigerant mostly share
+    a background (frame, grid, dome and the lines of constant temperature, entropy and
+    quality): the first chart defines it as a form XObject, every chart shows it by
+    name and draws only its own title, cycle and labels on top. The page looks the same
+    as with the plain drawing; the PDF is smaller and quicker to write. Other renderers
+    (SVG) take the plain drawing.
+    """
+
+    def __init__(self, drawing: Drawing) -> None:
+        super().__init__()
+        self.drawing = drawing
+        self.width, self.height = drawing.width, drawing.height
+        self.hAlign = getattr(drawing, "hAlign", "LEFT")
+
+    def wrap(self, available_width: float, available_height: float) -> tuple[float, float]:
+        return self.drawing.wrap(available_width, available_height)
+
+    def draw(self) -> None:
+        from reportlab.graphics import renderPDF
+
+        d, canv = self.drawing, self.canv
+        span = getattr(d, "_shared_background", None)
+        if span is None:
+            renderPDF.draw(d, canv, 0, 0)
+            return
+        start, end, name = span
+        if not canv.hasForm(name):
+            canv.beginForm(name, -60.0, -60.0, d.width + 60.0, d.height + 60.0)
+            renderPDF.draw(Drawing(d.width, d.height, *d.contents[start:end]), canv, 0, 0)
+            canv.endForm()
+        if start:
+            renderPDF.draw(Drawing(d.width, d.height, *d.contents[:start]), canv, 0, 0)
+        canv.doForm(name)
+        renderPDF.draw(Drawing(d.width, d.height, *d.contents[end:]), canv, 0, 0)

@@ -611,11 +611,11 @@ def _cycle_flowables(ctx: SheetContext, cycle: Any, remark: str = "") -> list:
 
 def _ph_chart(ctx: SheetContext, cycle: Any) -> Any:
     from coldroom.errors import ColdroomError
-    from coldroom.report.phchart import ph_chart
+    from coldroom.report.phchart import SharedBackgroundChart, ph_chart
 
     try:
-        return ph_chart(cycle, ctx.system, ctx.width, ctx.width * 0.78,
-                        title=f"Pressure–enthalpy chart, {cycle.refrigerant}")
+        return SharedBackgroundChart(ph_chart(cycle, ctx.system, ctx.width, ctx.width * 0.78,
+                                              title=f"Pressure–enthalpy chart, {cycle.refrigerant}"))
     except ColdroomError:
         return note("The pressure–enthalpy chart could not be drawn for this refrigerant.", SMALL)
 
