@@ -266,6 +266,98 @@ def _isotherm(fluid, temperature: float, p_low: float, p_high: float, grid: Sequ
     return ChartLine("isotherm", float(temperature), tuple(s for s, _ in segments_kept), tuple(ph for _, ph in segments_kept))
 
 
+#: A mixture's isotherms from this far below its critical temperature up to
+#: :data:`BAND_ABOVE` above it are drawn by :func:`_near_critical_isotherm` where
+#: the saturation look-ups of :func:`_isotherm` fail [K].
+BAND_BELOW, BAND_ABOVE = 10.0, 3.0
+#: Single-phase states of a near-critical isotherm keep this relative distance in
+#: pressure from the traced phase envelope (its crossings are interpolated).
+ENVELOPE_MARGIN = 0.01
+
+
+def _near_critical_isotherm(fluid, temperature: float, p_low: float, p_high: float,
+                            grid: Sequence[_Level]) -> ChartLine | None:
+    """A mixture's isotherm next to its critical temperature, where no saturation
+    state at *temperature* can be computed (CoolProp's T–Q flash fails there).
+
+    The phase envelope of the bulk composition says where the isotherm enters
+    and leaves the two-phase region (:func:`coldroom.refrigerant.envelope_crossings`).
+    Outside it, by more than :data:`ENVELOPE_MARGIN` in pressure, the states are
+    P–T states of the one phase there (vapour below, liquid or dense gas above;
+    with no crossing, one supercritical piece); inside, the two-phase grid's
+    levels give the points the saturation functions reach (none, mostly, so
+    close to the critical point). Where no state can be computed the line has
+    a gap. The tests check every point against CoolProp's P–H flash.
+    """
+    from coldroom.refrigerant import chart_state_pt, envelope_crossings
+
+    try:
+        crossings = envelope_crossings(fluid, temperature)
+    except PropertyRangeError:
+        return None
+
+    def run(pressures: Sequence[float], order: Sequence[str]) -> tuple[Point, ...]:
+        out = []
+        for p in pressures:
+            for phase in order:
+                try:
+                    s = chart_state_pt(fluid, p, temperature, phase)
+                except PropertyRangeError:
+                    continue
+                out.append((s.h, s.p))
+                break
+        return tuple(out)
+
+    segments: list[tuple[Point, ...]] = []
+    phases: list[str] = []
+    if not crossings:
+        # one phase at every pressure: above the envelope's highest temperature
+        line = run(_geometric(p_high, p_low, 30) + _near_pressures(fluid.critical_pressure, p_low, p_high), ("gas", "liquid"))
+        segments.append(tuple(sorted(set(line), key=lambda pt: -pt[1])))
+        phases.append("supercritical")
+    else:
+        enter, leave = crossings[0], crossings[-1]
+        top = leave * (1.0 + ENVELOPE_MARGIN)
+        if top < p_high:
+            segments.append(run(_geometric(top, p_high, 12, 1.6), ("liquid",)))
+            phases.append("liquid")
+        wet = [
+            (level.enthalpy(level.quality_at(temperature)), level.pressure)
+            for level in reversed(grid)
+            if enter < level.pressure < leave and level.temperatures[0] < temperature < level.temperatures[-1]
+        ]
+        segments.append(tuple(wet))
+        phases.append("two-phase")
+        bottom = enter * (1.0 - ENVELOPE_MARGIN)
+        if bottom > p_low:
+            # CoolProp's gas-phase P–T solver sometimes fails right next to the dew
+            # line: extra pressures there keep the gap short
+            near = [bottom * f for f in (0.99, 0.98, 0.96) if bottom * f > p_low]
+            pressures = sorted(set(_geometric(bottom, p_low, 14, 1.5) + near), reverse=True)
+            segments.append(run(pressures, ("gas",)))
+            phases.append("vapour")
+    kept = [(s, ph) for s, ph in zip(segments, phases) if len(s) >= 2]
+    if not kept:
+        return None
+    return ChartLine("isotherm", float(temperature), tuple(s for s, _ in kept), tuple(ph for _, ph in kept))
+
+
+def _near_pressures(pressure: float, p_low: float, p_high: float) -> list[float]:
+    """Extra pressures within ±15 % of *pressure* (an isotherm bends sharply there)."""
+    return [pressure * f for f in (0.85, 0.9, 0.94, 0.97, 0.99, 1.01, 1.03, 1.06, 1.1, 1.15)
+            if p_low < pressure * f < p_high]
+
+
+def _any_isotherm(fluid, temperature: float, p_low: float, p_high: float, grid: Sequence[_Level]) -> ChartLine | None:
+    """:func:`_isotherm`, and for a mixture next to its critical temperature,
+    where that finds no line, :func:`_near_critical_isotherm`."""
+    line = _isotherm(fluid, temperature, p_low, p_high, grid)
+    tc = fluid.critical_temperature
+    if line is None and fluid.info.model == "mixture" and tc - BAND_BELOW < temperature < tc + BAND_ABOVE:
+        line = _near_critical_isotherm(fluid, temperature, p_low, p_high, grid)
+    return line
+
+
 def _pseudo_pure_two_phase(fluid, pressure: float, temperature: float) -> float:
     """Enthalpy [J/kg] of a pseudo-pure blend's two-phase state at *pressure* and *temperature*.
 
@@ -372,7 +464,7 @@ def chart_data(
     bubble, dew = _dome(fluid, p_low, grid)
     isotherms = tuple(
         line
-        for line in (_isotherm(fluid, t, p_low, pressure_high, grid) for t in isotherm_temperatures)
+        for line in (_any_isotherm(fluid, t, p_low, pressure_high, grid) for t in isotherm_temperatures)
         if line is not None
     )
     isentropes = tuple(

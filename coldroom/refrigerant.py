@@ -1329,6 +1329,7 @@ def get_fluid(name: str | RefrigerantInfo) -> Fluid:
 
 _CHART_STATES: dict[tuple[str, str], AbstractState] = {}
 _ENVELOPES: dict[str, tuple[tuple[tuple[float, float], ...], tuple[tuple[float, float], ...]]] = {}
+_ENVELOPE_POINTS: dict[str, tuple[tuple[float, float, float], ...]] = {}
 
 
 def _chart_state(fluid: Fluid, purpose: str = "states") -> AbstractState:
@@ -1337,6 +1338,35 @@ def _chart_state(fluid: Fluid, purpose: str = "states") -> AbstractState:
     if st is None:
         st = _CHART_STATES[key] = AbstractState("HEOS", fluid.info.coolprop_name)
     return st
+
+
+def _envelope_points(fluid: Fluid) -> tuple[tuple[float, float, float], ...]:
+    """A mixture's phase envelope as CoolProp traces it [ref:coolprop]: (T [°C], p [Pa],
+    h [J/kg] of the bulk composition) from the dew branch's low end over the point
+    of highest pressure to the bubble branch's low end; non-finite points left out.
+    Computed once per mixture and process (about 0.2 s)."""
+    name = fluid.info.name
+    found = _ENVELOPE_POINTS.get(name)
+    if found is not None:
+        return found
+    if fluid.info.model != "mixture":
+        raise PropertyRangeError(f"{name}: a phase envelope is traced for mixtures only")
+    st = _chart_state(fluid, "envelope")
+    try:
+        st.build_phase_envelope("")
+        env = st.get_phase_envelope_data()
+    except ValueError as error:
+        raise PropertyRangeError(f"{name}: CoolProp cannot trace the phase envelope: {error}") from None
+    molar_mass = st.molar_mass()
+    points = []
+    for t, p, h_molar in zip(env.T, env.p, env.hmolar_vap):
+        # CoolProp keeps the bulk composition's phase in the "vap" arrays on both
+        # branches (the incipient phase in "liq"); checked against P–Q states
+        h = h_molar / molar_mass
+        points.append((t - KELVIN, p, h))
+    result = tuple(points)
+    _ENVELOPE_POINTS[name] = result
+    return result
 
 
 def phase_envelope(fluid: Fluid) -> tuple[tuple[tuple[float, float], ...], tuple[tuple[float, float], ...]]:
@@ -1355,22 +1385,11 @@ def phase_envelope(fluid: Fluid) -> tuple[tuple[tuple[float, float], ...], tuple
     name = fluid.info.name
     if name in _ENVELOPES:
         return _ENVELOPES[name]
-    if fluid.info.model != "mixture":
-        raise PropertyRangeError(f"{name}: a phase envelope is traced for mixtures only")
-    st = _chart_state(fluid, "envelope")
-    try:
-        st.build_phase_envelope("")
-        env = st.get_phase_envelope_data()
-    except ValueError as error:
-        raise PropertyRangeError(f"{name}: CoolProp cannot trace the phase envelope: {error}") from None
-    molar_mass = st.molar_mass()
-    p_all = list(env.p)
+    points = _envelope_points(fluid)
+    p_all = [p for _, p, _ in points]
     top = max(range(len(p_all)), key=p_all.__getitem__)
     dew, bubble = [], []
-    for i, p in enumerate(p_all):
-        # CoolProp keeps the bulk composition's phase in the "vap" arrays on both
-        # branches (the incipient phase in "liq"); checked against P–Q states
-        h = env.hmolar_vap[i] / molar_mass
+    for i, (_, p, h) in enumerate(points):
         if not _finite(p, h) or p <= 0:
             continue
         if i <= top:
@@ -1381,6 +1400,26 @@ def phase_envelope(fluid: Fluid) -> tuple[tuple[tuple[float, float], ...], tuple
     result = (tuple(bubble), tuple(dew))
     _ENVELOPES[name] = result
     return result
+
+
+def envelope_crossings(fluid: Fluid, temperature: float) -> list[float]:
+    """Pressures [Pa], rising, at which a mixture's phase envelope has *temperature* [°C].
+
+    Linear in temperature between the traced points of :func:`_envelope_points`
+    (about 1 K apart next to the critical point, so a few kPa uncertain there:
+    callers keep a margin). Below the critical temperature an isotherm meets
+    the dew branch, then the bubble branch; between the critical temperature and
+    the highest temperature of the envelope (the cricondentherm) the dew branch
+    twice; above it no crossing (one phase at every pressure).
+    """
+    points = [(t, p) for t, p, h in _envelope_points(fluid) if _finite(t, p, h) and p > 0]
+    out = []
+    for (ta, pa), (tb, pb) in zip(points, points[1:]):
+        if ta == temperature:
+            out.append(pa)
+        elif (ta - temperature) * (tb - temperature) < 0:
+            out.append(pa + (temperature - ta) / (tb - ta) * (pb - pa))
+    return sorted(out)
 
 
 def critical_enthalpy(fluid: Fluid) -> float:

@@ -206,3 +206,60 @@ def test_chart_data_is_computed_once_per_window():
     first = chart_data("R-134a", 50e3, 5e6, temps, entropies)
     again = chart_data("R-134a", 50e3, 5e6, temps, entropies)
     assert first is again
+
+
+# Isotherms of zeotropic blends next to the critical temperature: CoolProp's T–Q flash
+# fails there, so the chart draws them from P–T states of the one phase present, bounded
+# by the traced phase envelope. One isotherm just below and one just above the critical
+# temperature of each blend (R-448A: 82.8 °C, R-452A: 75.1 °C in CoolProp 8's mixture models).
+NEAR_CRITICAL = {"R-448A": (82.0, 84.0), "R-452A": (74.0, 76.0)}
+
+
+@pytest.mark.parametrize("name", sorted(NEAR_CRITICAL))
+def test_blend_isotherms_next_to_the_critical_point_are_drawn_and_on_their_isotherm(name):
+    """The band's isotherms exist (they were left out before) and reach the
+    critical region; their states, checked in CoolProp's own P–H flash (an
+    independent route: it decides the phase itself, by a stability test), have
+    the isotherm's temperature within 0.05 K."""
+    import CoolProp.CoolProp as CP
+
+    from coldroom.phdiagram import chart_data
+    from coldroom.refrigerant import get_fluid
+
+    fluid = get_fluid(name)
+    pc, tc = fluid.critical_pressure, fluid.critical_temperature
+    below, above = NEAR_CRITICAL[name]
+    assert tc - 2.0 < below < tc < above < tc + 3.0  # inside the band that used to be empty
+    data = chart_data(name, 150e3, 7e6, (below, above), ())
+    lines = {line.value: line for line in data.isotherms}
+    assert sorted(lines) == [below, above], f"{name}: isotherms drawn {sorted(lines)}"
+    state = _flash(name)
+    for value, line in lines.items():
+        points = [pt for seg in line.segments for pt in seg]
+        # the line reaches the critical region on both sides of the critical pressure
+        assert min(p for _, p in points) < 0.5 * pc and max(p for _, p in points) > 1.3 * pc
+        assert any(0.9 * pc < p < pc for _, p in points) and any(pc <= p < 1.1 * pc for _, p in points)
+        if value < tc:
+            assert line.phases[0] == "liquid" and line.phases[-1] == "vapour"
+        else:
+            assert line.phases == ("supercritical",)
+        # below 0.9 × critical pressure: the fast path (itself checked against CoolProp),
+        # CoolProp's flash where the fast path's solver gives up
+        from coldroom.errors import PropertyRangeError
+
+        for h, p in points:
+            if p <= 0.9 * pc:
+                try:
+                    t = fluid.state_ph(p, h).t
+                except PropertyRangeError:
+                    state.update(CP.HmassP_INPUTS, h, p)
+                    t = state.T() - 273.15
+                assert abs(t - value) < 0.05, f"{name} {value} °C: {t:.3f} °C at {p:.0f} Pa"
+        # above: CoolProp's flash (0.5–10 s a point) at the points nearest the phase
+        # envelope and the critical pressure, where a wrong phase would show
+        high = sorted((pt for pt in points if pt[1] > 0.9 * pc), key=lambda pt: abs(pt[1] - pc))
+        ends = [seg[i] for seg in line.segments for i in (0, -1) if 0.9 * pc < seg[i][1] < 1.1 * pc]
+        for h, p in list(dict.fromkeys(ends + high[:1]))[:3]:
+            state.update(CP.HmassP_INPUTS, h, p)
+            t = state.T() - 273.15
+            assert abs(t - value) < 0.05, f"{name} {value} °C: CoolProp {t:.3f} °C at {p:.0f} Pa, {h:.0f} J/kg"
