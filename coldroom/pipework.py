@@ -44,6 +44,9 @@ class Pipework:
         Discharge-line loss fed to the cycle [K].
     valve_subcooling : float or None
         Subcooling left at the expansion valve [K]; ``None`` without a liquid line.
+    valve_inlet_pressure : float or None
+        Pressure at the expansion-valve inlet [Pa] (:func:`valve_inlet_pressure`);
+        ``None`` without a liquid line. The sheet's p–h chart draws the state there.
     charge : ChargeEstimate
     limits : tuple of ChargeLimit
     room : str
@@ -71,6 +74,7 @@ class Pipework:
     defaults_used: tuple[str, ...]
     self_contained: bool
     warnings: tuple[Note, ...] = ()
+    valve_inlet_pressure: float | None = None
 
     def to_json(self) -> dict:
         """The contract keys of a system: ``piping``, ``charge``, ``charge_limits`` (and their basis)."""
@@ -170,20 +174,33 @@ def cycle_drops(cycle, piping: PipingResult | None) -> tuple[float, float]:
     return out[0], out[1]
 
 
-def valve_subcooling(cycle, piping: PipingResult | None) -> float | None:
-    """Subcooling at the expansion valve after the liquid line [K].
+def valve_inlet_pressure(cycle, piping: PipingResult | None) -> float | None:
+    """Pressure at the expansion-valve inlet after the liquid line [Pa].
 
-    Bubble temperature at (condenser-outlet pressure − friction drop − ρ·g·rise)
-    minus the liquid temperature; ``None`` without a liquid line.
+    Condenser-outlet pressure − friction drop − ρ·g·rise (the line's total
+    pressure change; a falling line gains pressure); ``None`` without a
+    liquid line. The line is adiabatic: the liquid keeps the condenser-outlet
+    enthalpy [mem] [ref:stoecker-jones].
     """
     line = None if piping is None else piping.line("liquid")
     if line is None:
+        return None
+    return cycle.states[2].p - line.total_pressure_change
+
+
+def valve_subcooling(cycle, piping: PipingResult | None) -> float | None:
+    """Subcooling at the expansion valve after the liquid line [K].
+
+    Bubble temperature at :func:`valve_inlet_pressure` minus the liquid
+    temperature; ``None`` without a liquid line.
+    """
+    pressure = valve_inlet_pressure(cycle, piping)
+    if pressure is None:
         return None
     from coldroom.refrigerant import get_fluid
 
     fluid = get_fluid(cycle.refrigerant)
     liquid = cycle.states[2]
-    pressure = liquid.p - line.total_pressure_change
     if pressure <= fluid.minimum_pressure:
         return float("-inf")
     if pressure >= fluid.critical_pressure:
@@ -293,4 +310,5 @@ def pipework(
         defaults_used=defaults,
         self_contained=charge_settings.self_contained,
         warnings=tuple(warnings),
+        valve_inlet_pressure=valve_inlet_pressure(cycle, piping),
     )

@@ -141,12 +141,36 @@ class Window:
     isentropes: tuple[float, ...]  # J/(kg·K)
 
 
-def cycle_states(cycle: Any) -> list[tuple[str, Any]]:
+def valve_inlet_state(cycle: Any, pressure: float | None) -> Any:
+    """The state at the expansion-valve inlet, or ``None``.
+
+    The liquid line is adiabatic: the condenser-outlet enthalpy at *pressure*
+    [Pa] (condenser-outlet pressure less the line's friction drop and static
+    rise, :func:`coldroom.pipework.valve_inlet_pressure`), through
+    :meth:`coldroom.refrigerant.Fluid.state_ph`. A pressure below the bubble
+    pressure at that enthalpy gives a two-phase state (flash gas). ``None``
+    when *pressure* is ``None`` or state 3's own pressure (no change to draw).
+    """
+    if pressure is None:
+        return None
+    s3 = cycle.states[2]
+    if abs(pressure - s3.p) <= 1e-6 * s3.p:
+        return None
+    from dataclasses import replace
+
+    from coldroom.refrigerant import get_fluid
+
+    state = get_fluid(cycle.refrigerant).state_ph(pressure, s3.h)
+    return replace(state, h=s3.h)
+
+
+def cycle_states(cycle: Any, valve_inlet: Any = None) -> list[tuple[str, Any]]:
     """The states the calculation used, in flow order, with their chart labels.
 
     ``4`` evaporator inlet, ``1e`` evaporator outlet (only when it differs from
     the compressor suction), ``1`` suction, ``2`` discharge, ``3`` condenser or
-    gas-cooler outlet.
+    gas-cooler outlet, ``3v`` expansion-valve inlet (only when given: the state
+    after the liquid line, :func:`valve_inlet_state`).
     """
     s1, s2, s3, s4 = cycle.states
     out = [("4", s4)]
@@ -154,23 +178,26 @@ def cycle_states(cycle: Any) -> list[tuple[str, Any]]:
     if abs(e.h - s1.h) > 1e-6 * max(abs(s1.h), 1.0) or abs(e.p - s1.p) > 1e-6 * s1.p:
         out.append(("1e", e))
     out += [("1", s1), ("2", s2), ("3", s3)]
+    if valve_inlet is not None:
+        out.append(("3v", valve_inlet))
     return out
 
 
-def state_rows(cycle: Any, system: str) -> list[list[str]]:
-    """The state table (header row first) in *system* units: 1, 2, 3, 4 and 1e when present."""
+def state_rows(cycle: Any, system: str, valve_inlet: Any = None) -> list[list[str]]:
+    """The state table (header row first) in *system* units: 1, 2, 3, 4, and 3v and 1e when present."""
     from coldroom.report.text import q, temperature
 
     names = {
         "1": "1  compressor suction",
         "2": "2  compressor discharge",
         "3": "3  gas-cooler outlet" if cycle.transcritical else "3  condenser outlet",
+        "3v": "3v expansion-valve inlet",
         "4": "4  evaporator inlet",
         "1e": "1e evaporator outlet",
     }
-    by_name = dict(cycle_states(cycle))
+    by_name = dict(cycle_states(cycle, valve_inlet))
     rows = [["State", "Pressure", "Temperature", "Enthalpy", "Entropy", "Quality"]]
-    for key in ("1", "2", "3", "4", "1e"):
+    for key in ("1", "2", "3", "3v", "4", "1e"):
         st = by_name.get(key)
         if st is None:
             continue
@@ -187,7 +214,7 @@ def state_rows(cycle: Any, system: str) -> list[list[str]]:
     return rows
 
 
-def choose_window(cycle: Any, system: str) -> Window:
+def choose_window(cycle: Any, system: str, valve_inlet: Any = None) -> Window:
     """Window and round line values for *cycle* in *system* units (a drawing choice).
 
     The pressure window runs from about half the evaporating pressure to above
@@ -197,7 +224,7 @@ def choose_window(cycle: Any, system: str) -> Window:
     from coldroom.refrigerant import get_fluid
 
     fluid = get_fluid(cycle.refrigerant)
-    states = [s for _, s in cycle_states(cycle)]
+    states = [s for _, s in cycle_states(cycle, valve_inlet)]
     p_min = min(s.p for s in states)
     p_max = max(s.p for s in states)
     p_low = max(_nice_down(p_min / 2.2), fluid.minimum_pressure * 1.01)
@@ -216,7 +243,7 @@ def choose_window(cycle: Any, system: str) -> Window:
         t_bottom = fluid.dew_temperature(min(max(p_low, fluid.minimum_pressure * 1.02), 0.9 * fluid.critical_pressure))
     except Exception:  # noqa: BLE001 - any failure: fall back on the cycle's own
         t_bottom = cycle.evaporating_temperature - 20.0
-    t_top = max(states[-2].t, fluid.critical_temperature) + 40.0
+    t_top = max(cycle.states[1].t, fluid.critical_temperature) + 40.0
     lo, hi = disp(t_bottom), disp(t_top)
     step = _round_step(hi - lo, (10.0, 20.0, 25.0, 50.0) if system == "SI" else (20.0, 25.0, 50.0, 100.0), 11)
     v = math.ceil(lo / step) * step
@@ -406,7 +433,8 @@ def _temperature_text(t_c: float, system: str, digits: int = 1) -> str:
     return clean(f"{_fmt(_units.to_unit(t_c, 'temperature', unit), digits)} {unit}")
 
 
-def ph_chart(cycle: Any, system: str, width: float, height: float, title: str = "") -> Drawing:
+def ph_chart(cycle: Any, system: str, width: float, height: float, title: str = "",
+             valve_inlet_pressure: float | None = None) -> Drawing:
     """The p–h chart of *cycle* (a :class:`coldroom.cycle.CycleResult`) as a Drawing.
 
     Parameters
@@ -419,9 +447,14 @@ def ph_chart(cycle: Any, system: str, width: float, height: float, title: str = 
         Size [pt].
     title : str
         Caption above the chart.
+    valve_inlet_pressure : float or None
+        Pressure at the expansion-valve inlet [Pa] when a liquid line changes
+        the liquid's pressure (the sizing sheet knows it from the pipework):
+        the state there is drawn as ``3v`` between 3 and the expansion.
     """
-    window = choose_window(cycle, system)
-    return _draw(cycle, window, system, width, height, title)
+    valve = valve_inlet_state(cycle, valve_inlet_pressure)
+    window = choose_window(cycle, system, valve)
+    return _draw(cycle, window, system, width, height, title, valve)
 
 
 @dataclass(frozen=True)
@@ -601,7 +634,8 @@ def _build_background(refrigerant: str, window: Window, system: str, plot: _Plot
                        quality_pieces, isentrope_pieces, isotherm_pieces, crit, data)
 
 
-def _draw(cycle: Any, window: Window, system: str, width: float, height: float, title: str) -> Drawing:
+def _draw(cycle: Any, window: Window, system: str, width: float, height: float, title: str,
+          valve: Any = None) -> Drawing:
     h_unit = _units.DISPLAY_UNITS[system]["specific_energy"]
     s_unit = _units.DISPLAY_UNITS[system]["specific_heat"]
     hd = _units.unit_for("specific_energy", h_unit).from_si  # display value of an SI enthalpy
@@ -612,7 +646,7 @@ def _draw(cycle: Any, window: Window, system: str, width: float, height: float, 
     h_lo, h_hi, lp_lo, lp_hi = plot.h_lo, plot.h_hi, plot.lp_lo, plot.lp_hi
     strip = 52.0
     box = (x0, y0, x1, y1)
-    states = cycle_states(cycle)
+    states = cycle_states(cycle, valve)
     s1, s2, s3, s4 = cycle.states
     evap_out = cycle.evaporator_outlet
 
@@ -753,6 +787,8 @@ def _draw(cycle: Any, window: Window, system: str, width: float, height: float, 
     # states: number, pressure and temperature
     for (name, s), (x, y) in zip(states, ring):
         text = f"{name}:  {_pressure_text(s.p, system)}, {_temperature_text(s.t, system)}"
+        if name == "3v" and s.quality is not None:
+            text += f", x = {s.quality:.2f}"  # flash gas before the valve
         place_near(text, x, y, CYCLE, 6.6, bold=True) or place_near(name, x, y, CYCLE, 7.0, bold=True)
     place_near("2s", p2s[0], p2s[1], CYCLE, 6.0, radii=(5, 8))
     # SST / SCT names at the right end of their isobars

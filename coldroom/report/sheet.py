@@ -350,7 +350,7 @@ def system_cycles_section(ctx: SheetContext) -> list:
         out += [figure_boxes(ctx, boxes), Spacer(1, 4)]
         out += _duties_and_cycle(ctx, system.cycle, cyc,
                                  "State 1 is the warmer coils' vapour (through their EPRs) mixed with the "
-                                 "coldest coil's, then the suction-line superheat and drop.")
+                                 "coldest coil's, then the suction-line superheat and drop.", system)
         if system.warnings:
             out += [heading("Check these"), *warning_box(ctx, system.warnings)]
     return out
@@ -568,9 +568,10 @@ def _compressor_figures(ctx: SheetContext, cyc: dict) -> Any:
     return grid(perf, [0.52 * w, 0.48 * w], align_right=(1,))
 
 
-def _duties_and_cycle(ctx: SheetContext, cycle: Any, cyc: dict, remark: str) -> list:
+def _duties_and_cycle(ctx: SheetContext, cycle: Any, cyc: dict, remark: str, system: Any = None) -> list:
     """A system's compressor figures, state table and p–h chart."""
-    return [*_cycle_flowables(ctx, cycle, remark), KeepTogether([heading("Compressor"), _compressor_figures(ctx, cyc)])]
+    return [*_cycle_flowables(ctx, cycle, remark, system),
+            KeepTogether([heading("Compressor"), _compressor_figures(ctx, cyc)])]
 
 
 def cycle_section(ctx: SheetContext, index: int) -> list:
@@ -578,17 +579,39 @@ def cycle_section(ctx: SheetContext, index: int) -> list:
     cycle = ctx.result.rooms[index].cycle
     if cycle is None:
         return []
-    return _cycle_flowables(ctx, cycle)
+    return _cycle_flowables(ctx, cycle, system=_room_system(ctx, index))
 
 
-def _cycle_flowables(ctx: SheetContext, cycle: Any, remark: str = "") -> list:
+def _valve_inlet(cycle: Any, system: Any) -> tuple[Any, Optional[float]]:
+    """The expansion-valve inlet state and pressure of *cycle* when *system*'s liquid line
+    changes the liquid's pressure, else ``(None, None)``."""
+    from coldroom.errors import ColdroomError
+    from coldroom.report.phchart import valve_inlet_state
+
+    works = getattr(system, "pipework", None)
+    pressure = getattr(works, "valve_inlet_pressure", None)
+    if pressure is None or system.cycle is not cycle:
+        return None, None
+    try:
+        return valve_inlet_state(cycle, pressure), pressure
+    except ColdroomError:
+        return None, None
+
+
+def _cycle_flowables(ctx: SheetContext, cycle: Any, remark: str = "", system: Any = None) -> list:
     """State table and p–h chart of a solved cycle (a room's, or a system's of several rooms)."""
     from coldroom.report.phchart import state_rows
 
     w = ctx.width
-    rows = state_rows(cycle, ctx.system)
+    valve, valve_pressure = _valve_inlet(cycle, system)
+    if valve is not None:
+        remark = (remark + " " if remark else "") + (
+            "State 3v is the liquid at the expansion valve: the condenser-outlet enthalpy at the pressure "
+            "the liquid line's friction and height change leave."
+        )
+    rows = state_rows(cycle, ctx.system, valve)
     table = grid(rows, [0.25 * w, 0.15 * w, 0.14 * w, 0.16 * w, 0.18 * w, 0.12 * w], align_right=(1, 2, 3, 4, 5))
-    chart = _ph_chart(ctx, cycle)
+    chart = _ph_chart(ctx, cycle, valve_pressure if valve is not None else None)
     return [
         CondPageBreak(ctx.width * 0.95),
         KeepTogether(
@@ -609,13 +632,14 @@ def _cycle_flowables(ctx: SheetContext, cycle: Any, remark: str = "") -> list:
     ]
 
 
-def _ph_chart(ctx: SheetContext, cycle: Any) -> Any:
+def _ph_chart(ctx: SheetContext, cycle: Any, valve_inlet_pressure: Optional[float] = None) -> Any:
     from coldroom.errors import ColdroomError
     from coldroom.report.phchart import SharedBackgroundChart, ph_chart
 
     try:
         return SharedBackgroundChart(ph_chart(cycle, ctx.system, ctx.width, ctx.width * 0.78,
-                                              title=f"Pressure–enthalpy chart, {cycle.refrigerant}"))
+                                              title=f"Pressure–enthalpy chart, {cycle.refrigerant}",
+                                              valve_inlet_pressure=valve_inlet_pressure))
     except ColdroomError:
         return note("The pressure–enthalpy chart could not be drawn for this refrigerant.", SMALL)
 
