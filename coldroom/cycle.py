@@ -182,6 +182,11 @@ class CycleResult:
     evaporator_flows : tuple of float
         Mass flow through each evaporator [kg/s], in the order given to
         :func:`solve_system_cycle` (one entry, the total, for a single coil).
+    coil_outlets : tuple of StatePoint
+        Each evaporator's own outlet state, in the order given to
+        :func:`solve_system_cycle`, at its evaporating (dew) pressure, before
+        a warmer coil's EPR throttles it to the coldest coil's pressure; empty
+        for a single coil.
     """
 
     refrigerant: str
@@ -225,6 +230,7 @@ class CycleResult:
     gwp_ar4: float
     warnings: tuple[str, ...]
     evaporator_flows: tuple[float, ...] = ()
+    coil_outlets: tuple[StatePoint, ...] = ()
 
     def to_json(self) -> dict:
         """JSON-ready dict; every numeric key names its unit (DEVELOPERS.md "Contracts").
@@ -653,6 +659,7 @@ def solve_cycle(
         gwp_ar4=info.gwp_ar4,
         warnings=warnings,
         evaporator_flows=flows if _warmer else (mass_flow,),
+        coil_outlets=(coil_out,) + warm_outlets if _warmer else (),
     )
 
 
@@ -710,14 +717,17 @@ def solve_system_cycle(
     )
     if not others:
         return result
-    flows = list(result.evaporator_flows)
-    ordered = [0.0] * len(coils)
-    ordered[coldest] = flows[0]
-    rest = iter(flows[1:])
-    for i in range(len(coils)):
-        if i != coldest:
-            ordered[i] = next(rest)
-    return replace(result, evaporator_flows=tuple(ordered))
+    def in_given_order(values: tuple) -> tuple:
+        """*values* (coldest coil first, then the others) in the order of *evaporators*."""
+        ordered = [values[0]] * len(coils)
+        rest = iter(values[1:])
+        for i in range(len(coils)):
+            if i != coldest:
+                ordered[i] = next(rest)
+        return tuple(ordered)
+
+    return replace(result, evaporator_flows=in_given_order(result.evaporator_flows),
+                   coil_outlets=in_given_order(result.coil_outlets))
 
 
 def _golden_max(func, low: float, high: float, tolerance: float = 500.0) -> float:

@@ -9,9 +9,13 @@ lines in the project's units, and draws:
   superheated vapour; isentropes near the compression; quality lines 0.1…0.9;
 * the cycle as the calculation solved it: evaporator inlet 4 → evaporator
   outlet 1e → compressor suction 1 (when the suction line adds superheat or
-  loses pressure) → discharge 2 → condenser (gas cooler) outlet 3 → 4, each
-  state with its pressure and temperature, the isentropic discharge 2s, and
-  the SST / SCT (dew) isobars named;
+  loses pressure) → discharge 2 → condenser (gas cooler) outlet 3
+  (→ expansion-valve inlet 3v, when the sheet gives the liquid line's pressure
+  there) → 4, each state with its pressure and temperature, the isentropic
+  discharge 2s, and the SST / SCT (dew) isobars named;
+* on one compressor serving several coils, each warmer coil behind an EPR:
+  its named dew isobar, its evaporation to its outlet (1a, 1b …) and the
+  EPR's isenthalpic throttle down to the coldest coil's pressure;
 * the refrigerating effect, compression work and heat of rejection as
   enthalpy spans above the plot, with their values.
 
@@ -55,6 +59,9 @@ QUALITY_TEXT = colors.HexColor("#5F7389")
 CYCLE = colors.HexColor("#C04A2B")
 CYCLE_SOFT = colors.HexColor("#E2A593")
 SPAN = colors.HexColor("#2E3A44")
+EPR_COIL = colors.HexColor("#A8700A")  # warmer coils behind evaporator pressure regulators
+EPR_SOFT = colors.HexColor("#DDBE7E")
+EPR_TEXT = colors.HexColor("#7F5406")
 
 FONT = "Helvetica"
 FONT_BOLD = "Helvetica-Bold"
@@ -183,8 +190,31 @@ def cycle_states(cycle: Any, valve_inlet: Any = None) -> list[tuple[str, Any]]:
     return out
 
 
-def state_rows(cycle: Any, system: str, valve_inlet: Any = None) -> list[list[str]]:
-    """The state table (header row first) in *system* units: 1, 2, 3, 4, and 3v and 1e when present."""
+def warm_coils(cycle: Any, coil_names: Sequence[str] | None = None) -> list[tuple[str, str, Any]]:
+    """The coils that evaporate above the compressor's evaporating pressure, behind EPRs.
+
+    (mark, name, outlet state) for each, in the order of ``cycle.coil_outlets``,
+    marked ``1a``, ``1b`` …; *coil_names* name the coils in that order (the
+    rooms on the sheet), else ``coil 1``, ``coil 2`` … Empty for a single coil.
+    """
+    outlets = getattr(cycle, "coil_outlets", ()) or ()
+    out: list[tuple[str, str, Any]] = []
+    for i, state in enumerate(outlets):
+        if state.p > cycle.evaporating_pressure * (1.0 + 1e-6) and len(out) < 26:
+            name = coil_names[i] if coil_names is not None and i < len(coil_names) else f"coil {i + 1}"
+            out.append((f"1{chr(ord('a') + len(out))}", name, state))
+    return out
+
+
+def _short(name: str, most: int = 18) -> str:
+    name = clean(" ".join(str(name).split()))
+    return name if len(name) <= most else name[: most - 1] + "…"
+
+
+def state_rows(cycle: Any, system: str, valve_inlet: Any = None,
+               coil_names: Sequence[str] | None = None) -> list[list[str]]:
+    """The state table (header row first) in *system* units: 1, 2, 3, 4, and 3v and 1e when
+    present, then the outlets of the warmer coils behind EPRs (1a, 1b …, :func:`warm_coils`)."""
     from coldroom.report.text import q, temperature
 
     names = {
@@ -197,7 +227,10 @@ def state_rows(cycle: Any, system: str, valve_inlet: Any = None) -> list[list[st
     }
     by_name = dict(cycle_states(cycle, valve_inlet))
     rows = [["State", "Pressure", "Temperature", "Enthalpy", "Entropy", "Quality"]]
-    for key in ("1", "2", "3", "3v", "4", "1e"):
+    for mark, name, st in warm_coils(cycle, coil_names):
+        names[mark] = f"{mark} outlet, {_short(name)} (EPR)"
+        by_name[mark] = st
+    for key in ("1", "2", "3", "3v", "4", "1e", *(m for m, _, _ in warm_coils(cycle, coil_names))):
         st = by_name.get(key)
         if st is None:
             continue
@@ -434,7 +467,7 @@ def _temperature_text(t_c: float, system: str, digits: int = 1) -> str:
 
 
 def ph_chart(cycle: Any, system: str, width: float, height: float, title: str = "",
-             valve_inlet_pressure: float | None = None) -> Drawing:
+             valve_inlet_pressure: float | None = None, coil_names: Sequence[str] | None = None) -> Drawing:
     """The p–h chart of *cycle* (a :class:`coldroom.cycle.CycleResult`) as a Drawing.
 
     Parameters
@@ -451,10 +484,15 @@ def ph_chart(cycle: Any, system: str, width: float, height: float, title: str = 
         Pressure at the expansion-valve inlet [Pa] when a liquid line changes
         the liquid's pressure (the sizing sheet knows it from the pipework):
         the state there is drawn as ``3v`` between 3 and the expansion.
+    coil_names : sequence of str or None
+        Names of the coils in the order of ``cycle.coil_outlets`` (one
+        compressor serving several evaporators): each warmer coil behind an
+        EPR gets its named dew isobar, its evaporation, its outlet (1a, 1b …)
+        and the EPR's isenthalpic throttle to the coldest coil's pressure.
     """
     valve = valve_inlet_state(cycle, valve_inlet_pressure)
     window = choose_window(cycle, system, valve)
-    return _draw(cycle, window, system, width, height, title, valve)
+    return _draw(cycle, window, system, width, height, title, valve, coil_names)
 
 
 @dataclass(frozen=True)
@@ -635,7 +673,7 @@ def _build_background(refrigerant: str, window: Window, system: str, plot: _Plot
 
 
 def _draw(cycle: Any, window: Window, system: str, width: float, height: float, title: str,
-          valve: Any = None) -> Drawing:
+          valve: Any = None, coil_names: Sequence[str] | None = None) -> Drawing:
     h_unit = _units.DISPLAY_UNITS[system]["specific_energy"]
     s_unit = _units.DISPLAY_UNITS[system]["specific_heat"]
     hd = _units.unit_for("specific_energy", h_unit).from_si  # display value of an SI enthalpy
@@ -681,6 +719,21 @@ def _draw(cycle: Any, window: Window, system: str, width: float, height: float, 
         if y0 <= y <= y1:
             drawing.add(Line(x0, y, x1, y, strokeColor=CYCLE_SOFT, strokeWidth=0.6, strokeDashArray=(6, 2, 1, 2)))
             occupied.line([(x0, y), (x1, y)], pad=0.4)
+    # the warmer coils' evaporating pressures (behind EPRs), named by their dew temperature
+    warm = warm_coils(cycle, coil_names)
+    warm_isobars = []
+    if warm:
+        from coldroom.refrigerant import get_fluid
+
+        fluid = get_fluid(cycle.refrigerant)
+        for mark, name, st in warm:
+            t_dew = fluid.dew_temperature(st.p)
+            warm_isobars.append((st.p, f"{_short(name)} coil {_temperature_text(t_dew, system)} dew (EPR)"))
+    for p, _ in warm_isobars:
+        y = Y(p)
+        if y0 <= y <= y1:
+            drawing.add(Line(x0, y, x1, y, strokeColor=EPR_SOFT, strokeWidth=0.6, strokeDashArray=(6, 2, 1, 2)))
+            occupied.line([(x0, y), (x1, y)], pad=0.4)
 
     # --- the cycle ----------------------------------------------------------------------------------
     ring = [(X(s.h), Y(s.p)) for _, s in states]
@@ -702,6 +755,24 @@ def _draw(cycle: Any, window: Window, system: str, width: float, height: float, 
         drawing.add(Circle(x, y, 2.4, fillColor=CYCLE, strokeColor=colors.white, strokeWidth=0.6))
         occupied.box(x - 3, y - 3, x + 3, y + 3)
         strong.box(x - 3, y - 3, x + 3, y + 3)
+    # warmer coils: evaporation at their own pressure from the liquid's enthalpy to their
+    # outlet, then the EPR's isenthalpic throttle down to the coldest coil's pressure, where
+    # the vapours mix (the cycle's model)
+    warm_points = []
+    y_mix = Y(cycle.evaporating_pressure)
+    for mark, name, st in warm:
+        xo, yo = X(st.h), Y(st.p)
+        for pts, dash, lw in (([(X(s3.h), yo), (xo, yo)], None, 1.1), ([(xo, yo), (xo, y_mix)], (3, 1.6), 0.9)):
+            for piece in _clip(pts, box):
+                drawing.add(PolyLine(piece, strokeColor=EPR_COIL, strokeWidth=lw, strokeDashArray=dash,
+                                     strokeLineJoin=1, strokeLineCap=1))
+                occupied.line(piece, pad=1.0)
+                strong.line(piece, pad=1.0)
+        if x0 <= xo <= x1 and y0 <= yo <= y1:
+            drawing.add(Circle(xo, yo, 2.2, fillColor=EPR_COIL, strokeColor=colors.white, strokeWidth=0.6))
+            occupied.box(xo - 3, yo - 3, xo + 3, yo + 3)
+            strong.box(xo - 3, yo - 3, xo + 3, yo + 3)
+            warm_points.append((mark, st, xo, yo))
 
     # --- enthalpy spans above the plot --------------------------------------------------------------
     rows = [
@@ -719,7 +790,7 @@ def _draw(cycle: Any, window: Window, system: str, width: float, height: float, 
     drawing.add(Line(x0, y1, x1, y1, strokeColor=MUTED, strokeWidth=0.5))
     drawing.add(Rect(x0, y0, x1 - x0, y1 - y0, fillColor=None, strokeColor=MUTED, strokeWidth=0.6))
 
-    _legend(drawing, x0, x1, 4.0, s_unit)
+    _legend(drawing, x0, x1, 4.0, s_unit, epr=bool(warm))
 
     # --- labels -----------------------------------------------------------------------------------------
     def place(text: str, candidates: Iterable[tuple], color: Any, size: float = 6.3,
@@ -790,13 +861,16 @@ def _draw(cycle: Any, window: Window, system: str, width: float, height: float, 
         if name == "3v" and s.quality is not None:
             text += f", x = {s.quality:.2f}"  # flash gas before the valve
         place_near(text, x, y, CYCLE, 6.6, bold=True) or place_near(name, x, y, CYCLE, 7.0, bold=True)
+    for mark, st, x, y in warm_points:
+        text = f"{mark}:  {_pressure_text(st.p, system)}, {_temperature_text(st.t, system)}"
+        place_near(text, x, y, EPR_TEXT, 6.4, bold=True) or place_near(mark, x, y, EPR_TEXT, 6.8, bold=True)
     place_near("2s", p2s[0], p2s[1], CYCLE, 6.0, radii=(5, 8))
     # SST / SCT names at the right end of their isobars
-    for p, text in isobars:
+    for (p, text), color in [(i, CYCLE) for i in isobars] + [(i, EPR_TEXT) for i in warm_isobars]:
         y = Y(p)
         if y0 <= y <= y1:
             place(clean(text), [(x1 - 4 - k * 12.0, y + 2.0) for k in range(40)] + [(x1 - 4 - k * 12.0, y - 8.0) for k in range(40)],
-                  CYCLE, 6.4, anchor="end", pad=0.3)
+                  color, 6.4, anchor="end", pad=0.3)
     # the critical point
     cx, cy = crit
     crit_text = f"critical point {_temperature_text(data.critical_temperature, system)}, {_pressure_text(data.critical_pressure, system)}"
@@ -836,21 +910,29 @@ def _span(drawing: Drawing, xa: float, xb: float, y: float, text: str) -> None:
     del w
 
 
-def _legend(drawing: Drawing, x0: float, x1: float, y: float, s_unit: str) -> None:
-    """The key, one row under the enthalpy axis."""
+def _legend(drawing: Drawing, x0: float, x1: float, y: float, s_unit: str, epr: bool = False) -> None:
+    """The key, one row under the enthalpy axis (*epr*: with the warmer coils' entry)."""
     rows = [
         (DOME, 1.4, None, "saturation (bubble, dew)"),
         (ISOTHERM, 0.55, None, "isotherm"),
         (ISENTROPE, 0.55, (4, 2.2), clean(f"isentrope, s in {s_unit}")),
-        (QUALITY, 0.45, (1.2, 1.6), "vapour quality x"),
+        (QUALITY, 0.45, (1.2, 1.6), "vapour quality x" if not epr else "quality x"),
         (CYCLE, 1.8, None, "this cycle"),
         (CYCLE_SOFT, 0.6, (6, 2, 1, 2), "SST / SCT (dew)"),
     ]
-    widths = [16 + 4 + stringWidth(r[3], FONT, 6.3) + 10 for r in rows]
+    if epr:
+        rows.append((EPR_COIL, 1.1, None, "coil behind EPR"))
+    key, gap, after = 16.0, 4.0, 10.0  # key line, gap to its text, space after the text [pt]
+    widths = [key + gap + stringWidth(r[3], FONT, 6.3) + after for r in rows]
+    if epr and sum(widths) - after > x1 - x0:  # the extra entry makes it too wide: shorter words and keys
+        short = {"saturation (bubble, dew)": "saturation", "SST / SCT (dew)": "SST / SCT"}
+        rows = [(c, lw, dash, short.get(text, text)) for c, lw, dash, text in rows]
+        key, gap, after = 12.0, 3.0, 7.0
+        widths = [key + gap + stringWidth(r[3], FONT, 6.3) + after for r in rows]
     x = x0 + max(0.0, ((x1 - x0) - sum(widths)) / 2.0)
     for (color, lw, dash, text), w in zip(rows, widths):
-        drawing.add(Line(x, y + 2.2, x + 16, y + 2.2, strokeColor=color, strokeWidth=lw, strokeDashArray=dash))
-        drawing.add(String(x + 20, y, text, fontName=FONT, fontSize=6.3, fillColor=INK))
+        drawing.add(Line(x, y + 2.2, x + key, y + 2.2, strokeColor=color, strokeWidth=lw, strokeDashArray=dash))
+        drawing.add(String(x + key + gap, y, text, fontName=FONT, fontSize=6.3, fillColor=INK))
         x += w
 
 

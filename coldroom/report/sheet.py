@@ -609,9 +609,11 @@ def _cycle_flowables(ctx: SheetContext, cycle: Any, remark: str = "", system: An
             "State 3v is the liquid at the expansion valve: the condenser-outlet enthalpy at the pressure "
             "the liquid line's friction and height change leave."
         )
-    rows = state_rows(cycle, ctx.system, valve)
+    # the coils in the order of cycle.coil_outlets: the system's members (rooms)
+    coil_names = [member.room for member in system.members] if system is not None and system.cycle is cycle else None
+    rows = state_rows(cycle, ctx.system, valve, coil_names)
     table = grid(rows, [0.25 * w, 0.15 * w, 0.14 * w, 0.16 * w, 0.18 * w, 0.12 * w], align_right=(1, 2, 3, 4, 5))
-    chart = _ph_chart(ctx, cycle, valve_pressure if valve is not None else None)
+    chart = _ph_chart(ctx, cycle, valve_pressure if valve is not None else None, coil_names)
     return [
         CondPageBreak(ctx.width * 0.95),
         KeepTogether(
@@ -632,14 +634,15 @@ def _cycle_flowables(ctx: SheetContext, cycle: Any, remark: str = "", system: An
     ]
 
 
-def _ph_chart(ctx: SheetContext, cycle: Any, valve_inlet_pressure: Optional[float] = None) -> Any:
+def _ph_chart(ctx: SheetContext, cycle: Any, valve_inlet_pressure: Optional[float] = None,
+              coil_names: Optional[list] = None) -> Any:
     from coldroom.errors import ColdroomError
     from coldroom.report.phchart import SharedBackgroundChart, ph_chart
 
     try:
         return SharedBackgroundChart(ph_chart(cycle, ctx.system, ctx.width, ctx.width * 0.78,
                                               title=f"Pressure–enthalpy chart, {cycle.refrigerant}",
-                                              valve_inlet_pressure=valve_inlet_pressure))
+                                              valve_inlet_pressure=valve_inlet_pressure, coil_names=coil_names))
     except ColdroomError:
         return note("The pressure–enthalpy chart could not be drawn for this refrigerant.", SMALL)
 
