@@ -728,8 +728,9 @@ def _draw(cycle: Any, window: Window, system: str, width: float, height: float, 
         fluid = get_fluid(cycle.refrigerant)
         for mark, name, st in warm:
             t_dew = fluid.dew_temperature(st.p)
-            warm_isobars.append((st.p, f"{_short(name)} coil {_temperature_text(t_dew, system)} dew (EPR)"))
-    for p, _ in warm_isobars:
+            warm_isobars.append((st.p, f"{_short(name)} coil {_temperature_text(t_dew, system)} dew (EPR)",
+                                 f"{mark} {_temperature_text(t_dew, system)} dew (EPR)"))
+    for p, *_ in warm_isobars:
         y = Y(p)
         if y0 <= y <= y1:
             drawing.add(Line(x0, y, x1, y, strokeColor=EPR_SOFT, strokeWidth=0.6, strokeDashArray=(6, 2, 1, 2)))
@@ -859,18 +860,20 @@ def _draw(cycle: Any, window: Window, system: str, width: float, height: float, 
     for (name, s), (x, y) in zip(states, ring):
         text = f"{name}:  {_pressure_text(s.p, system)}, {_temperature_text(s.t, system)}"
         if name == "3v" and s.quality is not None:
-            text += f", x = {s.quality:.2f}"  # flash gas before the valve
+            text += f", x = {s.quality:.3f}"  # flash gas before the valve
         place_near(text, x, y, CYCLE, 6.6, bold=True) or place_near(name, x, y, CYCLE, 7.0, bold=True)
     for mark, st, x, y in warm_points:
         text = f"{mark}:  {_pressure_text(st.p, system)}, {_temperature_text(st.t, system)}"
         place_near(text, x, y, EPR_TEXT, 6.4, bold=True) or place_near(mark, x, y, EPR_TEXT, 6.8, bold=True)
     place_near("2s", p2s[0], p2s[1], CYCLE, 6.0, radii=(5, 8))
     # SST / SCT names at the right end of their isobars
-    for (p, text), color in [(i, CYCLE) for i in isobars] + [(i, EPR_TEXT) for i in warm_isobars]:
+    for (p, *texts), color in [(i, CYCLE) for i in isobars] + [(i, EPR_TEXT) for i in warm_isobars]:
         y = Y(p)
         if y0 <= y <= y1:
-            place(clean(text), [(x1 - 4 - k * 12.0, y + 2.0) for k in range(40)] + [(x1 - 4 - k * 12.0, y - 8.0) for k in range(40)],
-                  color, 6.4, anchor="end", pad=0.3)
+            for text in texts:  # a warmer coil's: with its name, else with its mark only
+                if place(clean(text), [(x1 - 4 - k * 12.0, y + 2.0) for k in range(40)] + [(x1 - 4 - k * 12.0, y - 8.0) for k in range(40)],
+                         color, 6.4, anchor="end", pad=0.3):
+                    break
     # the critical point
     cx, cy = crit
     crit_text = f"critical point {_temperature_text(data.critical_temperature, system)}, {_pressure_text(data.critical_pressure, system)}"

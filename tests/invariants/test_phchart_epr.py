@@ -137,3 +137,28 @@ def test_single_coil_chart_has_no_epr_parts():
     assert not any(getattr(item, "strokeColor", None) in (EPR_COIL, EPR_SOFT) or
                    (isinstance(item, Circle) and item.fillColor == EPR_COIL)
                    for item in drawing.contents if isinstance(item, (Line, PolyLine, Circle)))
+
+
+def test_three_coils_every_warmer_isobar_is_named_and_no_label_overlaps():
+    """Two warmer coils close together (a long room name): each isobar keeps a label,
+    with the coil's name or at least its mark, and the labels stay apart (IP units)."""
+    from reportlab.graphics.shapes import Line
+
+    from coldroom.cycle import solve_system_cycle
+    from coldroom.report.phchart import CYCLE_SOFT, EPR_SOFT, ph_chart
+
+    coils = COILS + [(2.0, 5.0, 1000.0)]
+    cycle = solve_system_cycle("R-448A", coils, 40.0, suction_line_superheat=5.0)
+    names = ["Freezer", "Cooler", "Very long produce room name"]
+    drawing = ph_chart(cycle, "IP", 520.0, 420.0, coil_names=names, valve_inlet_pressure=cycle.states[2].p - 50e3)
+    texts = [s.text for s in _strings(drawing)]
+    assert len([item for item in drawing.contents if isinstance(item, Line) and item.strokeColor == EPR_SOFT]) == 2
+    for mark, name in (("1a", "Cooler"), ("1b", "Very long")):
+        assert any(t.startswith(f"{mark}:") for t in texts), mark
+        assert any(t.endswith("dew (EPR)") and (t.startswith(name) or t.startswith(f"{mark} ")) for t in texts), name
+    plot = next(item for item in drawing.contents if isinstance(item, Line) and item.strokeColor == CYCLE_SOFT)
+    boxes = _boxes(drawing, plot.x1, 0.0, plot.x2, 420.0)
+    for i, (ta, a) in enumerate(boxes):
+        for tb, b in boxes[i + 1:]:
+            overlap = min(a[2], b[2]) - max(a[0], b[0]) > 0.5 and min(a[3], b[3]) - max(a[1], b[1]) > 0.5
+            assert not overlap, f"{ta!r} overlaps {tb!r}"

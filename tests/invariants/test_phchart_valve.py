@@ -131,7 +131,7 @@ def test_flashed_liquid_is_drawn_inside_the_dome_with_its_quality():
     assert rows[4][0].startswith("3v") and rows[4][5] == f"{q_ref:.3f}"
     texts = [s.text for s in _strings(ph_chart(cycle, "SI", 520.0, 420.0, valve_inlet_pressure=pressure))]
     label = next(t for t in texts if t.startswith("3v:"))
-    assert f"x = {q_ref:.2f}" in label
+    assert f"x = {q_ref:.3f}" in label
 
 
 def test_no_valve_point_without_a_pressure_change():
