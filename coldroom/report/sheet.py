@@ -600,7 +600,7 @@ def _valve_inlet(cycle: Any, system: Any) -> tuple[Any, Optional[float]]:
 
 def _cycle_flowables(ctx: SheetContext, cycle: Any, remark: str = "", system: Any = None) -> list:
     """State table and p–h chart of a solved cycle (a room's, or a system's of several rooms)."""
-    from coldroom.report.phchart import state_rows
+    from coldroom.report.phchart import state_rows, warm_coils
 
     w = ctx.width
     valve, valve_pressure = _valve_inlet(cycle, system)
@@ -611,6 +611,15 @@ def _cycle_flowables(ctx: SheetContext, cycle: Any, remark: str = "", system: An
         )
     # the coils in the order of cycle.coil_outlets: the system's members (rooms)
     coil_names = [member.room for member in system.members] if system is not None and system.cycle is cycle else None
+    marks = [mark for mark, _, _ in warm_coils(cycle, coil_names)]
+    if marks:
+        remark = (remark + " " if remark else "") + (
+            f"State {marks[0]} is the warmer coil's outlet at its own evaporating pressure, before its EPR "
+            "throttles the vapour at constant enthalpy to the coldest coil's pressure."
+            if len(marks) == 1 else
+            f"States {', '.join(marks)} are the warmer coils' outlets at their own evaporating pressures, before "
+            "their EPRs throttle the vapour at constant enthalpy to the coldest coil's pressure."
+        )
     rows = state_rows(cycle, ctx.system, valve, coil_names)
     table = grid(rows, [0.25 * w, 0.15 * w, 0.14 * w, 0.16 * w, 0.18 * w, 0.12 * w], align_right=(1, 2, 3, 4, 5))
     chart = _ph_chart(ctx, cycle, valve_pressure if valve is not None else None, coil_names)

@@ -162,3 +162,30 @@ def test_three_coils_every_warmer_isobar_is_named_and_no_label_overlaps():
         for tb, b in boxes[i + 1:]:
             overlap = min(a[2], b[2]) - max(a[0], b[0]) > 0.5 and min(a[3], b[3]) - max(a[1], b[1]) > 0.5
             assert not overlap, f"{ta!r} overlaps {tb!r}"
+
+
+def test_sheet_of_the_combination_demo_names_the_warmer_coil():
+    """The demo with a cooler and a freezer on one condensing unit: the system's page names
+    the cooler's coil on its isobar, with the dew temperature the sizing gave the cooler,
+    and lists its outlet at the pressure CoolProp gives that dew temperature."""
+    import io
+    import re
+    from pathlib import Path
+
+    import pypdf
+
+    from coldroom.project import open_project
+    from coldroom.report.sheet import render_sheet
+    from coldroom.sizing import size_project
+
+    path = Path(__file__).resolve().parents[2] / "project_files" / "combo_cooler_freezer.yaml"
+    model = open_project(path).model
+    result = size_project(model, str(path), path.read_bytes())
+    (system,) = [s for s in result.systems if len(s.members) > 1]
+    (cooler,) = [m for m in system.members if m.regulated]
+    CP, state = _coolprop(system.refrigerant)
+    state.update(CP.QT_INPUTS, 1.0, cooler.evaporating_temperature + 273.15)
+    text = " ".join(page.extract_text() or "" for page in pypdf.PdfReader(io.BytesIO(render_sheet(result, model))).pages)
+    text = re.sub(r"\s+", " ", text).replace("−", "-")
+    assert f"{cooler.room} coil {cooler.evaporating_temperature:.1f} °C dew (EPR)" in text
+    assert f"1a outlet, {cooler.room} (EPR) {state.p() / 1000:,.0f} kPa" in text
