@@ -311,6 +311,8 @@ def _near_critical_isotherm(fluid, temperature: float, p_low: float, p_high: flo
     segments: list[tuple[Point, ...]] = []
     phases: list[str] = []
     if not crossings:
+        if temperature <= fluid.critical_temperature:
+            return None  # below the critical temperature the envelope must be crossed: trace incomplete
         # one phase at every pressure: above the envelope's highest temperature
         line = run(_geometric(p_high, p_low, 30) + _near_pressures(fluid.critical_pressure, p_low, p_high), ("gas", "liquid"))
         segments.append(tuple(sorted(set(line), key=lambda pt: -pt[1])))
