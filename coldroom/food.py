@@ -36,7 +36,7 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass, field
 from functools import cached_property
-from typing import Protocol, runtime_checkable
+from typing import Any, Protocol, Sequence, runtime_checkable
 
 from coldroom.errors import CalculationError, unknown_name
 from coldroom.registry import Registry
@@ -474,6 +474,33 @@ class CompositionModel:
     @cached_property
     def _reference_enthalpy(self) -> float:
         return self._absolute_enthalpy(REFERENCE_TEMPERATURE)
+
+    def enthalpies(self, temperatures: Sequence[float]) -> list[float]:
+        """:meth:`enthalpy` at each of *temperatures* [°C], in one vectorised pass [J/kg].
+
+        The same terms as :meth:`enthalpy` (agreement to rounding is tested), for the
+        pull-down's tables of hundreds of temperatures.
+        """
+        import numpy as np
+
+        t = np.asarray(temperatures, dtype=float)
+        f = self._fractions
+
+        def sensible(component: str) -> Any:
+            a, b, c = _CP[component]
+            return 1000.0 * (a * t + b * t * t / 2.0 + c * t**3 / 3.0)
+
+        h = np.zeros_like(t)
+        for component in _SOLIDS:
+            h = h + f[component] * sensible(component)
+        t_f = self.freezing_point
+        freezable = f["water"] - self.bound_water
+        with np.errstate(divide="ignore", invalid="ignore"):
+            frozen = np.minimum(np.maximum(freezable * (1.0 - t_f / t), 0.0), freezable)
+        ice = np.where(t >= t_f, 0.0, frozen)
+        h = h + ice * sensible("ice")
+        h = h + (f["water"] - ice) * (LATENT_HEAT_WATER + sensible("water"))
+        return (h - self._reference_enthalpy).tolist()
 
     def sensible_specific_heat(self, temperature: float) -> float:
         """Specific heat without latent release: Σ x_i·c_i with the water split

@@ -88,6 +88,9 @@ class ThermalMass:
         [°C].
     enthalpy : callable, optional
         Specific enthalpy h(T) [J/kg] of T [°C], increasing; default c·T.
+    enthalpies : callable, optional
+        The same enthalpy for a sequence of temperatures at once (a vectorised
+        form of *enthalpy*, used for the inversion tables when given).
     specific_heat : float
         [J/(kg·K)] when no *enthalpy* is given.
     final_temperature : float, optional
@@ -104,6 +107,7 @@ class ThermalMass:
     specific_heat: float = 0.0
     final_temperature: Optional[float] = None
     asked_time: Optional[float] = None
+    enthalpies: Optional[Callable[[Sequence[float]], Sequence[float]]] = None  # h at many T at once (optional)
 
     def h(self, temperature: float) -> float:
         """Specific enthalpy [J/kg]."""
@@ -230,7 +234,7 @@ def _inverse_table(mass: ThermalMass, low: float, high: float) -> tuple[list[flo
     """(enthalpies, temperatures) on a grid dense enough to invert h(T) by interpolation."""
     n = 400
     temps = [low + (high - low) * i / (n - 1) for i in range(n)]
-    enth = [mass.h(t) for t in temps]
+    enth = list(mass.enthalpies(temps)) if mass.enthalpies is not None else [mass.h(t) for t in temps]
     for a, b in zip(enth, enth[1:]):
         if not b > a:
             raise CalculationError(f"the enthalpy of {mass.name} does not rise with temperature")
@@ -500,6 +504,7 @@ def room_masses(room: "Room", half_cooling_time: float = DEFAULT_HALF_COOLING_TI
                     half_cooling_conductance(m, c, half_cooling_time),
                     item.entering_temperature,
                     enthalpy=properties.enthalpy,
+                    enthalpies=getattr(properties, "enthalpies", None),
                     final_temperature=item.final_temperature,
                     asked_time=item.pulldown_time,
                 )
@@ -528,6 +533,7 @@ def room_masses(room: "Room", half_cooling_time: float = DEFAULT_HALF_COOLING_TI
                     half_cooling_conductance(item.stored_mass, c, half_cooling_time),
                     room.temperature,
                     enthalpy=properties.enthalpy,
+                    enthalpies=getattr(properties, "enthalpies", None),
                 )
             )
     if room.pulldown.panel_skin:

@@ -251,12 +251,16 @@ def design_unit_capacity(cycle_at: Any, design_capacity: float, room: "Room", te
     air, capacity = [], []
     for offset in PULLDOWN_CAPACITY_OFFSETS:
         t = room.temperature + offset
-        try:
-            other = cycle_at(t - temps.evaporator_td, design_capacity)
-        except CalculationError:
-            continue
+        evaporating = t - temps.evaporator_td
+        if evaporating == temps.evaporating_temperature:  # the design point itself: solved above
+            displacement = reference
+        else:
+            try:
+                displacement = cycle_at(evaporating, design_capacity).displacement
+            except CalculationError:
+                continue
         air.append(t)
-        capacity.append(design_capacity * reference / other.displacement)
+        capacity.append(design_capacity * reference / displacement)
     if not air:  # pragma: no cover - the design point itself solved
         air, capacity = [room.temperature], [design_capacity]
     xs, ys = np.asarray(air), np.asarray(capacity)
