@@ -765,14 +765,21 @@ class Fluid:
         limit = 0.995 * self.critical_pressure if not self._mixture else 0.95 * self.critical_pressure
         return pressure <= limit
 
-    def _update_pt(self, pressure: float, t_kelvin: float, phase: int | None) -> None:
+    def _update_pt(self, pressure: float, t_kelvin: float, phase: int | None, near_density: float = 0.0) -> None:
+        """P–T update, the bulk phase imposed when given; *near_density* [kg/m³] (a nearby
+        state's density, e.g. the saturation state on the same side) seeds the density solve."""
         st = self._state
         if phase is None:
             st.update(CP.PT_INPUTS, pressure, t_kelvin)
             return
         st.specify_phase(phase)
         try:
-            st.update(CP.PT_INPUTS, pressure, t_kelvin)
+            if near_density > 0.0 and math.isfinite(near_density):
+                guess = PyGuessesStructure()
+                guess.rhomolar = near_density / st.molar_mass()
+                st.update_with_guesses(CP.PT_INPUTS, pressure, t_kelvin, guess)
+            else:
+                st.update(CP.PT_INPUTS, pressure, t_kelvin)
         finally:
             st.unspecify_phase()
 
@@ -801,12 +808,15 @@ class Fluid:
             raise ValueError(f"phase must be None, 'gas' or 'liquid', not {phase!r}")
         hint = phase
         phase: int | None = None
+        near = 0.0  # the saturation state's density on the state's side: seeds the density solve
         if self._subcritical(pressure):
             dew = self.saturated_state(1.0, pressure=pressure)
             if (hint is None and temperature > dew.t) or (hint == "gas" and temperature >= dew.t - 1e-6):
                 phase = CP.iphase_gas  # vapour: no bubble point needed
+                near = dew.density
             else:
                 bub = dew if not self.info.zeotropic else self.saturated_state(0.0, pressure=pressure)
+                near = bub.density
                 if hint == "liquid" and temperature <= bub.t + 1e-6:
                     phase = CP.iphase_liquid
                 elif hint is not None:
@@ -830,7 +840,7 @@ class Fluid:
         elif self._mixture:  # pragma: no cover - excluded by _check_pressure
             raise self._fail("supercritical states of mixtures are not supported")
         try:
-            self._update_pt(pressure, t_k, phase)
+            self._update_pt(pressure, t_k, phase, near if self._mixture else 0.0)
             state = self._read(None)
         except ValueError as error:
             raise self._fail(f"no state at {pressure:.6g} Pa, {temperature:.3f} °C: CoolProp: {error}") from None
