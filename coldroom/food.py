@@ -445,9 +445,12 @@ class CompositionModel:
 
     def _absolute_enthalpy(self, temperature: float) -> float:
         """H = Σ x_i·H_i relative to components at 0 °C, ice at 0 °C = 0 [J/kg]."""
+        return self._enthalpy_terms(temperature, self.ice_fraction(temperature))
+
+    def _enthalpy_terms(self, temperature: Any, ice: Any) -> Any:
+        """Σ x_i·H_i at *temperature* with ice fraction *ice* (floats, or numpy arrays alike)."""
         f = self._fractions
         h = sum(f[c] * _component_enthalpy(c, temperature) for c in _SOLIDS)
-        ice = self.ice_fraction(temperature)
         liquid = f["water"] - ice
         h += ice * _component_enthalpy("ice", temperature)
         # Unfrozen (liquid) water: L₀ plus the Choi & Okos liquid-water
@@ -484,22 +487,13 @@ class CompositionModel:
         import numpy as np
 
         t = np.asarray(temperatures, dtype=float)
-        f = self._fractions
-
-        def sensible(component: str) -> Any:
-            a, b, c = _CP[component]
-            return 1000.0 * (a * t + b * t * t / 2.0 + c * t**3 / 3.0)
-
-        h = np.zeros_like(t)
-        for component in _SOLIDS:
-            h = h + f[component] * sensible(component)
+        # the ice fraction of :meth:`ice_fraction`, element by element
         t_f = self.freezing_point
-        freezable = f["water"] - self.bound_water
+        freezable = self._fractions["water"] - self.bound_water
         with np.errstate(divide="ignore", invalid="ignore"):
             frozen = np.minimum(np.maximum(freezable * (1.0 - t_f / t), 0.0), freezable)
         ice = np.where(t >= t_f, 0.0, frozen)
-        h = h + ice * sensible("ice")
-        h = h + (f["water"] - ice) * (LATENT_HEAT_WATER + sensible("water"))
+        h = self._enthalpy_terms(t, ice)
         return (h - self._reference_enthalpy).tolist()
 
     def sensible_specific_heat(self, temperature: float) -> float:

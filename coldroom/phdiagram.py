@@ -193,19 +193,36 @@ def _dome(fluid, p_low: float, grid: Sequence[_Level]) -> tuple[list[Point], lis
     return bubble, dew
 
 
-def _isotherm(fluid, temperature: float, p_low: float, p_high: float, grid: Sequence[_Level]) -> ChartLine | None:
-    """One isotherm across the window: liquid, two-phase, vapour (or one supercritical piece)."""
+#: A mixture's isotherms from this far below its critical temperature up to
+#: :data:`BAND_ABOVE` above it are drawn by :func:`_near_critical_isotherm` where
+#: the saturation look-ups of :func:`_isotherm` fail [K].
+BAND_BELOW, BAND_ABOVE = 10.0, 3.0
+#: Single-phase states of a near-critical isotherm keep this relative distance in
+#: pressure from the traced phase envelope (its crossings are interpolated).
+ENVELOPE_MARGIN = 0.01
+
+
+def _states_along(fluid, temperature: float, pressures: Sequence[float], phases: Sequence[str]) -> tuple[Point, ...]:
+    """(h, p) of the states at *temperature* [°C] at each of *pressures* [Pa], the first of
+    *phases* ("liquid", "gas") that can be computed there; a pressure where none can is skipped."""
     from coldroom.refrigerant import chart_state_pt
 
-    def run(pressures: Sequence[float], phase: str) -> tuple[Point, ...]:
-        out = []
-        for p in pressures:
+    out = []
+    for p in pressures:
+        for phase in phases:
             try:
                 s = chart_state_pt(fluid, p, temperature, phase)
             except PropertyRangeError:
                 continue
             out.append((s.h, s.p))
-        return tuple(out)
+            break
+    return tuple(out)
+
+
+def _isotherm(fluid, temperature: float, p_low: float, p_high: float, grid: Sequence[_Level]) -> ChartLine | None:
+    """One isotherm across the window: liquid, two-phase, vapour (or one supercritical piece)."""
+    def run(pressures: Sequence[float], phase: str) -> tuple[Point, ...]:
+        return _states_along(fluid, temperature, pressures, (phase,))
 
     mixture = fluid.info.model == "mixture"
     tc = fluid.critical_temperature
@@ -254,8 +271,8 @@ def _isotherm(fluid, temperature: float, p_low: float, p_high: float, grid: Sequ
             segments.append(vapour)
             phases.append("vapour")
     else:
-        if mixture and temperature < tc + 3.0:
-            return None  # a mixture's retrograde band around its critical point
+        if mixture and temperature < tc + BAND_ABOVE:
+            return None  # a mixture's retrograde band around its critical point (_near_critical_isotherm)
         line = run(_geometric(p_high, p_low, 30), "gas")
         if len(line) >= 2:
             segments.append(line)
@@ -266,13 +283,6 @@ def _isotherm(fluid, temperature: float, p_low: float, p_high: float, grid: Sequ
     return ChartLine("isotherm", float(temperature), tuple(s for s, _ in segments_kept), tuple(ph for _, ph in segments_kept))
 
 
-#: A mixture's isotherms from this far below its critical temperature up to
-#: :data:`BAND_ABOVE` above it are drawn by :func:`_near_critical_isotherm` where
-#: the saturation look-ups of :func:`_isotherm` fail [K].
-BAND_BELOW, BAND_ABOVE = 10.0, 3.0
-#: Single-phase states of a near-critical isotherm keep this relative distance in
-#: pressure from the traced phase envelope (its crossings are interpolated).
-ENVELOPE_MARGIN = 0.01
 
 
 def _near_critical_isotherm(fluid, temperature: float, p_low: float, p_high: float,
@@ -289,7 +299,7 @@ def _near_critical_isotherm(fluid, temperature: float, p_low: float, p_high: flo
     close to the critical point). Where no state can be computed the line has
     a gap. The tests check every point against CoolProp's P–H flash.
     """
-    from coldroom.refrigerant import chart_state_pt, envelope_crossings
+    from coldroom.refrigerant import envelope_crossings
 
     try:
         crossings = envelope_crossings(fluid, temperature)
@@ -297,16 +307,7 @@ def _near_critical_isotherm(fluid, temperature: float, p_low: float, p_high: flo
         return None
 
     def run(pressures: Sequence[float], order: Sequence[str]) -> tuple[Point, ...]:
-        out = []
-        for p in pressures:
-            for phase in order:
-                try:
-                    s = chart_state_pt(fluid, p, temperature, phase)
-                except PropertyRangeError:
-                    continue
-                out.append((s.h, s.p))
-                break
-        return tuple(out)
+        return _states_along(fluid, temperature, pressures, order)
 
     segments: list[tuple[Point, ...]] = []
     phases: list[str] = []

@@ -1353,8 +1353,9 @@ def _chart_state(fluid: Fluid, purpose: str = "states") -> AbstractState:
 def _envelope_points(fluid: Fluid) -> tuple[tuple[float, float, float], ...]:
     """A mixture's phase envelope as CoolProp traces it [ref:coolprop]: (T [°C], p [Pa],
     h [J/kg] of the bulk composition) from the dew branch's low end over the point
-    of highest pressure to the bubble branch's low end; non-finite points left out.
-    Computed once per mixture and process (about 0.2 s)."""
+    of highest pressure to the bubble branch's low end, as traced (callers skip the
+    non-finite points CoolProp may return). Computed once per mixture and process
+    (about 0.2 s)."""
     name = fluid.info.name
     found = _ENVELOPE_POINTS.get(name)
     if found is not None:

@@ -40,3 +40,14 @@ def pytest_sessionfinish(session, exitstatus):  # noqa: ARG001 - pytest's hook s
             elif isinstance(value, dict) and any(type(v).__module__.startswith("CoolProp") for v in list(value.values())[:1]):
                 value.clear()
     gc.collect()
+
+
+def drawing_strings(node):
+    """Every reportlab ``String`` in a Drawing or Group, nested groups included (for chart tests)."""
+    from reportlab.graphics.shapes import Group, String
+
+    for item in getattr(node, "contents", []):
+        if isinstance(item, String):
+            yield item
+        elif isinstance(item, Group):
+            yield from drawing_strings(item)

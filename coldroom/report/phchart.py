@@ -32,8 +32,10 @@ the stand-alone page of ``coldroom cycle --out``.
 
 from __future__ import annotations
 
+import hashlib
 import math
 from dataclasses import dataclass
+from functools import lru_cache
 from typing import Any, Iterable, Sequence
 
 from reportlab.graphics.shapes import Circle, Drawing, Group, Line, PolyLine, Polygon, Rect, String
@@ -227,10 +229,11 @@ def state_rows(cycle: Any, system: str, valve_inlet: Any = None,
     }
     by_name = dict(cycle_states(cycle, valve_inlet))
     rows = [["State", "Pressure", "Temperature", "Enthalpy", "Entropy", "Quality"]]
-    for mark, name, st in warm_coils(cycle, coil_names):
+    warm = warm_coils(cycle, coil_names)
+    for mark, name, st in warm:
         names[mark] = f"{mark} outlet, {_short(name)} (EPR)"
         by_name[mark] = st
-    for key in ("1", "2", "3", "3v", "4", "1e", *(m for m, _, _ in warm_coils(cycle, coil_names))):
+    for key in ("1", "2", "3", "3v", "4", "1e", *(m for m, _, _ in warm)):
         st = by_name.get(key)
         if st is None:
             continue
@@ -509,6 +512,29 @@ class _Plot:
     p_hi: float
     lp_lo: float
     lp_hi: float
+    system: str
+
+    def x(self, h_si: float) -> float:
+        """Drawing x [pt] of an SI enthalpy [J/kg]."""
+        hd = _display(self.system)[0]
+        return self.x0 + (self.x1 - self.x0) * (hd(h_si) - self.h_lo) / (self.h_hi - self.h_lo)
+
+    def y(self, p_si: float) -> float:
+        """Drawing y [pt] of an SI pressure [Pa] (logarithmic axis)."""
+        pd = _display(self.system)[1]
+        return self.y0 + (self.y1 - self.y0) * (math.log10(pd(p_si)) - self.lp_lo) / (self.lp_hi - self.lp_lo)
+
+
+@lru_cache(maxsize=None)
+def _display(system: str) -> tuple[Any, Any]:
+    """The display value of an SI enthalpy and of an SI pressure in *system* (two callables)."""
+    units = _units.DISPLAY_UNITS[system]
+    return (_units.unit_for("specific_energy", units["specific_energy"]).from_si,
+            _units.unit_for("pressure", units["pressure"]).from_si)
+
+
+#: Height of the strip above the plot that carries the enthalpy spans [pt].
+_STRIP = 52.0
 
 
 @dataclass
@@ -527,23 +553,19 @@ class _Background:
 
 
 def _plot(window: Window, system: str, width: float, height: float, title: str) -> _Plot:
-    h_unit = _units.DISPLAY_UNITS[system]["specific_energy"]
-    p_unit = _units.DISPLAY_UNITS[system]["pressure"]
-    hd = _units.unit_for("specific_energy", h_unit).from_si
-    pd = _units.unit_for("pressure", p_unit).from_si
+    hd, pd = _display(system)
     # layout: title, the span strip, the plot, the axes
     top_title = 14.0 if title else 0.0
-    strip = 52.0
     left, right, bottom = 50.0, 14.0, 42.0
     x0, y0 = left, bottom
-    x1, y1 = width - right, height - top_title - strip
+    x1, y1 = width - right, height - top_title - _STRIP
     h_lo, h_hi = hd(window.enthalpy_low), hd(window.enthalpy_high)
     h_ticks = linear_ticks(h_lo, h_hi, 8)
     step = h_ticks[1] - h_ticks[0] if len(h_ticks) > 1 else (h_hi - h_lo)
     h_lo = math.floor(h_lo / step) * step
     h_hi = math.ceil(h_hi / step) * step
     p_lo, p_hi = pd(window.pressure_low), pd(window.pressure_high)
-    return _Plot(x0, y0, x1, y1, h_lo, h_hi, p_lo, p_hi, math.log10(p_lo), math.log10(p_hi))
+    return _Plot(x0, y0, x1, y1, h_lo, h_hi, p_lo, p_hi, math.log10(p_lo), math.log10(p_hi), system)
 
 
 _BACKGROUNDS: dict[tuple, _Background] = {}
@@ -562,8 +584,6 @@ def _background(refrigerant: str, window: Window, system: str, plot: _Plot) -> _
         if len(_BACKGROUNDS) >= 64:
             _BACKGROUNDS.clear()
         found = _BACKGROUNDS[key] = _build_background(refrigerant, window, system, plot)
-        import hashlib
-
         found.name = "phchart" + hashlib.sha1(repr(key).encode("utf-8")).hexdigest()[:16]
     return found
 
@@ -574,20 +594,13 @@ def _build_background(refrigerant: str, window: Window, system: str, plot: _Plot
     data = chart_data(refrigerant, window.pressure_low, window.pressure_high, window.isotherms, window.isentropes)
     h_unit = _units.DISPLAY_UNITS[system]["specific_energy"]
     p_unit = _units.DISPLAY_UNITS[system]["pressure"]
-    hd = _units.unit_for("specific_energy", h_unit).from_si
-    pd = _units.unit_for("pressure", p_unit).from_si
     x0, y0, x1, y1 = plot.x0, plot.y0, plot.x1, plot.y1
     h_lo, h_hi, lp_lo, lp_hi = plot.h_lo, plot.h_hi, plot.lp_lo, plot.lp_hi
     box = (x0, y0, x1, y1)
     drawing = Drawing(1, 1)  # a container: its contents are the shapes
     occupied = _Occupancy()
     strong = _Occupancy()
-
-    def X(h_si: float) -> float:
-        return x0 + (x1 - x0) * (hd(h_si) - h_lo) / (h_hi - h_lo)
-
-    def Y(p_si: float) -> float:
-        return y0 + (y1 - y0) * (math.log10(pd(p_si)) - lp_lo) / (lp_hi - lp_lo)
+    X, Y = plot.x, plot.y
 
     def xy(points: Iterable[tuple[float, float]]) -> list[tuple[float, float]]:
         return [(X(h), Y(p)) for h, p in points]
@@ -676,23 +689,15 @@ def _draw(cycle: Any, window: Window, system: str, width: float, height: float, 
           valve: Any = None, coil_names: Sequence[str] | None = None) -> Drawing:
     h_unit = _units.DISPLAY_UNITS[system]["specific_energy"]
     s_unit = _units.DISPLAY_UNITS[system]["specific_heat"]
-    hd = _units.unit_for("specific_energy", h_unit).from_si  # display value of an SI enthalpy
-    pd = _units.unit_for("pressure", _units.DISPLAY_UNITS[system]["pressure"]).from_si
+    hd = _display(system)[0]  # display value of an SI enthalpy
 
     plot = _plot(window, system, width, height, title)
     x0, y0, x1, y1 = plot.x0, plot.y0, plot.x1, plot.y1
-    h_lo, h_hi, lp_lo, lp_hi = plot.h_lo, plot.h_hi, plot.lp_lo, plot.lp_hi
-    strip = 52.0
     box = (x0, y0, x1, y1)
     states = cycle_states(cycle, valve)
     s1, s2, s3, s4 = cycle.states
     evap_out = cycle.evaporator_outlet
-
-    def X(h_si: float) -> float:
-        return x0 + (x1 - x0) * (hd(h_si) - h_lo) / (h_hi - h_lo)
-
-    def Y(p_si: float) -> float:
-        return y0 + (y1 - y0) * (math.log10(pd(p_si)) - lp_lo) / (lp_hi - lp_lo)
+    X, Y = plot.x, plot.y
 
     drawing = Drawing(width, height)
     if title:
@@ -784,7 +789,7 @@ def _draw(cycle: Any, window: Window, system: str, width: float, height: float, 
     row_y = [y1 + 8.0, y1 + 22.0, y1 + 36.0]
     for x_state in sorted({round(X(s.h), 3) for _, s in states}):
         if x0 <= x_state <= x1:
-            drawing.add(Line(x_state, y1, x_state, y1 + strip - 6.0, strokeColor=RULE, strokeWidth=0.5, strokeDashArray=(1, 1.5)))
+            drawing.add(Line(x_state, y1, x_state, y1 + _STRIP - 6.0, strokeColor=RULE, strokeWidth=0.5, strokeDashArray=(1, 1.5)))
     for (ha, hb, name), y in zip(rows, row_y):
         xa, xb = sorted((min(max(X(hb), x0), x1), min(max(X(ha), x0), x1)))
         _span(drawing, xa, xb, y, f"{name} {_fmt(hd(ha) - hd(hb), 1)} {h_unit}")

@@ -19,6 +19,7 @@ import math
 import pytest
 
 from coldroom.data.refrigerants import CATALOGUE
+from tests.conftest import drawing_strings
 
 # a pure fluid, a pseudo-pure zeotrope, a mixture (zeotrope), transcritical R-744
 CASES = {
@@ -166,27 +167,17 @@ def test_dome_branches_meet_at_the_stored_critical_point(info):
     assert abs(dew[-1][0] - bubble[-1][0]) < 0.25 * span_low
 
 
-def _strings(node):
-    from reportlab.graphics.shapes import Group, String
-
-    for item in getattr(node, "contents", []):
-        if isinstance(item, String):
-            yield item
-        elif isinstance(item, Group):
-            yield from _strings(item)
-
-
 def test_ip_chart_ticks_are_round_psia():
     from coldroom.cycle import solve_cycle
     from coldroom.report.phchart import ph_chart
 
     cycle = solve_cycle("R-134a", -10.0, 40.0, 5000.0, suction_line_superheat=5.0)
     drawing = ph_chart(cycle, "IP", 500.0, 400.0)
-    texts = [s.text for s in _strings(drawing)]
+    texts = [s.text for s in drawing_strings(drawing)]
     assert any("psia" in t for t in texts) and any("Btu/lb" in t for t in texts)
     assert not any("kPa" in t or "kJ/kg" in t for t in texts)
     # the pressure ticks: right-anchored numbers left of the plot
-    ticks = [float(s.text.replace(",", "")) for s in _strings(drawing)
+    ticks = [float(s.text.replace(",", "")) for s in drawing_strings(drawing)
              if s.textAnchor == "end" and s.text.replace(",", "").isdigit()]
     assert len(ticks) >= 3
     for v in ticks:

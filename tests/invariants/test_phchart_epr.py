@@ -18,18 +18,9 @@ from __future__ import annotations
 
 import pytest
 from reportlab.pdfbase.pdfmetrics import stringWidth
+from tests.conftest import drawing_strings
 
 COILS = [(-25.0, 6.0, 3000.0), (-4.0, 5.0, 2000.0)]  # freezer coil, cooler coil behind an EPR
-
-
-def _strings(node):
-    from reportlab.graphics.shapes import Group, String
-
-    for item in getattr(node, "contents", []):
-        if isinstance(item, String):
-            yield item
-        elif isinstance(item, Group):
-            yield from _strings(item)
 
 
 @pytest.fixture(scope="module", params=["R-448A", "R-134a"])
@@ -69,7 +60,7 @@ def test_coil_outlets_are_each_coils_own_state(system_cycle):
 def _boxes(drawing, x0, y0, x1, y1):
     """Boxes of the labels inside the plot (the placer's text: anchors start, end, middle)."""
     out = []
-    for s in _strings(drawing):
+    for s in drawing_strings(drawing):
         w = stringWidth(s.text, s.fontName, s.fontSize)
         bx0 = s.x if s.textAnchor == "start" else s.x - w if s.textAnchor == "end" else s.x - w / 2
         box = (bx0, s.y - 1.0, bx0 + w, s.y + 0.7 * s.fontSize)
@@ -87,7 +78,7 @@ def test_chart_draws_the_warmer_coil_and_its_throttle(system_cycle):
     CP, state = _coolprop(name)
     warm = cycle.coil_outlets[1]
     drawing = ph_chart(cycle, "SI", 520.0, 420.0, coil_names=["Freezer", "Cooler"])
-    texts = [s.text for s in _strings(drawing)]
+    texts = [s.text for s in drawing_strings(drawing)]
     # the isobar's name: the coil's dew temperature at its pressure, by CoolProp
     state.update(CP.PQ_INPUTS, warm.p, 1.0)
     t_dew = state.T() - 273.15
@@ -133,7 +124,7 @@ def test_single_coil_chart_has_no_epr_parts():
     cycle = solve_system_cycle("R-448A", [COILS[0]], 40.0)
     assert cycle.coil_outlets == ()
     drawing = ph_chart(cycle, "SI", 520.0, 420.0, coil_names=["Freezer"])
-    assert not any("EPR" in s.text or s.text.startswith("1a") for s in _strings(drawing))
+    assert not any("EPR" in s.text or s.text.startswith("1a") for s in drawing_strings(drawing))
     assert not any(getattr(item, "strokeColor", None) in (EPR_COIL, EPR_SOFT) or
                    (isinstance(item, Circle) and item.fillColor == EPR_COIL)
                    for item in drawing.contents if isinstance(item, (Line, PolyLine, Circle)))
@@ -151,7 +142,7 @@ def test_three_coils_every_warmer_isobar_is_named_and_no_label_overlaps():
     cycle = solve_system_cycle("R-448A", coils, 40.0, suction_line_superheat=5.0)
     names = ["Freezer", "Cooler", "Very long produce room name"]
     drawing = ph_chart(cycle, "IP", 520.0, 420.0, coil_names=names, valve_inlet_pressure=cycle.states[2].p - 50e3)
-    texts = [s.text for s in _strings(drawing)]
+    texts = [s.text for s in drawing_strings(drawing)]
     assert len([item for item in drawing.contents if isinstance(item, Line) and item.strokeColor == EPR_SOFT]) == 2
     for mark, name in (("1a", "Cooler"), ("1b", "Very long")):
         assert any(t.startswith(f"{mark}:") for t in texts), mark

@@ -21,18 +21,9 @@ import re
 from pathlib import Path
 
 import pytest
+from tests.conftest import drawing_strings
 
 REPO = Path(__file__).resolve().parents[2]
-
-
-def _strings(node):
-    from reportlab.graphics.shapes import Group, String
-
-    for item in getattr(node, "contents", []):
-        if isinstance(item, String):
-            yield item
-        elif isinstance(item, Group):
-            yield from _strings(item)
 
 
 def _coolprop(name: str, p: float, h: float) -> tuple[float, float]:
@@ -93,11 +84,11 @@ def test_valve_inlet_is_its_own_state_on_the_chart(name, drop):
     # the chart: a marker on state 3's enthalpy between 3 and 4, the label, the path 3 → 3v → 4
     drawing = ph_chart(cycle, "SI", 520.0, 420.0, valve_inlet_pressure=pressure)
     plain = ph_chart(cycle, "SI", 520.0, 420.0)
-    texts = [s.text for s in _strings(drawing)]
+    texts = [s.text for s in drawing_strings(drawing)]
     label = next(t for t in texts if t.startswith("3v:"))
     assert f"{pressure / 1000:,.0f} kPa" in label
     assert abs(float(re.search(r"(−?\d+\.\d) °C", label).group(1).replace("−", "-")) - t_ref) <= 0.051
-    assert not any(s.text.startswith("3v") for s in _strings(plain))
+    assert not any(s.text.startswith("3v") for s in drawing_strings(plain))
     markers, before = _markers(drawing), _markers(plain)
     (new,) = [m for m in markers if m not in before]  # the one marker more: 3v (same window here)
     xv, yv = new
@@ -129,7 +120,7 @@ def test_flashed_liquid_is_drawn_inside_the_dome_with_its_quality():
     assert abs(valve.t - get_fluid("R-134a").dew_temperature(pressure)) < 0.01  # pure fluid: on the isobar's saturation
     rows = state_rows(cycle, "SI", valve)
     assert rows[4][0].startswith("3v") and rows[4][5] == f"{q_ref:.3f}"
-    texts = [s.text for s in _strings(ph_chart(cycle, "SI", 520.0, 420.0, valve_inlet_pressure=pressure))]
+    texts = [s.text for s in drawing_strings(ph_chart(cycle, "SI", 520.0, 420.0, valve_inlet_pressure=pressure))]
     label = next(t for t in texts if t.startswith("3v:"))
     assert f"x = {q_ref:.3f}" in label
 
