@@ -371,10 +371,13 @@ def _high_side(
     isentropic_efficiency: float,
     liquid: StatePoint | None,
     gas_cooler_outlet_temperature: float | None,
-) -> tuple[StatePoint, StatePoint, StatePoint]:
-    """States 2s, 2, 3 at high-side pressure *p_high*."""
+    actual: bool = True,
+) -> tuple[StatePoint, StatePoint | None, StatePoint]:
+    """States 2s, 2, 3 at high-side pressure *p_high* (2 is None unless *actual*)."""
     s2s = fluid.state_ps(p_high, state1.s)
-    if isentropic_efficiency == 1.0:
+    if not actual:
+        s2 = None
+    elif isentropic_efficiency == 1.0:
         s2 = s2s
     else:
         h2 = state1.h + (s2s.h - state1.h) / isentropic_efficiency  # [mem, textbooks] [ref:stoecker-jones]
@@ -402,6 +405,7 @@ def solve_cycle(
     high_side_pressure: float | None = None,
     discharge_pressure_drop: float = 0.0,
     _warmer: tuple[tuple[float, float, float], ...] = (),
+    _displacement_only: bool = False,
 ) -> CycleResult:
     """Solve a single-stage vapour-compression cycle for a refrigerating capacity.
 
@@ -545,8 +549,6 @@ def solve_cycle(
             first = fluid.state_pt(p_suction, out.t + suction_line_superheat, phase="gas")
         return out, first, flows
 
-    glide_evap = te - fluid.bubble_temperature(p_evap) if info.is_blend else 0.0
-
     # --- high side --------------------------------------------------------
     liao = None
     if transcritical:
@@ -580,24 +582,18 @@ def solve_cycle(
         evap_out, state1, flows = suction_states(liquid.h)
         if discharge_pressure_drop > 0:  # compressor works against condenser + discharge-line drop
             p_high = fluid.dew_pressure(tc + discharge_pressure_drop)
-        s2s, state2, state3 = _high_side(fluid, state1, p_high, isentropic_efficiency, liquid, None)
+        s2s, state2, state3 = _high_side(fluid, state1, p_high, isentropic_efficiency, liquid, None,
+                                         actual=not _displacement_only)
         glide_cond = tc - bubble.t if info.is_blend else 0.0
         t_reject = tc
     if p_high <= p_suction:
         raise CalculationError("high-side pressure must exceed the suction pressure")
 
-    # --- expansion (h4 = h3) ---------------------------------------------
-    state4 = replace(fluid.state_ph(p_evap, state3.h), h=state3.h)
-
-    # --- performance ------------------------------------------------------
-    refrigerating_effect = evap_out.h - state4.h
+    # --- mass flow and compressor displacement (h4 = h3) -----------------
+    refrigerating_effect = evap_out.h - state3.h
     if refrigerating_effect <= 0:
         raise CalculationError(f"no refrigerating effect ({refrigerating_effect:.1f} J/kg) at these conditions")
     mass_flow = capacity / refrigerating_effect
-    work = state2.h - state1.h
-    power = mass_flow * work
-    condenser_duty = mass_flow * (state2.h - state3.h)
-    suction_gain = mass_flow * (state1.h - evap_out.h)
     volume_flow = mass_flow / state1.density
     pressure_ratio = p_high / p_suction
     if polytropic_exponent is None:
@@ -612,6 +608,17 @@ def solve_cycle(
             f"{clearance}: a single-stage compressor cannot pump at these conditions"
         )
     displacement = volume_flow / eta_v
+    if _displacement_only:
+        return displacement  # type: ignore[return-value]  # see compressor_displacement
+
+    # --- expansion outlet and performance -------------------------------
+    assert state2 is not None
+    state4 = replace(fluid.state_ph(p_evap, state3.h), h=state3.h)
+    glide_evap = te - fluid.bubble_temperature(p_evap) if info.is_blend else 0.0
+    work = state2.h - state1.h
+    power = mass_flow * work
+    condenser_duty = mass_flow * (state2.h - state3.h)
+    suction_gain = mass_flow * (state1.h - evap_out.h)
     cop = capacity / power
     te_k, tr_k = te + KELVIN, t_reject + KELVIN
     carnot = te_k / (tr_k - te_k)  # Carnot refrigerator COP, any thermodynamics text
@@ -660,6 +667,30 @@ def solve_cycle(
         warnings=warnings,
         evaporator_flows=flows if _warmer else (mass_flow,),
         coil_outlets=(coil_out,) + warm_outlets if _warmer else (),
+    )
+
+
+def compressor_displacement(
+    refrigerant: str,
+    evaporating_temperature: float,
+    condensing_temperature: float | None,
+    capacity: float,
+    **options: float | None,
+) -> float:
+    """Compressor displacement [m³/s] the cycle needs for *capacity*: exactly
+    ``solve_cycle(...).displacement`` for the same arguments (the keywords are
+    :func:`solve_cycle`'s), without the states that do not bear on it (the
+    expansion-valve outlet and the actual discharge), so about half the work for
+    a blend. For capacity curves such as the pull-down's.
+
+    Examples
+    --------
+    >>> compressor_displacement("R134a", -10.0, 40.0, 5000.0) == solve_cycle("R134a", -10.0, 40.0, 5000.0).displacement
+    True
+    """
+    return solve_cycle(  # type: ignore[return-value]
+        refrigerant, evaporating_temperature, condensing_temperature, capacity,
+        _displacement_only=True, **options,  # type: ignore[arg-type]
     )
 
 

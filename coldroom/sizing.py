@@ -234,7 +234,9 @@ def _member_draw(room: "Room", loads: "RoomLoads") -> "MemberDraw":
 PULLDOWN_CAPACITY_OFFSETS = (-2.0, 0.0, 2.0, 5.0, 10.0, 20.0)
 
 
-def design_unit_capacity(cycle_at: Any, design_capacity: float, room: "Room", temps: DesignTemperatures) -> Any:
+def design_unit_capacity(
+    displacement_at: Any, design_capacity: float, room: "Room", temps: DesignTemperatures
+) -> Any:
     """Capacity [W] of the room's design unit as a function of the room air [°C], for the pull-down.
 
     The compressor keeps the displacement it needs for *design_capacity* at the design
@@ -243,11 +245,12 @@ def design_unit_capacity(cycle_at: Any, design_capacity: float, room: "Room", te
     evaporating temperature = design capacity × design displacement ÷ the displacement the
     cycle needs there for the design capacity (the cycle's own volumetric efficiency and
     refrigerating effect, :func:`coldroom.cycle.solve_cycle`). A room on a system of several
-    rooms is taken with its share of the compressor.
+    rooms is taken with its share of the compressor. *displacement_at(evaporating, capacity)*
+    gives that displacement [m³/s] (:func:`coldroom.cycle.compressor_displacement`).
     """
     import numpy as np
 
-    reference = cycle_at(temps.evaporating_temperature, design_capacity).displacement
+    reference = displacement_at(temps.evaporating_temperature, design_capacity)
     air, capacity = [], []
     for offset in PULLDOWN_CAPACITY_OFFSETS:
         t = room.temperature + offset
@@ -256,7 +259,7 @@ def design_unit_capacity(cycle_at: Any, design_capacity: float, room: "Room", te
             displacement = reference
         else:
             try:
-                displacement = cycle_at(evaporating, design_capacity).displacement
+                displacement = displacement_at(evaporating, design_capacity)
             except CalculationError:
                 continue
         air.append(t)
@@ -284,11 +287,11 @@ def _design_unit_pulldown(
     """The pull-down after a delivery with the design unit, and a warning when the asked time is not met."""
     if not any(p.daily_intake > 0 for p in room.products):
         return None, ()
-    from coldroom.cycle import solve_cycle
+    from coldroom.cycle import compressor_displacement
     from coldroom.pulldown import room_pulldown
 
-    def cycle_at(evaporating: float, capacity: float) -> Any:
-        return solve_cycle(
+    def displacement_at(evaporating: float, capacity: float) -> float:
+        return compressor_displacement(
             refrigerant,
             evaporating,
             condensing,
@@ -301,7 +304,7 @@ def _design_unit_pulldown(
             gas_cooler_outlet_temperature=gas_cooler,
         )
 
-    capacity = design_unit_capacity(cycle_at, loads.design_capacity, room, temps)
+    capacity = design_unit_capacity(displacement_at, loads.design_capacity, room, temps)
     pulldown = room_pulldown(
         model,
         room,

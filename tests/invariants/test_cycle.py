@@ -130,3 +130,24 @@ def test_saturation_dome_shape():
         assert all(l < v for l, v in zip(hl, hv))
         # latent heat shrinks towards the critical point
         assert hv[-1] - hl[-1] < hv[0] - hl[0]
+
+
+@pytest.mark.parametrize(
+    "name, te, tc, options",
+    [
+        ("R-134a", -10.0, 40.0, {}),
+        ("R-448A", -28.0, 45.0, {"suction_line_superheat": 8.0, "suction_pressure_drop": 1.0}),
+        ("R-404A", -30.0, 40.0, {"isentropic_efficiency": 1.0, "discharge_pressure_drop": 0.8}),
+        ("R-290", 2.0, 35.0, {"subcooling": 0.0, "superheat": 0.0, "clearance": 0.0}),
+        ("R-744", -35.0, -5.0, {}),
+        ("R-744", -10.0, None, {"gas_cooler_outlet_temperature": 35.0}),
+    ],
+)
+def test_compressor_displacement_is_the_full_cycles(name, te, tc, options):
+    # The shortcut for capacity curves skips the states that do not bear on the
+    # displacement (expansion outlet, actual discharge): the number must be the
+    # full cycle's to the last bit, whatever the options.
+    from coldroom.cycle import compressor_displacement
+
+    full = solve_cycle(name, te, tc, 4000.0, **options)
+    assert compressor_displacement(name, te, tc, 4000.0, **options) == full.displacement
