@@ -41,6 +41,7 @@ capacity against 2 kW of steady load: it falls (10 − 2) kW ÷ 3.6 MJ/K =
 from __future__ import annotations
 
 import math
+from bisect import bisect_right
 from dataclasses import dataclass
 from typing import TYPE_CHECKING, Any, Callable, Optional, Sequence
 
@@ -244,36 +245,34 @@ def _inverse_table(mass: ThermalMass, low: float, high: float) -> tuple[list[flo
 class _Inverse:
     """T(h) of every mass at once, from tables on one temperature grid.
 
-    Does in one vectorised step what ``np.interp(h[i], enthalpies[i], temperatures)``
-    does row by row — the same bracket xp[j] ≤ x < xp[j+1], the same arithmetic
-    ``slope·(x − xp[j]) + fp[j]``, the ends clamped — so results are bit-identical.
-    Column j of the lookups serves an x with j grid points at or below it (0: below
-    the table, slope 0 and the first temperature; N: at or above the top, slope 0,
-    the last temperature).
+    Gives what ``np.interp(h[i], enthalpies[i], temperatures)`` gives row by row — the
+    same bracket xp[j] ≤ x < xp[j+1] (a binary search), the same arithmetic
+    ``slope·(x − xp[j]) + fp[j]`` in double precision, the ends clamped — so results
+    are bit-identical (tested). Plain Python: for the few masses of a room this is
+    several times quicker than numpy's per-call overhead, and the integrator calls it
+    hundreds of times per room.
     """
 
     def __init__(self, tables: Sequence[tuple[Sequence[float], Sequence[float]]]) -> None:
-        import numpy as np
-
-        if tables:
-            h_grid = np.array([e for e, _ in tables], dtype=float)
-            t_grid = np.asarray(tables[0][1], dtype=float)
-        else:
-            h_grid, t_grid = np.zeros((0, 2)), np.array([0.0, 1.0])
-        zero = np.zeros((h_grid.shape[0], 1))
-        self.h_grid = h_grid
-        self.slope_at = np.hstack([zero, (t_grid[1:] - t_grid[:-1]) / (h_grid[:, 1:] - h_grid[:, :-1]), zero]).ravel()
-        self.base_h = np.hstack([h_grid[:, :1], h_grid]).ravel()
-        self.base_t = np.concatenate([t_grid[:1], t_grid])
-        self.row_start = np.arange(h_grid.shape[0]) * (t_grid.size + 1)
+        self.grids = [[float(v) for v in e] for e, _ in tables]
+        t = [float(v) for v in tables[0][1]] if tables else [0.0, 1.0]
+        self.temperatures = t
+        self.slopes = [[(t[k + 1] - t[k]) / (e[k + 1] - e[k]) for k in range(len(e) - 1)] for e in self.grids]
 
     def __call__(self, h: Any) -> Any:
         import numpy as np
 
-        h = np.asarray(h, dtype=float)
-        j = np.count_nonzero(self.h_grid <= h[:, None], axis=1)
-        at = self.row_start + j
-        return self.slope_at[at] * (h - self.base_h[at]) + self.base_t[j]
+        t = self.temperatures
+        out = []
+        for x, grid, slope in zip(np.asarray(h, dtype=float).tolist(), self.grids, self.slopes):
+            j = bisect_right(grid, x)  # grid points at or below x
+            if j == 0:
+                out.append(t[0])
+            elif j == len(grid):
+                out.append(t[-1])
+            else:
+                out.append(slope[j - 1] * (x - grid[j - 1]) + t[j - 1])
+        return np.array(out)
 
 
 def simulate(
