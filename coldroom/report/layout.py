@@ -15,7 +15,8 @@ from reportlab.lib import colors
 from reportlab.lib.enums import TA_LEFT
 from reportlab.lib.styles import ParagraphStyle
 from reportlab.pdfbase.pdfmetrics import stringWidth
-from reportlab.platypus import BaseDocTemplate, Frame, PageTemplate, Paragraph, Table, TableStyle
+from reportlab.platypus import BaseDocTemplate, Frame, PageTemplate, Table, TableStyle
+from reportlab.platypus import Paragraph as _Paragraph
 
 from coldroom.report.charts import INK, MUTED, RULE
 from coldroom.report.text import clean, esc
@@ -26,6 +27,28 @@ BAND = colors.HexColor("#EEF2F5")
 SOFT = colors.HexColor("#F7F8FA")
 WARN = colors.HexColor("#9A5B2E")
 WARN_BG = colors.HexColor("#FBF4EC")
+
+
+
+class Paragraph(_Paragraph):
+    """reportlab's Paragraph that keeps its line breaking for the width it was last set to.
+
+    Layout asks a paragraph for its size several times at one width (a table sizing
+    its rows, then drawing them; a KeepTogether measuring its group, then the frame
+    placing each piece); breaking the lines again gives the same lines, so the last
+    result is returned instead. The height never depends on the height offered, and a
+    split that discards the lines (``del self.blPara``) forces a fresh break. The PDF is
+    byte-identical to the plain Paragraph's (tested).
+    """
+
+    def wrap(self, availWidth: float, availHeight: float) -> tuple[float, float]:
+        last = self.__dict__.get("_last_wrap")
+        if last is not None and last[0] == availWidth and "blPara" in self.__dict__:
+            return last[1]
+        size = super().wrap(availWidth, availHeight)
+        self._last_wrap = (availWidth, size)
+        return size
+
 
 # --- styles ---------------------------------------------------------------------------------
 

@@ -22,9 +22,9 @@ def verdict_section(ctx: Any) -> list:
     if not rooms:
         return []
     from reportlab.lib.styles import ParagraphStyle
-    from reportlab.platypus import KeepTogether, Paragraph, Spacer
+    from reportlab.platypus import KeepTogether, Spacer
 
-    from coldroom.report.layout import H3, SMALL, figure_boxes, heading, note, warning_box
+    from coldroom.report.layout import H3, SMALL, Paragraph, figure_boxes, heading, note, warning_box
     from coldroom.report.text import esc
 
     s = ctx.system
