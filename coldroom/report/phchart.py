@@ -394,11 +394,14 @@ class _Occupancy:
 
     One integer per row of cells, bit i set when cell i of that row is covered
     (cells left of the drawing's origin are shifted by :attr:`SHIFT` bits), so a
-    label's box is marked and tested a row at a time.
+    label's box is marked and tested a row at a time. Lines may run past the
+    drawing's left edge; labels never do (they stay inside the plot), so the cells
+    more than SHIFT columns to the left may share bit 0: nothing asks about them,
+    and the rows stay short integers (quick to combine).
     """
 
     CELL = 2.0
-    SHIFT = 4096  # bit position of cell column 0; columns left of -SHIFT share bit 0
+    SHIFT = 64  # bit position of cell column 0; columns left of -SHIFT share bit 0
 
     def __init__(self, rows: dict[int, int] | None = None) -> None:
         self.rows: dict[int, int] = dict(rows) if rows else {}
@@ -493,9 +496,18 @@ def ph_chart(cycle: Any, system: str, width: float, height: float, title: str = 
         EPR gets its named dew isobar, its evaporation, its outlet (1a, 1b …)
         and the EPR's isenthalpic throttle to the coldest coil's pressure.
     """
+    from reportlab import rl_config
+
     valve = valve_inlet_state(cycle, valve_inlet_pressure)
     window = choose_window(cycle, system, valve)
-    return _draw(cycle, window, system, width, height, title, valve, coil_names)
+    # the shapes are made here from checked numbers: reportlab's per-attribute
+    # validation (a development aid) is switched off while they are made
+    checking = rl_config.shapeChecking
+    rl_config.shapeChecking = 0
+    try:
+        return _draw(cycle, window, system, width, height, title, valve, coil_names)
+    finally:
+        rl_config.shapeChecking = checking
 
 
 @dataclass(frozen=True)
