@@ -242,6 +242,29 @@ def _inverse_table(mass: ThermalMass, low: float, high: float) -> tuple[list[flo
     return enth, temps
 
 
+def capacity_curve(air: Sequence[float], capacity: Sequence[float]) -> Callable[[float], float]:
+    """A unit's capacity [W] against the room air [°C] through the points (*air* rising):
+    linear between them, flat beyond the ends.
+
+    Gives exactly ``np.interp(x, air, capacity)`` (the same bracket and arithmetic;
+    bit-identical, tested) in plain Python: the integrator asks for it hundreds of
+    times per room, and numpy's per-call overhead is most of the cost of one answer.
+    """
+    xs = [float(v) for v in air]
+    ys = [float(v) for v in capacity]
+
+    def at(air_temperature: float) -> float:
+        j = bisect_right(xs, air_temperature)  # points at or below the air temperature
+        if j == 0:
+            return ys[0]
+        if j == len(xs):
+            return ys[-1]
+        slope = (ys[j] - ys[j - 1]) / (xs[j] - xs[j - 1])
+        return float(slope * (air_temperature - xs[j - 1]) + ys[j - 1])
+
+    return at
+
+
 class _Inverse:
     """T(h) of every mass at once, from tables on one temperature grid.
 
@@ -366,7 +389,7 @@ def simulate(
             ta = quasi_steady_air(tm)
             d = np.empty(n)
         else:
-            ta = y[0]
+            ta = float(y[0])  # a Python float: the same value, quicker arithmetic than numpy's scalar
             tm = temperatures(y[1:])
             d = np.empty(n + 1)
             d[0] = air_balance(ta, tm) / air_heat_capacity

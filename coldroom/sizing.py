@@ -248,7 +248,7 @@ def design_unit_capacity(
     rooms is taken with its share of the compressor. *displacement_at(evaporating, capacity)*
     gives that displacement [m³/s] (:func:`coldroom.cycle.compressor_displacement`).
     """
-    import numpy as np
+    from coldroom.pulldown import capacity_curve
 
     reference = displacement_at(temps.evaporating_temperature, design_capacity)
     air, capacity = [], []
@@ -266,12 +266,7 @@ def design_unit_capacity(
         capacity.append(design_capacity * reference / displacement)
     if not air:  # pragma: no cover - the design point itself solved
         air, capacity = [room.temperature], [design_capacity]
-    xs, ys = np.asarray(air), np.asarray(capacity)
-
-    def at(air_temperature: float) -> float:
-        return float(np.interp(air_temperature, xs, ys))
-
-    return at
+    return capacity_curve(air, capacity)
 
 
 def _design_unit_pulldown(

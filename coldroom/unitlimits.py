@@ -323,8 +323,6 @@ def existing_unit_capacity(model: "ProjectModel", index: int) -> Callable[[float
     the set point plus :data:`PULLDOWN_OFFSETS` (and 2 K below), at the design condenser air;
     no balance or outside the envelope counts as no capacity. Linear in between.
     """
-    import numpy as np
-
     t0 = model.rooms[index].temperature
     xs, ys = [], []
     for offset in (-2.0,) + PULLDOWN_OFFSETS:
@@ -335,12 +333,9 @@ def existing_unit_capacity(model: "ProjectModel", index: int) -> Callable[[float
         check = _check_or_none(shifted, index)
         xs.append(t)
         ys.append(0.0 if check is None or check.capacity_at_balance is None else check.capacity_at_balance)
-    ax, ay = np.asarray(xs), np.asarray(ys)
+    from coldroom.pulldown import capacity_curve
 
-    def at(air_temperature: float) -> float:
-        return float(np.interp(air_temperature, ax, ay))
-
-    return at
+    return capacity_curve(xs, ys)
 
 
 def unit_limits(

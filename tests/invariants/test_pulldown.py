@@ -104,3 +104,26 @@ def test_inverse_is_np_interp_row_by_row(steps, picks, on_grid):
         got = _Inverse(tables)(np.array(x))
         want = [np.interp(x[i], tables[i][0], temps) for i in range(len(tables))]
         assert list(got) == want
+
+
+@settings(max_examples=80)
+@given(
+    steps=st.lists(st.floats(min_value=1e-3, max_value=30.0), min_size=0, max_size=6),
+    capacities=st.lists(st.floats(min_value=0.0, max_value=5e4), min_size=7, max_size=7),
+    picks=st.lists(st.floats(min_value=-0.3, max_value=1.3), min_size=4, max_size=4),
+    on_point=st.integers(min_value=0, max_value=6),
+)
+def test_capacity_curve_is_np_interp(steps, capacities, picks, on_point):
+    """The pull-down's capacity curve answers exactly (==) what numpy's own np.interp
+    gives through the same points: below, between, on a point and above them."""
+    from coldroom.pulldown import capacity_curve
+
+    air = [-5.0]
+    for d in steps:
+        air.append(air[-1] + d)
+    ys = capacities[: len(air)]
+    at = capacity_curve(air, ys)
+    xs = [air[0] + p * (air[-1] - air[0] + 1.0) for p in picks] + [air[min(on_point, len(air) - 1)]]
+    for x in xs:
+        assert at(x) == float(np.interp(x, air, ys))
+        assert at(np.float64(x)) == float(np.interp(x, air, ys))
