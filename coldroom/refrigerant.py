@@ -18,7 +18,8 @@ slow in CoolProp: a P–Q saturation flash costs 1.5–4 ms, a P–H or P–S fl
   first time a pressure in it is asked for. The series reproduce CoolProp's
   saturation temperatures to about 1e-9 K. The saturated state itself is then
   the equation of state evaluated at the table's (p, T) with the phase
-  imposed, so h, s and ρ are the EOS's; pressures outside the table (or a
+  imposed (its density solve started from the table's density), so h, s and
+  ρ are the EOS's; pressures outside the table (or a
   segment CoolProp cannot fit) fall back to CoolProp's flash;
 * superheated vapour / subcooled liquid: Newton iteration on temperature with
   a P–T update whose phase is *imposed* (``specify_phase``; ~0.07 ms instead of
@@ -185,8 +186,9 @@ class _MixtureTable:
     Segment *k* covers ln p in [u₀ + k·w, u₀ + (k+1)·w] (w = 0.25, u₀ = ln of
     the minimum pressure, top at 0.95 × the critical pressure) and holds, for
     the dew line and for the bubble line separately, Chebyshev series of the
-    saturation temperature [K] and of the incipient phase's mole fractions
-    (liquid at the dew point, vapour at the bubble point). A segment is fitted
+    saturation temperature [K], of the incipient phase's mole fractions
+    (liquid at the dew point, vapour at the bubble point) and of the saturated
+    density (the seed of the equation of state's density solve). A segment is fitted
     the first time it is needed, from CoolProp's P–Q solutions at its nodes; a
     segment CoolProp cannot fit is remembered as missing (the caller falls
     back to CoolProp's flash at the point asked).
@@ -217,18 +219,19 @@ class _MixtureTable:
         a = self.u_low + k * _SEGMENT_WIDTH
         b = min(a + _SEGMENT_WIDTH, self.u_high)
         st = self.fluid._state
-        temperatures, compositions = [], []
+        temperatures, compositions, densities = [], [], []
         try:
             for j in range(_SEGMENT_NODES):
                 u = 0.5 * (a + b) + 0.5 * (b - a) * math.cos(math.pi * (j + 0.5) / _SEGMENT_NODES)
                 self.fluid._saturation_raw("P", math.exp(u), quality)
                 temperatures.append(st.T())
                 compositions.append(list(st.mole_fractions_liquid() if quality == 1.0 else st.mole_fractions_vapor()))
+                densities.append(st.rhomass())
         except (PropertyRangeError, ValueError):
             segment = None
         else:
             series = [_chebyshev_fit([c[i] for c in compositions]) for i in range(len(self.z))]
-            segment = (a, b, _chebyshev_fit(temperatures), series)
+            segment = (a, b, _chebyshev_fit(temperatures), series, _chebyshev_fit(densities))
         self.segments[key] = segment
         return segment
 
@@ -243,7 +246,17 @@ class _MixtureTable:
         segment = self._locate(u, quality)
         if segment is None:
             return None
-        a, b, series, _ = segment
+        a, b, series, _, _ = segment
+        return _chebyshev(series, (2.0 * u - a - b) / (b - a))
+
+    def density(self, u: float, quality: float) -> float:
+        """Dew-point vapour (quality 1) or bubble-point liquid (0) density [kg/m³] at
+        ln p = *u*, near enough to seed the equation of state's density solve; 0 outside
+        the table."""
+        segment = self._locate(u, quality)
+        if segment is None:
+            return 0.0
+        a, b, _, _, series = segment
         return _chebyshev(series, (2.0 * u - a - b) / (b - a))
 
     def incipient(self, u: float, quality: float) -> list[float] | None:
@@ -252,7 +265,7 @@ class _MixtureTable:
         segment = self._locate(u, quality)
         if segment is None:
             return None
-        a, b, _, series = segment
+        a, b, _, series, _ = segment
         x = (2.0 * u - a - b) / (b - a)
         values = [max(_chebyshev(c, x), 1e-300) for c in series]
         total = sum(values)
@@ -269,7 +282,7 @@ class _MixtureTable:
         for (k, q), segment in self.segments.items():
             if q != quality or segment is None:
                 continue
-            a, b, series, _ = segment
+            a, b, series, _, _ = segment
             t_a, t_b = _chebyshev(series, -1.0), _chebyshev(series, 1.0)
             if guess is None or min(abs(temperature - t_a), abs(temperature - t_b)) < guess[0]:
                 slope = (b - a) / (1.0 / t_a - 1.0 / t_b)
@@ -286,7 +299,7 @@ class _MixtureTable:
             segment = self._locate(u, quality)
             if segment is None:
                 return None
-            a, b, series, _ = segment
+            a, b, series, _, _ = segment
             x = (2.0 * u - a - b) / (b - a)
             t = _chebyshev(series, x)
             dx = 1e-6
@@ -628,7 +641,8 @@ class Fluid:
         table = self._table
         if given == "P":
             pressure = value_si
-            t_k = table.temperature(math.log(pressure), quality)
+            u = math.log(pressure)
+            t_k = table.temperature(u, quality)
         else:
             t_k = value_si
             u = table.log_pressure(t_k, quality)
@@ -636,7 +650,9 @@ class Fluid:
         if t_k is None or pressure is None:
             return None
         try:
-            self._update_pt(pressure, t_k, CP.iphase_gas if quality == 1.0 else CP.iphase_liquid)
+            # the table's saturated density seeds the density solve (a quarter of the cost)
+            self._update_pt(pressure, t_k, CP.iphase_gas if quality == 1.0 else CP.iphase_liquid,
+                            table.density(u, quality))
             state = self._read(quality)
         except ValueError:
             return None

@@ -339,6 +339,8 @@ def test_saturation_table_matches_coolprop_pq_flash(name):
             assert state.h == pytest.approx(ref.hmass(), rel=1e-8)
             assert state.s == pytest.approx(ref.smass(), rel=1e-8)
             assert state.density == pytest.approx(ref.rhomass(), rel=1e-7)
+            # the table's own density series (it seeds the EOS's density solve)
+            assert fluid._table.density(math.log(p), quality) == pytest.approx(ref.rhomass(), rel=1e-6)
 
 
 def test_saturation_table_by_temperature_matches_coolprop_qt_flash():
