@@ -46,6 +46,20 @@ app()
 """
 
 
+MINIMAL_MODEL = """
+import sys, typer, yaml
+from pydantic import BaseModel
+class Project(BaseModel):
+    name: str = ""
+app = typer.Typer()
+@app.command()
+def validate(project: str = typer.Argument(...)) -> None:
+    data = yaml.safe_load(open(project, encoding="utf-8"))
+    print(Project.model_validate({"name": str(data.get("project", ""))[:40]}).name)
+app()
+"""
+
+
 def main() -> None:
     parser = argparse.ArgumentParser(description=__doc__.splitlines()[0])
     parser.add_argument("--repeat", type=int, default=7)
@@ -56,6 +70,7 @@ def main() -> None:
         "coldroom --help": [python, "-m", "coldroom", "--help"],
         "coldroom validate DEMO": [python, "-m", "coldroom", "validate", str(DEMO)],
         "typer program + YAML": [python, "-c", MINIMAL, str(DEMO)],
+        "same + a pydantic model": [python, "-c", MINIMAL_MODEL, str(DEMO)],
     }
     for command in commands.values():
         timed(command)  # warm the file cache
@@ -72,6 +87,11 @@ def main() -> None:
     floor = median["typer program + YAML"]
     print(f"  typer program + YAML / import typer: {floor / base:5.2f}  (what a typer command reading YAML costs)")
     print(f"  validate / typer program + YAML    : {median['coldroom validate DEMO'] / floor:5.2f}  (ours on top of it)")
+    model_floor = median["same + a pydantic model"]
+    print(f"  typer program + YAML + one pydantic model / import typer: {model_floor / base:5.2f}  "
+          "(the floor of any validator on this stack)")
+    print(f"  validate / that floor              : {median['coldroom validate DEMO'] / model_floor:5.2f}  "
+          "(target <= 1.5: the part that is ours)")
 
 
 if __name__ == "__main__":
