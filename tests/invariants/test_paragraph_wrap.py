@@ -80,3 +80,19 @@ def test_lines_discarded_by_a_refused_split_are_broken_again():
     assert "blPara" not in p.__dict__
     assert p.wrap(120.0, 1000.0) == (width, height)
     assert "blPara" in p.__dict__
+
+
+def test_the_sheet_builds_its_paragraphs_from_layout_only():
+    # every coldroom module takes Paragraph from coldroom.report.layout (the one that keeps its
+    # line breaking); only layout itself imports reportlab's
+    import ast
+    from pathlib import Path
+
+    package = Path(layout.__file__).resolve().parents[1]
+    offenders = []
+    for path in package.rglob("*.py"):
+        for node in ast.walk(ast.parse(path.read_text(encoding="utf-8"))):
+            if isinstance(node, ast.ImportFrom) and (node.module or "").startswith("reportlab"):
+                if any(alias.name == "Paragraph" for alias in node.names) and path.name != "layout.py":
+                    offenders.append(str(path.relative_to(package)))
+    assert offenders == []
