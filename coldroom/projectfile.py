@@ -1044,10 +1044,6 @@ class Room(Strict):
         return self
 
     # derived geometry (SI)
-    def section_thickness(self, side: str) -> float:
-        """Thickness of the construction on *side* [m] (0 when not known)."""
-        return self._thickness.get(side, 0.0)
-
     def box_dimensions(self, where: str) -> Optional[tuple[float, float, float]]:
         """(length, width, height) [m] of the ``inside`` or ``outside`` of the insulated box.
 
@@ -1060,8 +1056,9 @@ class Room(Strict):
         d = self.dimensions
         if d is None:
             return None
-        t = self.section_thickness
-        extra = (t("east") + t("west"), t("north") + t("south"), t("ceiling"))
+        t = self._thickness.get  # each side's construction thickness, 0 when not known (read once:
+        # a private attribute costs a pydantic look-up, and this runs for every side at every hour)
+        extra = (t("east", 0.0) + t("west", 0.0), t("north", 0.0) + t("south", 0.0), t("ceiling", 0.0))
         sign = {("inside", "inside"): 0.0, ("outside", "outside"): 0.0,
                 ("inside", "outside"): 1.0, ("outside", "inside"): -1.0}[(d.measured, where)]
         return (d.length + sign * extra[0], d.width + sign * extra[1], d.height + sign * extra[2])

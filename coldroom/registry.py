@@ -23,6 +23,7 @@ from __future__ import annotations
 
 import re
 import unicodedata
+from functools import lru_cache
 from typing import Generic, Iterator, Mapping, TypeVar
 
 from coldroom.errors import unknown_name
@@ -59,7 +60,14 @@ def normalise(name: object) -> str:
     >>> normalise("hot--gas")
     'hot_gas'
     """
-    text = unicodedata.normalize("NFKC", str(name)).casefold()
+    return _normalised(str(name))
+
+
+@lru_cache(maxsize=4096)
+def _normalised(text: str) -> str:
+    """:func:`normalise` of a string, remembered: a job looks the same few names up
+    thousands of times (every construction of every room at every hour of the design day)."""
+    text = unicodedata.normalize("NFKC", text).casefold()
     text = text.replace("(", "").replace(")", "")
     return _SEPARATORS.sub("_", text).strip("_")
 
