@@ -283,8 +283,6 @@ def _isotherm(fluid, temperature: float, p_low: float, p_high: float, grid: Sequ
     return ChartLine("isotherm", float(temperature), tuple(s for s, _ in segments_kept), tuple(ph for _, ph in segments_kept))
 
 
-
-
 def _near_critical_isotherm(fluid, temperature: float, p_low: float, p_high: float,
                             grid: Sequence[_Level]) -> ChartLine | None:
     """A mixture's isotherm next to its critical temperature, where no saturation

@@ -242,60 +242,48 @@ def _inverse_table(mass: ThermalMass, low: float, high: float) -> tuple[list[flo
     return enth, temps
 
 
+class _Interpolant:
+    """y(x) through points with *x* rising: linear between them, flat beyond the ends.
+
+    Gives exactly ``np.interp(x, xs, ys)`` — the same bracket xs[j] ≤ x < xs[j+1] (a
+    binary search), the same arithmetic ``slope·(x − xs[j]) + ys[j]`` in double
+    precision, the ends clamped — so results are bit-identical (tested). Plain Python:
+    the integrator asks hundreds of times per room, and numpy's per-call overhead is
+    most of the cost of one answer.
+    """
+
+    def __init__(self, xs: Sequence[float], ys: Sequence[float]) -> None:
+        self.xs = [float(v) for v in xs]
+        self.ys = [float(v) for v in ys]
+        x, y = self.xs, self.ys
+        self.slopes = [(y[k + 1] - y[k]) / (x[k + 1] - x[k]) for k in range(len(x) - 1)]
+
+    def __call__(self, x: float) -> float:
+        j = bisect_right(self.xs, x)  # points at or below x
+        if j == 0:
+            return self.ys[0]
+        if j == len(self.xs):
+            return self.ys[-1]
+        return float(self.slopes[j - 1] * (x - self.xs[j - 1]) + self.ys[j - 1])
+
+
 def capacity_curve(air: Sequence[float], capacity: Sequence[float]) -> Callable[[float], float]:
     """A unit's capacity [W] against the room air [°C] through the points (*air* rising):
-    linear between them, flat beyond the ends.
-
-    Gives exactly ``np.interp(x, air, capacity)`` (the same bracket and arithmetic;
-    bit-identical, tested) in plain Python: the integrator asks for it hundreds of
-    times per room, and numpy's per-call overhead is most of the cost of one answer.
-    """
-    xs = [float(v) for v in air]
-    ys = [float(v) for v in capacity]
-
-    def at(air_temperature: float) -> float:
-        j = bisect_right(xs, air_temperature)  # points at or below the air temperature
-        if j == 0:
-            return ys[0]
-        if j == len(xs):
-            return ys[-1]
-        slope = (ys[j] - ys[j - 1]) / (xs[j] - xs[j - 1])
-        return float(slope * (air_temperature - xs[j - 1]) + ys[j - 1])
-
-    return at
+    linear between them, flat beyond the ends — exactly ``np.interp`` (:class:`_Interpolant`)."""
+    return _Interpolant(air, capacity)
 
 
 class _Inverse:
-    """T(h) of every mass at once, from tables on one temperature grid.
-
-    Gives what ``np.interp(h[i], enthalpies[i], temperatures)`` gives row by row — the
-    same bracket xp[j] ≤ x < xp[j+1] (a binary search), the same arithmetic
-    ``slope·(x − xp[j]) + fp[j]`` in double precision, the ends clamped — so results
-    are bit-identical (tested). Plain Python: for the few masses of a room this is
-    several times quicker than numpy's per-call overhead, and the integrator calls it
-    hundreds of times per room.
-    """
+    """T(h) of every mass at once, from tables on one temperature grid: row *i* is
+    ``np.interp(h[i], enthalpies[i], temperatures)`` (bit-identical, :class:`_Interpolant`)."""
 
     def __init__(self, tables: Sequence[tuple[Sequence[float], Sequence[float]]]) -> None:
-        self.grids = [[float(v) for v in e] for e, _ in tables]
-        t = [float(v) for v in tables[0][1]] if tables else [0.0, 1.0]
-        self.temperatures = t
-        self.slopes = [[(t[k + 1] - t[k]) / (e[k + 1] - e[k]) for k in range(len(e) - 1)] for e in self.grids]
+        self.rows = [_Interpolant(enthalpies, temperatures) for enthalpies, temperatures in tables]
 
     def __call__(self, h: Any) -> Any:
         import numpy as np
 
-        t = self.temperatures
-        out = []
-        for x, grid, slope in zip(np.asarray(h, dtype=float).tolist(), self.grids, self.slopes):
-            j = bisect_right(grid, x)  # grid points at or below x
-            if j == 0:
-                out.append(t[0])
-            elif j == len(grid):
-                out.append(t[-1])
-            else:
-                out.append(slope[j - 1] * (x - grid[j - 1]) + t[j - 1])
-        return np.array(out)
+        return np.array([row(x) for row, x in zip(self.rows, np.asarray(h, dtype=float).tolist())])
 
 
 def simulate(

@@ -61,6 +61,7 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass
 from functools import lru_cache
+from typing import NamedTuple
 
 import CoolProp  # the only CoolProp import in coldroom
 import CoolProp.CoolProp as CP
@@ -180,6 +181,22 @@ def _chebyshev(coefficients: list[float], x: float) -> float:
     return x * b1 - b2 + coefficients[0]
 
 
+class _Segment(NamedTuple):
+    """One fitted piece of a :class:`_MixtureTable` line: ln p from *a* to *b* and the
+    Chebyshev series of the saturation temperature [K], of each incipient-phase mole
+    fraction and of the saturated density [kg/m³] on it."""
+
+    a: float
+    b: float
+    temperature: list[float]
+    composition: list[list[float]]
+    density: list[float]
+
+    def x(self, u: float) -> float:
+        """ln p = *u* mapped onto the series' interval [−1, 1]."""
+        return (2.0 * u - self.a - self.b) / (self.b - self.a)
+
+
 class _MixtureTable:
     """Saturation table and two-phase flash of one predefined mixture.
 
@@ -208,11 +225,11 @@ class _MixtureTable:
         self.u_low = math.log(fluid.minimum_pressure)
         self.u_high = math.log(0.95 * fluid.critical_pressure)
         self.last = max(0, math.ceil((self.u_high - self.u_low) / _SEGMENT_WIDTH) - 1)
-        # (segment index, quality) -> (a, b, temperature series, composition series) or None
-        self.segments: dict[tuple[int, float], tuple | None] = {}
+        # (segment index, quality) -> the fitted segment, or None where CoolProp cannot fit one
+        self.segments: dict[tuple[int, float], _Segment | None] = {}
 
     # ------------------------------------------------------------- the table
-    def _segment(self, k: int, quality: float) -> tuple | None:
+    def _segment(self, k: int, quality: float) -> _Segment | None:
         key = (k, quality)
         if key in self.segments:
             return self.segments[key]
@@ -231,11 +248,11 @@ class _MixtureTable:
             segment = None
         else:
             series = [_chebyshev_fit([c[i] for c in compositions]) for i in range(len(self.z))]
-            segment = (a, b, _chebyshev_fit(temperatures), series, _chebyshev_fit(densities))
+            segment = _Segment(a, b, _chebyshev_fit(temperatures), series, _chebyshev_fit(densities))
         self.segments[key] = segment
         return segment
 
-    def _locate(self, u: float, quality: float) -> tuple | None:
+    def _locate(self, u: float, quality: float) -> _Segment | None:
         if not self.u_low <= u <= self.u_high:
             return None
         k = min(int((u - self.u_low) / _SEGMENT_WIDTH), self.last)
@@ -246,8 +263,7 @@ class _MixtureTable:
         segment = self._locate(u, quality)
         if segment is None:
             return None
-        a, b, series, _, _ = segment
-        return _chebyshev(series, (2.0 * u - a - b) / (b - a))
+        return _chebyshev(segment.temperature, segment.x(u))
 
     def density(self, u: float, quality: float) -> float:
         """Dew-point vapour (quality 1) or bubble-point liquid (0) density [kg/m³] at
@@ -256,8 +272,7 @@ class _MixtureTable:
         segment = self._locate(u, quality)
         if segment is None:
             return 0.0
-        a, b, _, _, series = segment
-        return _chebyshev(series, (2.0 * u - a - b) / (b - a))
+        return _chebyshev(segment.density, segment.x(u))
 
     def incipient(self, u: float, quality: float) -> list[float] | None:
         """Mole fractions of the incipient phase at ln p = *u* (liquid at the
@@ -265,9 +280,8 @@ class _MixtureTable:
         segment = self._locate(u, quality)
         if segment is None:
             return None
-        a, b, _, series, _ = segment
-        x = (2.0 * u - a - b) / (b - a)
-        values = [max(_chebyshev(c, x), 1e-300) for c in series]
+        x = segment.x(u)
+        values = [max(_chebyshev(c, x), 1e-300) for c in segment.composition]
         total = sum(values)
         return [v / total for v in values]
 
@@ -282,7 +296,7 @@ class _MixtureTable:
         for (k, q), segment in self.segments.items():
             if q != quality or segment is None:
                 continue
-            a, b, series, _, _ = segment
+            a, b, series = segment.a, segment.b, segment.temperature
             t_a, t_b = _chebyshev(series, -1.0), _chebyshev(series, 1.0)
             if guess is None or min(abs(temperature - t_a), abs(temperature - t_b)) < guess[0]:
                 slope = (b - a) / (1.0 / t_a - 1.0 / t_b)
@@ -299,8 +313,8 @@ class _MixtureTable:
             segment = self._locate(u, quality)
             if segment is None:
                 return None
-            a, b, series, _, _ = segment
-            x = (2.0 * u - a - b) / (b - a)
+            a, b, series = segment.a, segment.b, segment.temperature
+            x = segment.x(u)
             t = _chebyshev(series, x)
             dx = 1e-6
             slope = (_chebyshev(series, x + dx) - _chebyshev(series, x - dx)) / (2.0 * dx) * 2.0 / (b - a)
@@ -913,15 +927,11 @@ class Fluid:
             lo, hi = t_sat, None
         else:
             lo, hi = self.minimum_temperature + KELVIN, t_sat
-        st.specify_phase(phase)
         try:
             # first guess from the saturation state's heat capacity (its density seeds the solve)
+            self._update_pt(pressure, t_sat, phase, sat.density)
+            st.specify_phase(phase)
             guess = PyGuessesStructure()
-            if sat.density > 0.0 and math.isfinite(sat.density):
-                guess.rhomolar = sat.density / st.molar_mass()
-                st.update_with_guesses(CP.PT_INPUTS, pressure, t_sat, guess)
-            else:
-                st.update(CP.PT_INPUTS, pressure, t_sat)
             cp = st.cpmass()
             if prop == "h":
                 t = t_sat + (target - sat_value) / cp

@@ -29,7 +29,6 @@ WARN = colors.HexColor("#9A5B2E")
 WARN_BG = colors.HexColor("#FBF4EC")
 
 
-
 class Paragraph(_Paragraph):
     """reportlab's Paragraph that keeps its line breaking for the width it was last set to.
 
