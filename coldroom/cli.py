@@ -1,8 +1,8 @@
 """Command-line interface (typer).
 
 Thin: parse arguments, call the library, print, map :class:`ColdroomError` to
-exit codes. Heavy modules (CoolProp via ``coldroom.refrigerant``, reportlab via
-``coldroom.report``) are imported inside the commands that need them, never at
+exit codes. Heavy modules (CoolProp via ``coldroom.physics.refrigerant``, reportlab via
+``coldroom.output.pdf``) are imported inside the commands that need them, never at
 module level, so ``coldroom --help`` and ``coldroom validate`` stay fast.
 
 Exit codes: 0 ok; 1 calculation impossible; 2 usage; 65 invalid project file;
@@ -17,7 +17,7 @@ from typing import Callable, Optional
 import typer
 
 from coldroom import __version__
-from coldroom.design import CYCLE_DEFAULTS as _CYCLE
+from coldroom.rules import CYCLE_DEFAULTS as _CYCLE
 from coldroom.errors import ColdroomError
 
 app = typer.Typer(
@@ -119,7 +119,7 @@ def guarded(func: Callable[[], None]) -> None:
     (``coldroom products | head -1``) ends the run quietly (exit 141, as a
     program stopped by SIGPIPE). Ctrl-C, SIGTERM and SIGHUP are reported
     here too, with exit 128 + the signal number:
-    :func:`coldroom.output.write_atomic` has removed its temporary file by then.
+    :func:`coldroom.output.files.write_atomic` has removed its temporary file by then.
     """
     del _written[:]
     try:
@@ -146,8 +146,8 @@ def interrupted(stop: KeyboardInterrupt) -> int:
 
 
 def check_outputs(*named: tuple[str, Optional[str]], force: bool, project: Optional[str] = None):  # type: ignore[no-untyped-def]
-    """Check every output of a command before any work (see :func:`coldroom.output.check_targets`)."""
-    from coldroom.output import check_targets
+    """Check every output of a command before any work (see :func:`coldroom.output.files.check_targets`)."""
+    from coldroom.output.files import check_targets
 
     return check_targets(named, force=force, inputs=[project] if project else [])
 
@@ -168,7 +168,7 @@ def write_output(target, data, *, force: bool, project: Optional[str], console) 
     """Write a checked output (checked again: the disk may have changed meanwhile); say where."""
     if target is None:
         return
-    from coldroom.output import write_atomic
+    from coldroom.output.files import write_atomic
 
     if target.kind == "stdout":
         console.flush()
@@ -182,7 +182,7 @@ def emit_json(data: object, target, *, force: bool, project: str, console) -> No
     """Write *data* as strict JSON to a checked *target*; nothing when not asked."""
     if target is None:
         return
-    from coldroom.output import json_text
+    from coldroom.output.files import json_text
 
     write_output(target, json_text(data), force=force, project=project, console=console)
 
@@ -216,8 +216,8 @@ def validate_command(
     """Check a project file: syntax, keys, units, ranges and physical sense."""
 
     def run() -> None:
-        from coldroom.checks import project_warnings
-        from coldroom.project import open_project
+        from coldroom.inputs.physical_checks import project_warnings
+        from coldroom.inputs.opening import open_project
 
         model = open_project(project).model
         rooms = ", ".join(room.name for room in model.rooms)
@@ -243,10 +243,10 @@ def load_command(
     def run() -> None:
         (json_target,) = check_outputs(("--json", json_out), force=force, project=project)
 
-        from coldroom.checks import project_warnings
+        from coldroom.inputs.physical_checks import project_warnings
         from coldroom.loads import project_loads
-        from coldroom.project import open_project
-        from coldroom.textreport import loads_report
+        from coldroom.inputs.opening import open_project
+        from coldroom.output.terminal import loads_report
         from coldroom.units import format_terms
 
         model = open_project(project).model
@@ -273,12 +273,12 @@ def schema_command(
     """Print the JSON Schema of the project file (or of a catalogue; for editors that complete and check YAML)."""
 
     def run() -> None:
-        from coldroom.output import json_text
+        from coldroom.output.files import json_text
 
         if catalogue:
-            from coldroom.catalogue import json_schema
+            from coldroom.inputs.catalogue import json_schema
         else:
-            from coldroom.projectfile import json_schema
+            from coldroom.inputs.projectfile import json_schema
 
         sys.stdout.write(json_text(json_schema()))
 
@@ -295,7 +295,7 @@ def new_command(
     def run() -> None:
         from importlib.resources import files
 
-        from coldroom.output import write_atomic
+        from coldroom.output.files import write_atomic
 
         text = files("coldroom.data").joinpath("starter.yaml").read_text(encoding="utf-8")
         write_atomic(file, text, force=force, option="FILE")
@@ -316,7 +316,7 @@ def products_command(
     """List or search the product table: freezing point, storage temperature and RH."""
 
     def run() -> None:
-        from coldroom.data.products import search_products
+        from coldroom.physics.products import search_products
 
         found = search_products(text)
         if not found:
@@ -354,7 +354,7 @@ def size_command(
     def run() -> None:
         from pathlib import Path
 
-        from coldroom.project import open_project
+        from coldroom.inputs.opening import open_project
 
         source = Path(project)
         pdf_target, json_target = check_outputs(
@@ -364,9 +364,9 @@ def size_command(
 
         opened = open_project(project)
         model = opened.model
-        from coldroom.report.sheet import render_sheet  # reportlab, lazily
-        from coldroom.sizing import size_project  # CoolProp, lazily
-        from coldroom.textreport import size_summary
+        from coldroom.output.pdf.sheet import render_sheet  # reportlab, lazily
+        from coldroom.design.sizing import size_project  # CoolProp, lazily
+        from coldroom.output.terminal import size_summary
 
         result = size_project(model, project, opened.content)
         pdf = render_sheet(result, model)
@@ -398,8 +398,8 @@ def compare_command(
         import os
 
         from coldroom.errors import ProjectFileError
-        from coldroom.project import open_project
-        from coldroom.safeyaml import load_yaml
+        from coldroom.inputs.opening import open_project
+        from coldroom.inputs.safeyaml import load_yaml
 
         pdf_target, json_target = check_outputs(("--out", out), ("--json", json_out), force=force, project=project)
         opened = open_project(project)
@@ -409,9 +409,9 @@ def compare_command(
                 "compare needs the year's ambient: design.weather (an EPW file) or design.ambient_bins",
                 ("design",),
             )
-        from coldroom.annual import compare  # CoolProp, lazily
-        from coldroom.sizing import sheet_date, versions
-        from coldroom.textreport import compare_text
+        from coldroom.design.annual import compare  # CoolProp, lazily
+        from coldroom.design.sizing import sheet_date, versions
+        from coldroom.output.terminal import compare_text
 
         try:
             result = compare(model)
@@ -422,7 +422,7 @@ def compare_command(
         console = console_for(pdf_target, json_target)
         say(compare_text(result, model.project.units), file=console)
         if pdf_target is not None:
-            from coldroom.report.comparepage import render_compare  # reportlab, lazily
+            from coldroom.output.pdf.comparepage import render_compare  # reportlab, lazily
 
             meta = {
                 "date": sheet_date(model.project.date),
@@ -503,7 +503,7 @@ def cycle_command(
 ) -> None:
     """Size one vapour-compression cycle without a project file (and draw it with --out).
 
-    The defaults are a project's (coldroom.design.CYCLE_DEFAULTS), so the same duty gives the same answer.
+    The defaults are a project's (coldroom.rules.CYCLE_DEFAULTS), so the same duty gives the same answer.
     --superheat 0 --suction-line-superheat 0 --subcooling 0 --isentropic-efficiency 1 is the ideal cycle.
     Gauge pressures are read against the standard atmosphere (101.325 kPa).
     """
@@ -551,9 +551,9 @@ def cycle_command(
                 raise UsageError(f"--out {out!r}: the name must end in .pdf or .svg")
         (out_target,) = check_outputs(("--out", out), force=force)
 
-        from coldroom.cycle import check_cycle_inputs, solve_cycle
-        from coldroom.refrigerant import get_fluid
-        from coldroom.textreport import cycle_table
+        from coldroom.physics.cycle import check_cycle_inputs, solve_cycle
+        from coldroom.physics.refrigerant import get_fluid
+        from coldroom.output.terminal import cycle_table
 
         fluid = get_fluid(refrigerant)
 
@@ -586,14 +586,14 @@ def cycle_command(
                 given.append(f"--discharge-pressure {p_discharge / 1e3:.1f} kPa absolute (dew {cond:.2f} °C)")
             raise CalculationError(f"{'; '.join(given)}: {error}") from None
         if as_json:
-            from coldroom.output import json_text
+            from coldroom.output.files import json_text
 
             sys.stdout.write(json_text(result.to_json()))
         else:
             print(cycle_table(result))
         if out_target is not None:
-            from coldroom.report.cyclepage import render_cycle_page
-            from coldroom.sizing import sheet_date, versions
+            from coldroom.output.pdf.cyclepage import render_cycle_page
+            from coldroom.design.sizing import sheet_date, versions
 
             # the footer's input hash: the options as given (not sys.argv, which an embedding caller owns)
             given = [refrigerant, evaporating, condensing, suction_pressure, discharge_pressure, capacity, superheat,
@@ -623,12 +623,12 @@ def check_command(
     def run() -> None:
         (json_target,) = check_outputs(("--json", json_out), force=force, project=project)
 
-        from coldroom.project import open_project
+        from coldroom.inputs.opening import open_project
 
         model = open_project(project).model
-        from coldroom.equipment import check_existing_units  # CoolProp, lazily
-        from coldroom.textreport import check_report
-        from coldroom.unitlimits import unit_limits
+        from coldroom.design.existing import check_existing_units  # CoolProp, lazily
+        from coldroom.output.terminal import check_report
+        from coldroom.design.unit_limits import unit_limits
 
         checks = check_existing_units(model)
         limits = [
@@ -670,20 +670,20 @@ def select_command(
     """Choose unit coolers and the cheapest condensing unit that holds, per system, from a catalogue."""
 
     def run() -> None:
-        from coldroom.output import check_targets
+        from coldroom.output.files import check_targets
 
         pdf_target, json_target = check_targets(
             (("--out", out), ("--json", json_out)), force=force, inputs=[project, catalogue]
         )
-        from coldroom.catalogue import load_catalogue
-        from coldroom.project import open_project
+        from coldroom.inputs.catalogue import load_catalogue
+        from coldroom.inputs.opening import open_project
 
         model = open_project(project).model
         equipment = load_catalogue(catalogue)
-        from coldroom.selection import select_project  # CoolProp, lazily
-        from coldroom.textreport import selection_report
+        from coldroom.design.selection import select_project  # CoolProp, lazily
+        from coldroom.output.terminal import selection_report
 
-        from coldroom.selection import NothingFitsError
+        from coldroom.design.selection import NothingFitsError
         from coldroom.units import format_terms
 
         try:
@@ -695,8 +695,8 @@ def select_command(
         if pdf_target is not None:
             from pathlib import Path
 
-            from coldroom.report.sheet import render_sheet  # reportlab, lazily
-            from coldroom.sizing import size_project
+            from coldroom.output.pdf.sheet import render_sheet  # reportlab, lazily
+            from coldroom.design.sizing import size_project
 
             result = size_project(model, project, Path(project).read_bytes())
             write_output(pdf_target, render_sheet(result, model, selection=selections), force=force,

@@ -156,7 +156,7 @@ class RoomLoads:
         Where the run time came from (given, or the default for the defrost type).
     peak_load : float
         Peak-hour load [W]: with a schedule, the design day's largest hourly load
-        (defrost heat left out, :mod:`coldroom.designday`); without, product at its
+        (defrost heat left out, :mod:`coldroom.loads.hourly`); without, product at its
         pull-down rate, all internal loads on, transmission and infiltration at
         their averages.
     volume : float
@@ -172,7 +172,7 @@ class RoomLoads:
     warnings : tuple of str
         Storage advice and doubts about the schedule.
     design_day : DesignDay or None
-        The 24 hourly loads (:class:`coldroom.designday.DesignDay`).
+        The 24 hourly loads (:class:`coldroom.loads.hourly.DesignDay`).
     """
 
     name: str
@@ -186,7 +186,7 @@ class RoomLoads:
     warnings: tuple[str, ...] = ()
     dimensions_measured: str | None = None
     transmission_area_basis: str = "outside"
-    design_day: Any = None  # coldroom.designday.DesignDay
+    design_day: Any = None  # coldroom.loads.hourly.DesignDay
 
     def component_energy(self, component: str) -> float:
         """Daily energy of one component [J]."""
@@ -277,12 +277,12 @@ class RoomResult:
     condensing_temperature: Optional[float] = None  # °C, saturated dew point
     condenser_air_temperature: Optional[float] = None  # °C
     sizing_basis: tuple[tuple[str, Phrase], ...] = ()  # (what, phrase in SI terms) pairs for the sheet
-    cycle: Any = None  # coldroom.cycle.CycleResult; None for a member of a system of several rooms
+    cycle: Any = None  # coldroom.physics.cycle.CycleResult; None for a member of a system of several rooms
     check: Any = None  # coldroom.equipment.CheckResult
     warnings: tuple[str, ...] = ()
     system: str = ""  # the name of the room's system
-    pulldown: Any = None  # coldroom.pulldown.PulldownResult (rooms that take product in)
-    limits: Any = None  # coldroom.unitlimits.UnitLimits (rooms with an existing unit)
+    pulldown: Any = None  # coldroom.loads.pulldown.PulldownResult (rooms that take product in)
+    limits: Any = None  # coldroom.design.unit_limits.UnitLimits (rooms with an existing unit)
 
     @property
     def name(self) -> str:
@@ -354,7 +354,7 @@ class SystemElectrical:
     ----------
     compressor_input_power : float
         Compressor electrical input at the design point [W] (overall
-        isentropic efficiency, motor included; :mod:`coldroom.cycle`).
+        isentropic efficiency, motor included; :mod:`coldroom.physics.cycle`).
     evaporator_fan_power, condenser_fan_power : float
         Electrical input of the fans [W].
     condenser_fan_basis : str
@@ -427,7 +427,7 @@ class SystemResult:
         The cycle at the system's suction and condensing temperatures.
     electrical : SystemElectrical
     warnings : tuple of str
-    pipework : coldroom.pipework.Pipework or None
+    pipework : coldroom.design.pipework.Pipework or None
         Lines, charge estimate and charge limits (``piping``, ``charge``,
         ``charge_limits`` in JSON).
     """

@@ -2,7 +2,7 @@
 
 Pure Python, no CoolProp: listing refrigerants (``coldroom refrigerants``) and
 looking one up must stay instant. Properties come from
-:mod:`coldroom.refrigerant`, which maps each entry to a CoolProp fluid through
+:mod:`coldroom.physics.refrigerant`, which maps each entry to a CoolProp fluid through
 :attr:`RefrigerantInfo.coolprop_name`.
 
 Source keys (every value carries one in :attr:`RefrigerantInfo.sources`):
@@ -43,7 +43,7 @@ Model choice (``model``):
 ``mixture``
     CoolProp's multi-fluid Helmholtz mixture model with a predefined blend
     (``R448A.mix`` …). Accurate but slow (milliseconds per state); the fast
-    routines in :mod:`coldroom.refrigerant` avoid its P–H / P–S flashes.
+    routines in :mod:`coldroom.physics.refrigerant` avoid its P–H / P–S flashes.
 
 Examples
 --------

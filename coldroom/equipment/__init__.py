@@ -24,11 +24,13 @@ Modules, each importing only those above it:
 * :mod:`~coldroom.equipment.balance` — heat exchangers, the balance-point
   search and the highest-ambient search, plain numbers only;
 * :mod:`~coldroom.equipment.verdict` — :func:`check_unit` and :class:`CheckResult`;
-* :mod:`~coldroom.equipment.glue` — a room of the project → the check (the
-  only module that reads the project model): :func:`check_room`,
-  :func:`check_existing_units`.
+A room of the project is turned into a check by
+:mod:`coldroom.design.existing` (:func:`~coldroom.design.existing.check_room`,
+:func:`~coldroom.design.existing.check_existing_units`), one stage up.
 
 The public names are importable from ``coldroom.equipment`` itself.
+
+Stage 4 of the layout. May import: the foundation, ``data`` and ``physics``.
 
 Conventions and choices (documented here once):
 
@@ -55,7 +57,7 @@ Conventions and choices (documented here once):
   asked to run more than :data:`RATING_SUCTION_GAP` below its rating suction it
   is flagged as a medium-temperature unit at low-temperature suction [trade].
 * Without unit-cooler (or condenser) data the evaporating (condensing)
-  temperature is fixed by the sizing TD (:func:`coldroom.design.design_temperatures`):
+  temperature is fixed by the sizing TD (:func:`coldroom.rules.design_temperatures`):
   S = t_room − TD_evap, D = t_ambient + TD_cond. The evaporator is then
   assumed able to take whatever the compressor pumps at that TD — an
   optimistic assumption stated in the result's ``evaporator_basis``.
@@ -105,7 +107,6 @@ from coldroom.equipment.compressors import (
     ahri540_polynomial,
     clearance_volumetric_efficiency,
 )
-from coldroom.equipment.glue import build_compressor, check_existing_units, check_room, operating_conditions, room_load_at
 from coldroom.equipment.verdict import CHART_AMBIENTS, CheckResult, check_unit, solve_balance
 
 __all__ = [
@@ -128,13 +129,8 @@ __all__ = [
     "RatedPointCompressor",
     "ahri540_polynomial",
     "balance_point",
-    "build_compressor",
-    "check_existing_units",
-    "check_room",
     "check_unit",
     "clearance_volumetric_efficiency",
     "highest_holding_ambient",
-    "operating_conditions",
-    "room_load_at",
     "solve_balance",
 ]

@@ -13,7 +13,7 @@ import math
 from dataclasses import dataclass, replace
 from typing import Any, Callable, Optional, Sequence
 
-from coldroom.design import AMBIENT_SWEEP
+from coldroom.rules import AMBIENT_SWEEP
 from coldroom.errors import CalculationError, PropertyRangeError
 from coldroom.results import Note, Phrase
 from coldroom.results import inline_term as _n
@@ -485,7 +485,7 @@ def highest_holding_ambient(
     samples: Sequence[tuple[float, Optional[float], Optional[tuple[float, float]]]],
     resolution: float = 0.05,
 ) -> tuple[Optional[float], str]:
-    """The highest ambient [°C] at which capacity ≥ load, within :data:`coldroom.design.AMBIENT_SWEEP`.
+    """The highest ambient [°C] at which capacity ≥ load, within :data:`coldroom.rules.AMBIENT_SWEEP`.
 
     *samples* are already computed (ambient, capacity or None, balance guess).
     Assumes capacity falls and load rises with ambient (one crossing). The

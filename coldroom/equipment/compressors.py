@@ -4,7 +4,7 @@ Each model answers ``performance(S, D)`` at a suction and discharge dew point
 [°C] with a :class:`CompressorPoint` (useful capacity, power, heat rejection,
 mass flow [W, W, W, kg/s]) and ``flags(point)`` with its own warnings. Only
 this module of the package touches refrigerant properties (CoolProp, lazily
-through :mod:`coldroom.refrigerant`). Conventions: see :mod:`coldroom.equipment`.
+through :mod:`coldroom.physics.refrigerant`). Conventions: see :mod:`coldroom.equipment`.
 """
 
 from __future__ import annotations
@@ -181,7 +181,7 @@ class CompressorPoint:
 
 
 def _fluid(refrigerant: str) -> Any:
-    from coldroom.refrigerant import get_fluid  # lazy: CoolProp import
+    from coldroom.physics.refrigerant import get_fluid  # lazy: CoolProp import
 
     return get_fluid(refrigerant)
 

@@ -13,7 +13,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 from typing import Any, Callable, Optional, Sequence
 
-from coldroom.design import DISCHARGE_ADVISORY, DISCHARGE_LIMIT, pressure_ratio_advisory
+from coldroom.rules import DISCHARGE_ADVISORY, DISCHARGE_LIMIT, pressure_ratio_advisory
 from coldroom.equipment.balance import BalancePoint, HeatExchanger, balance_point, highest_holding_ambient
 from coldroom.equipment.compressors import Compressor, CompressorPoint
 from coldroom.errors import CalculationError, PropertyRangeError
@@ -21,7 +21,7 @@ from coldroom.results import Note, Phrase
 from coldroom.units import format_terms
 
 #: Ambient temperatures of the capacity/load chart [°C], inside
-#: :data:`coldroom.design.AMBIENT_SWEEP`.
+#: :data:`coldroom.rules.AMBIENT_SWEEP`.
 CHART_AMBIENTS: tuple[float, ...] = tuple(20.0 + 5.0 * i for i in range(6))  # smooth curves: 5 K steps suffice
 
 # --------------------------------------------------------------------------- verdict

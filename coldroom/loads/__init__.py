@@ -4,13 +4,16 @@ The sub-modules are pure physics on plain floats (SI):
 :mod:`~coldroom.loads.transmission`, :mod:`~coldroom.loads.infiltration`,
 :mod:`~coldroom.loads.product`, :mod:`~coldroom.loads.internal`,
 :mod:`~coldroom.loads.totals`. This module maps one validated room of a
-project (:class:`coldroom.projectfile.Room`) onto them and collects the lines
+project (:class:`coldroom.inputs.projectfile.Room`) onto them and collects the lines
 into a :class:`coldroom.results.RoomLoads`.
 
 The components follow ASHRAE Handbook—Refrigeration, chapter
 "Refrigerated-Facility Loads" [ref:ashrae-refrig-loads]: transmission, product, infiltration, internal
 (people, lighting, forklifts and other equipment in the room) and equipment
-(evaporator fans, heaters, defrost).
+(evaporator fans, heaters, defrost). The design day hour by hour is
+:mod:`~coldroom.loads.hourly`; the pull-down after a delivery :mod:`~coldroom.loads.pulldown`.
+
+Stage 3 of the layout. May import: the foundation, ``data`` and ``physics``.
 """
 
 from __future__ import annotations
@@ -22,7 +25,7 @@ from coldroom.results import LoadLine, RoomLoads, Term
 from coldroom.results import Term as T
 
 if TYPE_CHECKING:  # pragma: no cover
-    from coldroom.projectfile import Construction, DesignConditions, Product, ProjectModel, Room
+    from coldroom.inputs.projectfile import Construction, DesignConditions, Product, ProjectModel, Room
 
 DAY = 86400.0  # s
 SIDES = ("north", "east", "south", "west", "ceiling", "floor")
@@ -62,7 +65,7 @@ def construction_u(construction: "Construction", facing: str) -> float:
 
 def outdoor_relative_humidity(design: "DesignConditions") -> float:
     """Outdoor design relative humidity [-] (from the wet bulb when given that way)."""
-    from coldroom import psychrometrics
+    from coldroom.physics import psychrometrics
 
     if design.outdoor_rh is not None:
         return design.outdoor_rh
@@ -74,7 +77,7 @@ def outdoor_relative_humidity(design: "DesignConditions") -> float:
 
 def site_pressure(design: "DesignConditions") -> float:
     """Barometric pressure at the site [Pa]: given, or the standard atmosphere at the altitude."""
-    from coldroom import psychrometrics
+    from coldroom.physics import psychrometrics
 
     if design.barometric_pressure is not None:
         return design.barometric_pressure
@@ -210,7 +213,7 @@ def infiltration_lines(model: "ProjectModel", room: "Room") -> list[LoadLine]:
 
 def product_properties(item: "Product") -> tuple:
     """(property model, respiration data or None, label) of one product entry of a room."""
-    from coldroom.data.products import get_product
+    from coldroom.physics.products import get_product
     from coldroom.loads.product import explicit_properties
 
     if item.product is not None:
@@ -282,7 +285,7 @@ def product_lines(model: "ProjectModel", room: "Room", loads: list | None = None
 
 def storage_advice(room: "Room") -> list[str]:
     """Storage warnings for the named products: room outside their range, or an unsuitable mix."""
-    from coldroom.data.products import get_product, mix_warnings, storage_warnings
+    from coldroom.physics.products import get_product, mix_warnings, storage_warnings
 
     named = [get_product(item.product) for item in room.products if item.product is not None]
     out: list[str] = []
@@ -411,8 +414,8 @@ LineSource = Callable[["ProjectModel", "Room"], list[LoadLine]]
 
 
 def design_day(model: "ProjectModel", room: "Room") -> "DesignDay":
-    """The room's design day (:func:`coldroom.designday.room_design_day`) from this module's lines."""
-    from coldroom.designday import LineSources, room_design_day
+    """The room's design day (:func:`coldroom.loads.hourly.room_design_day`) from this module's lines."""
+    from coldroom.loads.hourly import LineSources, room_design_day
 
     sources = LineSources(
         product_loads=_product_loads,

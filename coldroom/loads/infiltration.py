@@ -25,7 +25,7 @@ Two methods, kept in the registry :data:`INFILTRATION_METHODS`:
     V · n · ρ_da,outside, and the heat is that mass times (h_outside − h_room).
 
 Densities: buoyancy and the ρ_r prefactor use **moist-air** density (kg of
-moist air per m³) from :mod:`coldroom.psychrometrics`; enthalpies are per kg
+moist air per m³) from :mod:`coldroom.physics.psychrometrics`; enthalpies are per kg
 dry air, at the site barometric pressure given by the caller.
 
 Energy convention: results carry both the 24-hour average power [W] and the
@@ -41,7 +41,7 @@ from typing import Callable, Mapping
 
 from coldroom.registry import Registry
 from coldroom.errors import CalculationError, finite as _finite, non_negative as _non_negative
-from coldroom.psychrometrics import STANDARD_PRESSURE, MoistAirState, moist_air_state
+from coldroom.physics.psychrometrics import STANDARD_PRESSURE, MoistAirState, moist_air_state
 
 __all__ = [
     "GRAVITY",

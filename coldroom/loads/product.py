@@ -2,7 +2,7 @@
 
 Pure functions on plain numbers (SI; temperatures in °C because the food
 property correlations are written in °C). The product energy comes from
-enthalpy differences of a property model (:mod:`coldroom.food`), so partial
+enthalpy differences of a property model (:mod:`coldroom.physics.food`), so partial
 freezing below the initial freezing point is counted as the ice actually
 forms — not all at once as in the older equation
 
@@ -23,7 +23,7 @@ from dataclasses import dataclass
 
 from coldroom.errors import CalculationError
 from coldroom.registry import Registry
-from coldroom.food import CompositionModel, ExplicitModel, PropertyModel, RespirationData, respiration_heat
+from coldroom.physics.food import CompositionModel, ExplicitModel, PropertyModel, RespirationData, respiration_heat
 
 DAY = 86400.0  # s
 
@@ -148,8 +148,8 @@ def product_pulldown(
     pulldown_time : float
         Time to bring the intake down [s], > 0 (86 400 s = 24 h).
     properties : PropertyModel
-        From :meth:`coldroom.data.products.Product.properties`,
-        :func:`coldroom.food.siebel`, or :func:`explicit_properties`.
+        From :meth:`coldroom.physics.products.Product.properties`,
+        :func:`coldroom.physics.food.siebel`, or :func:`explicit_properties`.
 
     Returns
     -------
@@ -163,7 +163,7 @@ def product_pulldown(
 
     Examples
     --------
-    >>> from coldroom.food import siebel
+    >>> from coldroom.physics.food import siebel
     >>> r = product_pulldown(1000.0, 5.0, -18.0, 86400.0, siebel(0.75, -2.0))
     >>> round(r.sensible_above / 1e6, 2), round(r.latent / 1e6, 1), round(r.sensible_below / 1e6, 2)
     (23.44, 250.2, 28.46)
@@ -234,7 +234,7 @@ def explicit_properties(
     ...                     latent_heat=250e3).specific_heat_below
     1900
     """
-    from coldroom.food import siebel
+    from coldroom.physics.food import siebel
 
     if water_content is not None:
         base = siebel(water_content, freezing_point)
@@ -327,7 +327,7 @@ def respiration_load(
     """Heat of respiration of the stored produce at the room temperature.
 
     q = m·q_resp(t) (Becker, Misra & Fricke coefficients or tabulated heats,
-    :func:`coldroom.food.respiration_heat` [mem]); counted over 24 h. A
+    :func:`coldroom.physics.food.respiration_heat` [mem]); counted over 24 h. A
     product without respiration data (meat, frozen goods) gives 0.
 
     Parameters
@@ -341,7 +341,7 @@ def respiration_load(
 
     Examples
     --------
-    >>> from coldroom.food import RespirationData
+    >>> from coldroom.physics.food import RespirationData
     >>> r = respiration_load(2000.0, 0.0, RespirationData(f=3.6683e-4, g=3.0330))
     >>> round(r.power), round(r.daily_energy / 1e6, 1)
     (80, 6.9)
@@ -440,7 +440,7 @@ def product_load(
 
     Examples
     --------
-    >>> from coldroom.data.products import get_product
+    >>> from coldroom.physics.products import get_product
     >>> p = get_product("strawberries")
     >>> load = product_load("strawberries", p.properties(), mass=500.0, entering_temperature=20.0,
     ...                     final_temperature=1.0, pulldown_time=8 * 3600.0, packaging_mass=40.0,

@@ -19,7 +19,8 @@ REPO = Path(__file__).resolve().parents[2]
 def main() -> None:
     t0 = time.perf_counter()
     from coldroom import equipment as E
-    from coldroom.refrigerant import get_fluid
+from coldroom.design import existing
+    from coldroom.physics.refrigerant import get_fluid
 
     get_fluid("R-448A").dew_pressure(0.0)
     setup = time.perf_counter() - t0
@@ -38,11 +39,11 @@ def main() -> None:
     bp2, _ = E.solve_balance(compressor, evaporator, condenser, -18.0, 34.0, guess=(bp.suction_dew, bp.discharge_dew))
     warm = time.perf_counter() - t2
 
-    from coldroom.project import open_project
+    from coldroom.inputs.opening import open_project
 
     model = open_project(REPO / "project_files" / "cooler_to_freezer.yaml").model
     t3 = time.perf_counter()
-    E.check_existing_units(model)
+    existing.check_existing_units(model)
     full = time.perf_counter() - t3
 
     print(f"CoolProp import + R-448A setup (once per process): {setup:.2f} s")

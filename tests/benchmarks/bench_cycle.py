@@ -27,8 +27,8 @@ import time
 import CoolProp.CoolProp as CP
 from CoolProp.CoolProp import AbstractState
 
-from coldroom.cycle import solve_cycle
-from coldroom.refrigerant import get_fluid
+from coldroom.physics.cycle import solve_cycle
+from coldroom.physics.refrigerant import get_fluid
 
 K = 273.15
 

@@ -29,8 +29,8 @@ def main() -> None:
     baseline = statistics.median(base)
     print(f"python -c 'import CoolProp': {baseline:.3f} s (median of 3)")
 
-    from coldroom.cycle import solve_cycle
-    from coldroom.report.phchart import ph_chart
+    from coldroom.physics.cycle import solve_cycle
+    from coldroom.output.pdf.phchart import ph_chart
 
     for name in ("R-134a", "R-448A"):
         cycle = solve_cycle(name, -9.0, 41.0, 5000.0, suction_line_superheat=5.0)

@@ -5,7 +5,7 @@ Run by hand (not collected by pytest)::
     /work/venv/bin/python tests/benchmarks/bench_pulldown.py [PROJECT.yaml] [--repeat N]
 
 Two whole processes are timed in the same run, interleaved (median of N, default 5): `coldroom
-size PROJECT` as it is, and the same with ``coldroom.pulldown.room_pulldown`` replaced by a stub
+size PROJECT` as it is, and the same with ``coldroom.loads.pulldown.room_pulldown`` replaced by a stub
 that returns None (no scipy import, no integration). The ratio (with − without) / without is
 printed. The produce-cooler demo asks pull-downs of 12 and 24 h, so 48 h are simulated —
 longer than the 24 h the target names.
@@ -26,8 +26,8 @@ REPO = Path(__file__).resolve().parents[2]
 RUN = """
 import sys
 if sys.argv[1] == "off":
-    import coldroom.pulldown
-    coldroom.pulldown.room_pulldown = lambda *args, **kwargs: None
+    import coldroom.loads.pulldown
+    coldroom.loads.pulldown.room_pulldown = lambda *args, **kwargs: None
 sys.argv = ["coldroom", "size", sys.argv[2], "--out", sys.argv[3], "--force"]
 from coldroom.cli import main
 main()

@@ -24,7 +24,7 @@ sys.path.insert(0, str(REPO))
 
 
 def big_catalogue(size: int = 200):  # type: ignore[no-untyped-def]
-    from coldroom.catalogue import Catalogue, load_catalogue
+    from coldroom.inputs.catalogue import Catalogue, load_catalogue
 
     demo = load_catalogue(REPO / "project_files" / "catalogue" / "demo_catalogue.yaml")
     units = []
@@ -60,10 +60,10 @@ def best_of(n: int, work) -> float:  # type: ignore[no-untyped-def]
 
 
 def main() -> None:
-    from coldroom.equipment import check_existing_units as check_project
-    from coldroom.project import open_project
-    from coldroom.projectfile import ExistingUnit
-    from coldroom.selection import select_project
+    from coldroom.design.existing import check_existing_units as check_project
+    from coldroom.inputs.opening import open_project
+    from coldroom.inputs.projectfile import ExistingUnit
+    from coldroom.design.selection import select_project
 
     model = open_project(REPO / "project_files" / "cooler_to_freezer.yaml").model
     model = model.model_copy(update={"rooms": [model.rooms[0].model_copy(update={"existing_unit": None})]})

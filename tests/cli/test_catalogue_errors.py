@@ -10,7 +10,7 @@ from pathlib import Path
 
 import pytest
 
-from coldroom.catalogue import catalogue_rows, parse_catalogue
+from coldroom.inputs.catalogue import catalogue_rows, parse_catalogue
 from coldroom.errors import ProjectFileError
 
 REPO = Path(__file__).resolve().parents[2]
@@ -93,7 +93,7 @@ def table(text: str) -> list[list[str]]:
 
 
 def demo_rows() -> list[list]:
-    from coldroom.safeyaml import load_yaml
+    from coldroom.inputs.safeyaml import load_yaml
 
     return catalogue_rows(load_yaml(DEMO.read_bytes()).data)
 

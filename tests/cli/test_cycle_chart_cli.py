@@ -1,7 +1,7 @@
 """`coldroom cycle --out FILE.pdf|.svg` and measured pressures in place of saturation temperatures.
 
 Contracts (issue "p–h diagram"): one page written atomically through
-coldroom.output (refuses to overwrite without --force, leaves no temporary
+coldroom.output.files (refuses to overwrite without --force, leaves no temporary
 file), byte-identical run to run for the same arguments and SOURCE_DATE_EPOCH;
 --suction-pressure / --discharge-pressure read gauge or absolute from the unit.
 """
@@ -102,7 +102,7 @@ def _evaporating(*pressure_args: str) -> float:
 @pytest.mark.parametrize(
     "reading",
     # R-134a dew pressure at 0 °C: 292.8 kPa absolute ([ref:ashrae-fund-refrigerants] R-134a table [mem];
-    # also coldroom.refrigerant's doctest): 191.5 kPa(g), 1.915 bar(g), 27.77 psig against 101.325 kPa
+    # also coldroom.physics.refrigerant's doctest): 191.5 kPa(g), 1.915 bar(g), 27.77 psig against 101.325 kPa
     ["292.8 kPa", "2.928 bar", "191.5 kPa(g)", "1.915 bar(g)", "27.77 psig", "42.47 psia"],
 )
 def test_suction_pressure_gauge_or_absolute(reading):

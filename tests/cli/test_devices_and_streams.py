@@ -198,14 +198,14 @@ class _FullTerminal(io.StringIO):
 
 def test_size_with_stdout_full_writes_no_pdf(project: Path, monkeypatch: pytest.MonkeyPatch, capsys) -> None:
     """In-process, with the sizing and the sheet stubbed: what matters is the order (terminal text first)."""
-    import coldroom.report.sheet
-    import coldroom.sizing
-    import coldroom.textreport
+    import coldroom.output.pdf.sheet
+    import coldroom.design.sizing
+    import coldroom.output.terminal
     from coldroom.cli import app
 
-    monkeypatch.setattr(coldroom.sizing, "size_project", lambda *a: None)
-    monkeypatch.setattr(coldroom.report.sheet, "render_sheet", lambda *a: b"%PDF-stub")
-    monkeypatch.setattr(coldroom.textreport, "size_summary", lambda *a: "the summary")
+    monkeypatch.setattr(coldroom.design.sizing, "size_project", lambda *a: None)
+    monkeypatch.setattr(coldroom.output.pdf.sheet, "render_sheet", lambda *a: b"%PDF-stub")
+    monkeypatch.setattr(coldroom.output.terminal, "size_summary", lambda *a: "the summary")
     monkeypatch.setattr(sys, "stdout", _FullTerminal())
     with pytest.raises(SystemExit) as stop:
         app(["size", str(project)])

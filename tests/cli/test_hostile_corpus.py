@@ -22,7 +22,7 @@ import pytest
 import yaml
 
 from coldroom.errors import ProjectFileError
-from coldroom.project import open_project
+from coldroom.inputs.opening import open_project
 
 CORPUS = Path(__file__).resolve().parents[1] / "data" / "hostile"
 EXPECTED: dict[str, dict] = yaml.safe_load((CORPUS / "expected.yaml").read_text(encoding="utf-8"))
@@ -141,8 +141,8 @@ def test_load_writes_no_output(name: str, tmp_path: Path) -> None:
 
 
 def test_oversize_file_is_refused_fast(tmp_path: Path) -> None:
-    """A file over the 1 MiB limit (coldroom.safeyaml.MAX_BYTES) is refused before it is parsed."""
-    from coldroom.safeyaml import MAX_BYTES
+    """A file over the 1 MiB limit (coldroom.inputs.safeyaml.MAX_BYTES) is refused before it is parsed."""
+    from coldroom.inputs.safeyaml import MAX_BYTES
 
     big = tmp_path / "big.yaml"
     line = "# padding padding padding padding padding padding padding padding\n"
@@ -163,7 +163,7 @@ def test_oversize_file_is_refused_fast(tmp_path: Path) -> None:
 def test_endless_or_huge_input_is_read_only_to_the_limit(source: str, tmp_path: Path) -> None:
     """Only MAX_BYTES + 1 bytes are read: a device that never ends or a 3 GiB sparse file is refused
     at once (exit 65), without filling the memory."""
-    from coldroom.safeyaml import MAX_BYTES, read_source
+    from coldroom.inputs.safeyaml import MAX_BYTES, read_source
 
     path = source
     if source == "sparse":
@@ -246,7 +246,7 @@ IMPLAUSIBLE = {
 
 @pytest.mark.parametrize("case", sorted(IMPLAUSIBLE))
 def test_implausible_values_are_warnings_with_exit_0(case: str, tmp_path: Path) -> None:
-    """Thresholds are coldroom.checks' (common practice, no source): warn, do not refuse."""
+    """Thresholds are coldroom.inputs.physical_checks' (common practice, no source): warn, do not refuse."""
     import importlib.util
 
     spec = importlib.util.spec_from_file_location("hostile_generate", CORPUS / "_generate.py")

@@ -1,7 +1,7 @@
 """Nothing lost: no half-written output after an interruption, never over the input, --force to overwrite.
 
 The contract is the project's own (DEVELOPERS.md "Contracts": exit 73 "cannot write output";
-coldroom/output.py: atomic replace, inputs and existing files refused).
+coldroom/output/files.py: atomic replace, inputs and existing files refused).
 """
 
 from __future__ import annotations
@@ -17,9 +17,9 @@ from pathlib import Path
 
 import pytest
 
-import coldroom.output as output
+import coldroom.output.files as output
 from coldroom.errors import OutputError
-from coldroom.output import write_atomic
+from coldroom.output.files import write_atomic
 
 REPO = Path(__file__).resolve().parents[2]
 DEMO = REPO / "project_files" / "produce_cooler.yaml"
@@ -42,7 +42,7 @@ def project(tmp_path: Path) -> Path:
 
 
 def _half_then(signal_exception):
-    """A stand-in for coldroom.output._write_payload: half the bytes, then the interruption."""
+    """A stand-in for coldroom.output.files._write_payload: half the bytes, then the interruption."""
     real = output._write_payload
 
     def write(fd: int, payload: bytes) -> None:
@@ -80,7 +80,7 @@ def test_interrupt_mid_write_leaves_no_partial_file(
 
 CHILD = r"""
 import os, sys, time
-import coldroom.output as output
+import coldroom.output.files as output
 
 real = output._write_payload
 

@@ -1,6 +1,6 @@
 """Implausible values that drive the design: warned about, and explained on the sheet.
 
-The thresholds are common practice, no source (coldroom.checks): walk-in rooms pull product
+The thresholds are common practice, no source (coldroom.inputs.physical_checks): walk-in rooms pull product
 down in 8–24 h, and no single heat source or rating of a walk-in room is over 100 kW. A
 design capacity more than three times the 24-hour figure is explained where it is shown.
 """

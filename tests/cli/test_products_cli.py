@@ -8,7 +8,7 @@ import sys
 from typer.testing import CliRunner
 
 from coldroom.cli import app
-from coldroom.data.products import load_products
+from coldroom.physics.products import load_products
 
 runner = CliRunner()
 

@@ -1,7 +1,7 @@
 """Every JSON coldroom writes is strict RFC 8259 JSON: no NaN, no Infinity.
 
 Python's json.dumps writes the bare words NaN and Infinity, which strict readers (browsers,
-jq, most languages) refuse. All JSON leaves through coldroom.output.json_text; this file
+jq, most languages) refuse. All JSON leaves through coldroom.output.files.json_text; this file
 checks that nothing else writes JSON, and parses what the quick commands write with a parser
 that refuses those words (the size and check JSON are parsed the same way in their own tests).
 """
@@ -17,7 +17,7 @@ import pytest
 from typer.testing import CliRunner
 
 from coldroom.cli import app
-from coldroom.output import json_text
+from coldroom.output.files import json_text
 
 REPO = Path(__file__).resolve().parents[2]
 DEMOS = sorted((REPO / "project_files").glob("*.yaml"))
@@ -39,7 +39,7 @@ def test_json_text_writes_null_for_non_finite_numbers() -> None:
 def test_no_module_writes_json_by_itself() -> None:
     """json.dump(s) appears only in output.json_text, the one strict writer."""
     for module in (REPO / "coldroom").rglob("*.py"):
-        if module.name == "output.py" and module.parent.name == "coldroom":
+        if module.name == "files.py" and module.parent.name == "output":
             continue
         text = module.read_text(encoding="utf-8")
         assert not re.search(r"\bjson\.dumps?\(", text), f"{module} writes JSON itself; use output.json_text"

@@ -39,7 +39,7 @@ def test_json_has_the_systems_contract(sized) -> None:
     assert SYSTEM_KEYS <= set(system)
     assert system["name"] == "CU-1" and system["rooms"] == ["Cooler", "Freezer"]
     assert system["refrigerant"] == "R-448A"
-    from coldroom.cycle import solve_cycle
+    from coldroom.physics.cycle import solve_cycle
 
     assert set(system["cycle"]) == set(solve_cycle("R448A", -10.0, 40.0, 1000.0).to_json())  # a room's cycle keys
     assert {"mass_flow_kg_s", "compressor_power_w", "condenser_duty_w", "states"} <= set(system["cycle"])

@@ -1,6 +1,6 @@
 """Annual energy: a single 8760-hour bin at the design dry bulb equals 365 × the design day.
 
-The independent route is :func:`coldroom.sizing.size_project`'s per-system electricity per day
+The independent route is :func:`coldroom.design.sizing.size_project`'s per-system electricity per day
 (the day's heat gain removed at the design capacity and COP, fans, heaters, defrost; the issue's
 "365 × the design day's refrigeration energy ÷ COP plus the other uses") plus the lights.
 """
@@ -11,10 +11,10 @@ from pathlib import Path
 
 import pytest
 
-from coldroom.annual import _Context, _lighting_energy_per_day, compare, option_year
-from coldroom.project import open_project
-from coldroom.sizing import size_project
-from coldroom.weather import AmbientBin
+from coldroom.design.annual import _Context, _lighting_energy_per_day, compare, option_year
+from coldroom.inputs.opening import open_project
+from coldroom.design.sizing import size_project
+from coldroom.inputs.weather import AmbientBin
 
 REPO = Path(__file__).resolve().parents[2]
 FARM = REPO / "project_files" / "farm_shop_options.yaml"
@@ -52,8 +52,8 @@ def test_warmer_year_costs_more_and_options_are_all_there() -> None:
 
 
 def test_given_charge_wins_and_sets_the_direct_part(tmp_path: Path) -> None:
-    from coldroom.annual import _Context, option_year
-    from coldroom.project import open_project_text
+    from coldroom.design.annual import _Context, option_year
+    from coldroom.inputs.opening import open_project_text
 
     text = FARM.read_text(encoding="utf-8") + (
         "  - name: weighed in\n    changes:\n      systems.CU-1.charge: 3 kg\n"

@@ -11,9 +11,9 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from coldroom.cycle import solve_cycle
+from coldroom.physics.cycle import solve_cycle
 from coldroom.data.refrigerants import names
-from coldroom.refrigerant import get_fluid
+from coldroom.physics.refrigerant import get_fluid
 
 # (evaporating, condensing) per refrigerant: inside each fluid's range
 # (R-744 subcritical below its 31 °C critical point).
@@ -147,7 +147,7 @@ def test_compressor_displacement_is_the_full_cycles(name, te, tc, options):
     # The shortcut for capacity curves skips the states that do not bear on the
     # displacement (expansion outlet, actual discharge): the number must be the
     # full cycle's to the last bit, whatever the options.
-    from coldroom.cycle import compressor_displacement
+    from coldroom.physics.cycle import compressor_displacement
 
     full = solve_cycle(name, te, tc, 4000.0, **options)
     assert compressor_displacement(name, te, tc, 4000.0, **options) == full.displacement

@@ -1,4 +1,4 @@
-"""Invariants of the design day (coldroom.designday): energy placed, none lost; schedules only move it.
+"""Invariants of the design day (coldroom.loads.hourly): energy placed, none lost; schedules only move it.
 
 - with no daily range, the 24 hourly loads average to the 24-hour energy ÷ 86 400 s (0.5 %),
   whatever the schedule;
@@ -18,8 +18,8 @@ from hypothesis import given
 from hypothesis import strategies as st
 
 from coldroom.loads import design_day as room_design_day, product_peak, room_loads, internal_peak
-from coldroom.project import open_project_data
-from coldroom.safeyaml import load_yaml
+from coldroom.inputs.opening import open_project_data
+from coldroom.inputs.safeyaml import load_yaml
 from tests.conftest import PROJECT_FILES
 
 FREEZER = load_yaml((PROJECT_FILES / "freezer_heated_slab.yaml").read_bytes(), "freezer").data

@@ -248,7 +248,7 @@ POLY = """      polynomial:
 
 
 def _parse(units: str, unit: str):  # type: ignore[no-untyped-def]
-    from coldroom.projectfile import parse_project_text
+    from coldroom.inputs.projectfile import parse_project_text
 
     si = units == "SI"
     return parse_project_text(
@@ -264,7 +264,7 @@ def _parse(units: str, unit: str):  # type: ignore[no-untyped-def]
 
 def test_existing_unit_reads_the_same_in_si_and_ip() -> None:
     """Unit round trip: a rated point in IP bare numbers (°F, Btu/h, °F difference) equals SI."""
-    from coldroom.equipment import build_compressor
+    from coldroom.design.existing import build_compressor
 
     si = _parse("SI", RATED_SI).rooms[0]
     ip = _parse("IP", RATED_IP).rooms[0]
@@ -276,7 +276,7 @@ def test_existing_unit_reads_the_same_in_si_and_ip() -> None:
 
 
 def test_polynomial_envelope_in_an_ip_project_is_read_in_fahrenheit() -> None:
-    from coldroom.equipment import build_compressor
+    from coldroom.design.existing import build_compressor
 
     text = POLY.format(
         cap=", ".join(map(str, MT_CAPACITY)), pow=", ".join(map(str, MT_POWER)), smin=-4, smax=50, dmin=77, dmax=140
@@ -290,7 +290,7 @@ def test_polynomial_envelope_in_an_ip_project_is_read_in_fahrenheit() -> None:
 
 def test_project_freezer_with_mt_polynomial_is_not_rated() -> None:
     """End to end: a −18 °C room and a medium-temperature polynomial (S ≥ −20 °C) → refused, flagged."""
-    from coldroom.equipment import check_room
+    from coldroom.design.existing import check_room
 
     text = POLY.format(
         cap=", ".join(map(str, MT_CAPACITY)), pow=", ".join(map(str, MT_POWER)), smin=-20, smax=10, dmin=25, dmax=60
@@ -304,8 +304,8 @@ def test_project_freezer_with_mt_polynomial_is_not_rated() -> None:
 
 
 def test_unit_refrigerant_other_than_the_rooms_is_warned() -> None:
-    from coldroom.equipment import check_room
-    from coldroom.projectfile import parse_project_text
+    from coldroom.design.existing import check_room
+    from coldroom.inputs.projectfile import parse_project_text
 
     text = MINI.format(units="SI", outdoor="32", ground="12", room="-18", unit=RATED_SI)
     model = parse_project_text(text.replace("      refrigerant: R-448A\n", "      refrigerant: R-404A\n"))

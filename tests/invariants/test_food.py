@@ -13,7 +13,7 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from coldroom.data.products import (
+from coldroom.physics.products import (
     CATEGORIES,
     get_product,
     load_products,
@@ -23,7 +23,7 @@ from coldroom.data.products import (
 )
 from coldroom.errors import CalculationError, LookupNameError
 from coldroom.registry import normalise
-from coldroom.food import Composition, CompositionModel, siebel
+from coldroom.physics.food import Composition, CompositionModel, siebel
 from coldroom.loads.product import (
     explicit_properties,
     packaging_energy,
@@ -150,7 +150,7 @@ def test_latent_and_sensible_below_match_an_independent_integration(model, t1, d
     forms behind the lines; also bound the latent line by Δx_ice × L at the two ends."""
     from scipy.integrate import quad
 
-    from coldroom.food import water_latent_heat
+    from coldroom.physics.food import water_latent_heat
 
     t3 = t1 - drop
     r = product_pulldown(1.0, t1, t3, 86400.0, model)
@@ -312,7 +312,7 @@ def test_mix_warnings():
 def test_vectorised_enthalpies_agree_with_the_scalar_enthalpy(name):
     """The pull-down's one-pass table (CompositionModel.enthalpies) gives the scalar enthalpy at
     every temperature, above, at and below the initial freezing point (to rounding)."""
-    from coldroom.data.products import get_product
+    from coldroom.physics.products import get_product
 
     try:
         model = get_product(name).properties()

@@ -12,7 +12,7 @@ Handbook—Refrigeration "Refrigerated-Facility Loads" relation
   (1 + SF) · E / run time with SF and run time as written in the file;
 - random bytes, random text and random YAML documents (also a valid project
   with one value swapped for junk) never raise anything but
-  :class:`ProjectFileError` from :func:`coldroom.project.open_project_text`.
+  :class:`ProjectFileError` from :func:`coldroom.inputs.opening.open_project_text`.
 
 Hypothesis runs with the derandomized profile in tests/conftest.py.
 """
@@ -26,11 +26,11 @@ import yaml
 from hypothesis import assume, given, settings
 from hypothesis import strategies as st
 
-from coldroom.data.products import get_product, product_keys
+from coldroom.physics.products import get_product, product_keys
 from coldroom.errors import ProjectFileError
 from coldroom.loads import room_loads
-from coldroom.project import open_project_text
-from coldroom.projectfile import ProjectModel, parse_project_data
+from coldroom.inputs.opening import open_project_text
+from coldroom.inputs.projectfile import ProjectModel, parse_project_data
 
 PRODUCTS = product_keys()
 INSULATION = ("pur_panel", "pir_panel", "extruded_polystyrene", "expanded_polystyrene", "polyurethane", "glass_fibre")

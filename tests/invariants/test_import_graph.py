@@ -3,8 +3,8 @@
 Every ``import`` and ``from … import`` in ``coldroom/`` is read with :mod:`ast`,
 at module level and inside functions alike (a lazy import is still a
 dependency); only ``if TYPE_CHECKING:`` blocks are skipped (they never run).
-The allowed imports are read from the architecture table in DEVELOPERS.md, so
-the guide and the code cannot drift apart: a new module needs a row there.
+The rule is the stage order (:data:`STAGES`): foundation, data, physics, loads,
+equipment, inputs, design, output, the CLI; nothing imports a stage above its own.
 """
 
 from __future__ import annotations
@@ -15,7 +15,6 @@ from pathlib import Path
 
 REPO = Path(__file__).resolve().parents[2]
 PACKAGE = REPO / "coldroom"
-GUIDE = REPO / "DEVELOPERS.md"
 
 
 def _modules() -> dict[str, Path]:
@@ -82,35 +81,6 @@ def import_graph() -> dict[str, set[str]]:
     return graph
 
 
-def _unit(name: str, table: dict) -> str:
-    """The table row a module falls under: its own row (``equipment/glue``) if it has one, else its
-    package's (``loads``) or top-level module's (``sizing``); ``coldroom`` for the package itself."""
-    parts = name.split(".")[1:]
-    while parts:
-        key = "/".join(parts)
-        if key in table:
-            return key
-        parts = parts[:-1]
-    return name.split(".")[1] if "." in name else "coldroom"
-
-
-def may_import_table() -> dict[str, set[str] | None]:
-    """{unit: allowed coldroom units (None = any)} from the guide's architecture table."""
-    text = GUIDE.read_text(encoding="utf-8")
-    table: dict[str, set[str] | None] = {}
-    for line in text.splitlines():
-        cells = [c.strip() for c in line.strip().strip("|").split("|")]
-        if len(cells) != 4 or not cells[0].startswith("`"):
-            continue
-        unit = cells[0].strip("`").removesuffix(".py").removesuffix("/")
-        allowed = cells[3]
-        if allowed == "any":
-            table[unit] = None
-        else:
-            table[unit] = set(re.findall(r"`([\w./]+)`", allowed))
-    return table
-
-
 def _cycles(graph: dict[str, set[str]]) -> list[list[str]]:
     """Strongly connected components with more than one module (Tarjan)."""
     index: dict[str, int] = {}
@@ -151,8 +121,8 @@ def _cycles(graph: dict[str, set[str]]) -> list[list[str]]:
 def test_the_walker_sees_function_level_imports() -> None:
     graph = import_graph()
     # sizing imports the cycle inside size_room only (CoolProp stays lazy): still an edge
-    assert "coldroom.cycle" in graph["coldroom.sizing"]
-    assert "coldroom.refrigerant" in graph["coldroom.cycle"]
+    assert "coldroom.physics.cycle" in graph["coldroom.design.sizing"]
+    assert "coldroom.physics.refrigerant" in graph["coldroom.physics.cycle"]
 
 
 def test_cycle_finder_finds_a_planted_circle() -> None:
@@ -172,35 +142,61 @@ def test_no_import_circles() -> None:
     assert not gone, f"remove these from KNOWN_CIRCLES, they are fixed: {gone}"
 
 
-def test_every_module_has_a_row_in_the_guide() -> None:
-    table = may_import_table()
-    missing = sorted({_unit(m, table) for m in import_graph()} - set(table) - {"coldroom"})
-    assert not missing, f"add these to the DEVELOPERS.md architecture table: {missing}"
+#: The stages, lowest first. A module may import its own stage and the stages below it, never one
+#: above. The foundation is the handful of top-level modules every stage shares (errors, the
+#: constants, units, name look-ups, result records, the design rules of thumb); DEVELOPERS.md
+#: ("Layout") and each package's ``__init__`` docstring say the same in words.
+STAGES: tuple[tuple[str, ...], ...] = (
+    ("errors", "constants", "units", "registry", "results", "rules"),
+    ("data",),
+    ("physics",),
+    ("loads",),
+    ("equipment",),
+    ("inputs",),
+    ("design",),
+    ("output",),
+    ("cli", "__main__"),
+)
 
 
-def _allowed(unit: str, target: str, allowed: set[str]) -> bool:
-    """A module may import its own unit, its package's own modules (a package its submodules),
-    ``coldroom`` itself, what its row lists, and the modules of a package its row lists."""
-    if target in (unit, "coldroom") or target in allowed:
-        return True
-    if target.startswith(unit + "/"):
-        return True
-    return target.split("/")[0] in allowed
+def stage_of(module: str) -> int:
+    """The stage index of ``coldroom.x.y`` (its top-level module or package); -1 for ``coldroom``."""
+    parts = module.split(".")
+    if len(parts) == 1:
+        return -1
+    for index, names in enumerate(STAGES):
+        if parts[1] in names:
+            return index
+    raise AssertionError(f"{module}: not in any stage; add it to STAGES and to DEVELOPERS.md")
 
 
-def test_imports_follow_the_may_import_table() -> None:
-    table = may_import_table()
+def test_every_module_belongs_to_a_stage() -> None:
+    for module in import_graph():
+        stage_of(module)
+
+
+def test_a_lower_stage_never_imports_a_higher_one() -> None:
     bad = []
     for module, deps in sorted(import_graph().items()):
-        unit = _unit(module, table)
-        allowed = table.get(unit, set())
-        if allowed is None:
-            continue
         for dep in sorted(deps):
-            target = _unit(dep, table)
-            if not _allowed(unit, target, allowed):
-                bad.append(f"{module} imports {dep} ({target!r} is not in {unit!r}'s may-import list)")
+            if stage_of(dep) > stage_of(module):
+                bad.append(f"{module} (stage {stage_of(module)}) imports {dep} (stage {stage_of(dep)})")
     assert not bad, "\n".join(bad)
+
+
+def test_the_stage_rule_catches_an_upward_import() -> None:
+    assert stage_of("coldroom.physics.cycle") < stage_of("coldroom.design.sizing")
+    assert stage_of("coldroom.inputs.projectfile") > stage_of("coldroom.loads.hourly")
+    assert stage_of("coldroom.errors") == 0
+
+
+def test_each_package_says_what_it_owns_and_may_import() -> None:
+    for names in STAGES:
+        for name in names:
+            init = PACKAGE / name / "__init__.py"
+            if init.exists():
+                doc = ast.get_docstring(ast.parse(init.read_text(encoding="utf-8"))) or ""
+                assert "May import" in doc, f"{init}: the docstring says what the package may import"
 
 
 def test_only_the_glue_reads_the_project_model() -> None:
@@ -208,10 +204,10 @@ def test_only_the_glue_reads_the_project_model() -> None:
     graph = import_graph()
     for module in ("compressors", "balance", "verdict"):
         deps = graph[f"coldroom.equipment.{module}"]
-        assert not deps & {"coldroom.projectfile", "coldroom.loads", "coldroom.equipment.glue"}, (module, deps)
+        assert not deps & {"coldroom.inputs.projectfile", "coldroom.loads", "coldroom.design.existing"}, (module, deps)
 
 
 def test_the_orchestrator_is_imported_only_from_above() -> None:
     """Only the CLI, the option comparison and the equipment selection (which work on whole sizings) import sizing."""
-    importers = sorted(m for m, deps in import_graph().items() if "coldroom.sizing" in deps)
-    assert set(importers) <= {"coldroom.cli", "coldroom.annual", "coldroom.selection"}, importers
+    importers = sorted(m for m, deps in import_graph().items() if "coldroom.design.sizing" in deps)
+    assert set(importers) <= {"coldroom.cli", "coldroom.design.annual", "coldroom.design.selection"}, importers

@@ -20,7 +20,7 @@ from hypothesis import given
 from hypothesis import strategies as st
 
 from coldroom.loads import room_loads
-from coldroom.projectfile import parse_project_data
+from coldroom.inputs.projectfile import parse_project_data
 
 BASE = {
     "project": {"name": "Linked", "units": "SI"},

@@ -6,7 +6,7 @@ import pytest
 from hypothesis import assume, given
 from hypothesis import strategies as st
 
-from coldroom import psychrometrics as psy
+from coldroom.physics import psychrometrics as psy
 from coldroom.errors import CalculationError
 from coldroom.loads import infiltration, internal, totals, transmission
 

@@ -13,7 +13,7 @@ from importlib.resources import files
 
 import pytest
 
-from coldroom import design
+from coldroom import rules as design
 from coldroom.data import refrigerants
 from coldroom.errors import CalculationError
 
@@ -34,10 +34,10 @@ def _project(refrigerant: str, condenser_air: float, condenser_td: float = 10.0)
 
 @pytest.mark.parametrize("side", [-1, 1], ids=["below", "above"])
 def test_validate_size_and_cycle_agree_on_the_r744_boundary(side: int) -> None:
-    """One rule (coldroom.cycle.r744_transcritical): validate accepts, size sizes on the same side."""
-    from coldroom.cycle import R744_SUBCRITICAL_MARGIN, r744_transcritical, solve_cycle
-    from coldroom.project import open_project_text
-    from coldroom.sizing import size_room
+    """One rule (coldroom.physics.cycle.r744_transcritical): validate accepts, size sizes on the same side."""
+    from coldroom.physics.cycle import R744_SUBCRITICAL_MARGIN, r744_transcritical, solve_cycle
+    from coldroom.inputs.opening import open_project_text
+    from coldroom.design.sizing import size_room
 
     critical = refrigerants.limits("R-744")[1]
     condensing = critical - R744_SUBCRITICAL_MARGIN + side * 0.05
@@ -67,7 +67,7 @@ def test_pressure_ratio_table_has_a_limit_and_a_trade_tag_for_every_application_
 
 def test_ordinary_low_temperature_r448a_unit_gets_no_two_stage_advisory() -> None:
     """A −20 °C freezer: evaporating −25.5 °C (TD 5.5 K), condensing 42 °C: ratio ≈ 9."""
-    from coldroom.cycle import solve_cycle
+    from coldroom.physics.cycle import solve_cycle
 
     r = solve_cycle("R-448A", -25.5, 42.0, 5000.0)
     assert 8.4 <= r.pressure_ratio <= 9.2
@@ -110,8 +110,8 @@ def test_chart_ambients_lie_inside_the_sweep() -> None:
 def test_project_block_and_solve_cycle_defaults_are_the_table() -> None:
     import inspect
 
-    from coldroom.cycle import solve_cycle
-    from coldroom.projectfile import Refrigeration
+    from coldroom.physics.cycle import solve_cycle
+    from coldroom.inputs.projectfile import Refrigeration
 
     block = Refrigeration()
     parameters = inspect.signature(solve_cycle).parameters
@@ -125,8 +125,8 @@ def test_cycle_command_with_defaults_matches_the_project_sizing_for_the_same_dut
     from typer.testing import CliRunner
 
     from coldroom.cli import app
-    from coldroom.project import open_project_text
-    from coldroom.sizing import size_room
+    from coldroom.inputs.opening import open_project_text
+    from coldroom.design.sizing import size_room
 
     model = open_project_text(STARTER, "starter.yaml")
     sized = size_room(model, model.rooms[0])

@@ -1,5 +1,5 @@
 """The sheet's Paragraph keeps its line breaking for the width last asked
-(coldroom.report.layout.Paragraph). Invariant: the PDF is byte-for-byte the one
+(coldroom.output.pdf.layout.Paragraph). Invariant: the PDF is byte-for-byte the one
 reportlab's own Paragraph writes for a document whose paragraphs split across
 pages, sit in tables and in KeepTogether groups; asked at any sequence of widths
 it answers (size and lines) as a fresh Paragraph would; a paragraph whose lines a
@@ -16,7 +16,7 @@ from hypothesis import given, settings
 from hypothesis import strategies as st
 from reportlab.platypus import Paragraph as PlainParagraph
 
-from coldroom.report import layout
+from coldroom.output.pdf import layout
 
 @pytest.fixture
 def plain_wrap(monkeypatch):
@@ -83,7 +83,7 @@ def test_lines_discarded_by_a_refused_split_are_broken_again():
 
 
 def test_the_sheet_builds_its_paragraphs_from_layout_only():
-    # every coldroom module takes Paragraph from coldroom.report.layout (the one that keeps its
+    # every coldroom module takes Paragraph from coldroom.output.pdf.layout (the one that keeps its
     # line breaking); only layout itself imports reportlab's
     import ast
     from pathlib import Path

@@ -7,7 +7,7 @@
 
 Pure fluids are checked with CoolProp's own P–H flash (an independent route from
 the P–T and P–Q states the chart is built from); mixtures with the P–H fast path of
-``coldroom.refrigerant`` (itself compared with CoolProp's flash in
+``coldroom.physics.refrigerant`` (itself compared with CoolProp's flash in
 tests/validation/test_refrigerant.py), and with CoolProp's flash at a few points
 above 0.9 × critical pressure, where that fast path is not reliable.
 """
@@ -33,7 +33,7 @@ WINDOW = {"R-134a": (50e3, 5e6), "R-407C": (50e3, 5e6), "R-448A": (100e3, 7e6), 
 
 @pytest.fixture(scope="module", params=sorted(CASES), ids=str)
 def chart(request):
-    from coldroom.phdiagram import chart_data
+    from coldroom.physics.chart_data import chart_data
 
     name = request.param
     temps, entropies = CASES[name]
@@ -44,7 +44,7 @@ def chart(request):
 def _flash(name: str):
     from CoolProp.CoolProp import AbstractState
 
-    from coldroom.refrigerant import get_fluid
+    from coldroom.physics.refrigerant import get_fluid
 
     return AbstractState("HEOS", get_fluid(name).info.coolprop_name)
 
@@ -53,7 +53,7 @@ def _temperature_at(name: str, p: float, h: float, state) -> float:
     """Temperature [°C] at (p, h) from the property library."""
     import CoolProp.CoolProp as CP
 
-    from coldroom.refrigerant import get_fluid
+    from coldroom.physics.refrigerant import get_fluid
 
     fluid = get_fluid(name)
     if fluid.info.model != "mixture":
@@ -63,7 +63,7 @@ def _temperature_at(name: str, p: float, h: float, state) -> float:
 
 
 def test_isotherm_points_are_on_their_isotherm(chart):
-    from coldroom.refrigerant import get_fluid
+    from coldroom.physics.refrigerant import get_fluid
 
     name, data = chart
     fluid = get_fluid(name)
@@ -108,7 +108,7 @@ def test_zeotrope_isotherms_slope_across_the_dome(chart):
 def test_quality_line_points_have_their_quality(chart):
     import CoolProp.CoolProp as CP
 
-    from coldroom.refrigerant import get_fluid
+    from coldroom.physics.refrigerant import get_fluid
 
     name, data = chart
     fluid = get_fluid(name)
@@ -130,7 +130,7 @@ def test_quality_line_points_have_their_quality(chart):
 def test_isentrope_points_have_their_entropy(chart):
     import CoolProp.CoolProp as CP
 
-    from coldroom.refrigerant import get_fluid
+    from coldroom.physics.refrigerant import get_fluid
 
     name, data = chart
     fluid = get_fluid(name)
@@ -150,8 +150,8 @@ def test_isentrope_points_have_their_entropy(chart):
 
 @pytest.mark.parametrize("info", CATALOGUE, ids=lambda i: i.name)
 def test_dome_branches_meet_at_the_stored_critical_point(info):
-    from coldroom.phdiagram import _dome, _mixture_grid
-    from coldroom.refrigerant import get_fluid
+    from coldroom.physics.chart_data import _dome, _mixture_grid
+    from coldroom.physics.refrigerant import get_fluid
 
     fluid = get_fluid(info.name)
     p_low = max(100e3, fluid.minimum_pressure * 2)
@@ -168,8 +168,8 @@ def test_dome_branches_meet_at_the_stored_critical_point(info):
 
 
 def test_ip_chart_ticks_are_round_psia():
-    from coldroom.cycle import solve_cycle
-    from coldroom.report.phchart import ph_chart
+    from coldroom.physics.cycle import solve_cycle
+    from coldroom.output.pdf.phchart import ph_chart
 
     cycle = solve_cycle("R-134a", -10.0, 40.0, 5000.0, suction_line_superheat=5.0)
     drawing = ph_chart(cycle, "IP", 500.0, 400.0)
@@ -191,7 +191,7 @@ def test_ip_chart_ticks_are_round_psia():
 
 
 def test_chart_data_is_computed_once_per_window():
-    from coldroom.phdiagram import chart_data
+    from coldroom.physics.chart_data import chart_data
 
     temps, entropies = CASES["R-134a"]
     first = chart_data("R-134a", 50e3, 5e6, temps, entropies)
@@ -214,8 +214,8 @@ def test_blend_isotherms_next_to_the_critical_point_are_drawn_and_on_their_isoth
     the isotherm's temperature within 0.05 K."""
     import CoolProp.CoolProp as CP
 
-    from coldroom.phdiagram import chart_data
-    from coldroom.refrigerant import get_fluid
+    from coldroom.physics.chart_data import chart_data
+    from coldroom.physics.refrigerant import get_fluid
 
     fluid = get_fluid(name)
     pc, tc = fluid.critical_pressure, fluid.critical_temperature

@@ -25,7 +25,7 @@ COILS = [(-25.0, 6.0, 3000.0), (-4.0, 5.0, 2000.0)]  # freezer coil, cooler coil
 
 @pytest.fixture(scope="module", params=["R-448A", "R-134a"])
 def system_cycle(request):
-    from coldroom.cycle import solve_system_cycle
+    from coldroom.physics.cycle import solve_system_cycle
 
     return request.param, solve_system_cycle(request.param, COILS, 40.0, suction_line_superheat=5.0)
 
@@ -33,7 +33,7 @@ def system_cycle(request):
 def _coolprop(name: str):
     import CoolProp.CoolProp as CP
 
-    from coldroom.refrigerant import get_fluid
+    from coldroom.physics.refrigerant import get_fluid
 
     return CP, CP.AbstractState("HEOS", get_fluid(name).info.coolprop_name)
 
@@ -72,7 +72,7 @@ def _boxes(drawing, x0, y0, x1, y1):
 def test_chart_draws_the_warmer_coil_and_its_throttle(system_cycle):
     from reportlab.graphics.shapes import Circle, Line, PolyLine
 
-    from coldroom.report.phchart import CYCLE_SOFT, EPR_COIL, EPR_SOFT, ph_chart, state_rows
+    from coldroom.output.pdf.phchart import CYCLE_SOFT, EPR_COIL, EPR_SOFT, ph_chart, state_rows
 
     name, cycle = system_cycle
     CP, state = _coolprop(name)
@@ -118,8 +118,8 @@ def test_chart_draws_the_warmer_coil_and_its_throttle(system_cycle):
 def test_single_coil_chart_has_no_epr_parts():
     from reportlab.graphics.shapes import Circle, Line, PolyLine
 
-    from coldroom.cycle import solve_system_cycle
-    from coldroom.report.phchart import EPR_COIL, EPR_SOFT, ph_chart
+    from coldroom.physics.cycle import solve_system_cycle
+    from coldroom.output.pdf.phchart import EPR_COIL, EPR_SOFT, ph_chart
 
     cycle = solve_system_cycle("R-448A", [COILS[0]], 40.0)
     assert cycle.coil_outlets == ()
@@ -135,8 +135,8 @@ def test_three_coils_every_warmer_isobar_is_named_and_no_label_overlaps():
     with the coil's name or at least its mark, and the labels stay apart (IP units)."""
     from reportlab.graphics.shapes import Line
 
-    from coldroom.cycle import solve_system_cycle
-    from coldroom.report.phchart import CYCLE_SOFT, EPR_SOFT, ph_chart
+    from coldroom.physics.cycle import solve_system_cycle
+    from coldroom.output.pdf.phchart import CYCLE_SOFT, EPR_SOFT, ph_chart
 
     coils = COILS + [(2.0, 5.0, 1000.0)]
     cycle = solve_system_cycle("R-448A", coils, 40.0, suction_line_superheat=5.0)
@@ -165,9 +165,9 @@ def test_sheet_of_the_combination_demo_names_the_warmer_coil():
 
     import pypdf
 
-    from coldroom.project import open_project
-    from coldroom.report.sheet import render_sheet
-    from coldroom.sizing import size_project
+    from coldroom.inputs.opening import open_project
+    from coldroom.output.pdf.sheet import render_sheet
+    from coldroom.design.sizing import size_project
 
     path = Path(__file__).resolve().parents[2] / "project_files" / "combo_cooler_freezer.yaml"
     model = open_project(path).model

@@ -30,7 +30,7 @@ def _coolprop(name: str, p: float, h: float) -> tuple[float, float]:
     """Temperature [°C] and quality (-1 outside the dome) at (p, h): CoolProp's own P–H flash."""
     import CoolProp.CoolProp as CP
 
-    from coldroom.refrigerant import get_fluid
+    from coldroom.physics.refrigerant import get_fluid
 
     state = CP.AbstractState("HEOS", get_fluid(name).info.coolprop_name)
     state.update(CP.HmassP_INPUTS, h, p)
@@ -59,8 +59,8 @@ def _cycle_path(drawing):
 @pytest.mark.parametrize("name, drop", [("R-134a", 80e3), ("R-448A", 120e3), ("R-134a", -60e3)],
                          ids=["R-134a friction", "R-448A friction", "R-134a static gain"])
 def test_valve_inlet_is_its_own_state_on_the_chart(name, drop):
-    from coldroom.cycle import solve_cycle
-    from coldroom.report.phchart import ph_chart, state_rows, valve_inlet_state
+    from coldroom.physics.cycle import solve_cycle
+    from coldroom.output.pdf.phchart import ph_chart, state_rows, valve_inlet_state
 
     cycle = solve_cycle(name, -10.0, 40.0, 5000.0, subcooling=5.0, suction_line_superheat=5.0)
     s3, s4 = cycle.states[2], cycle.states[3]
@@ -105,9 +105,9 @@ def test_valve_inlet_is_its_own_state_on_the_chart(name, drop):
 
 
 def test_flashed_liquid_is_drawn_inside_the_dome_with_its_quality():
-    from coldroom.cycle import solve_cycle
-    from coldroom.refrigerant import get_fluid
-    from coldroom.report.phchart import ph_chart, state_rows, valve_inlet_state
+    from coldroom.physics.cycle import solve_cycle
+    from coldroom.physics.refrigerant import get_fluid
+    from coldroom.output.pdf.phchart import ph_chart, state_rows, valve_inlet_state
 
     cycle = solve_cycle("R-134a", -10.0, 40.0, 5000.0, subcooling=1.0)
     s3 = cycle.states[2]
@@ -126,8 +126,8 @@ def test_flashed_liquid_is_drawn_inside_the_dome_with_its_quality():
 
 
 def test_no_valve_point_without_a_pressure_change():
-    from coldroom.cycle import solve_cycle
-    from coldroom.report.phchart import cycle_states, valve_inlet_state
+    from coldroom.physics.cycle import solve_cycle
+    from coldroom.output.pdf.phchart import cycle_states, valve_inlet_state
 
     cycle = solve_cycle("R-134a", -10.0, 40.0, 5000.0)
     assert valve_inlet_state(cycle, None) is None
@@ -140,10 +140,10 @@ def test_sheet_of_the_demo_with_a_liquid_line_shows_the_valve_inlet():
 
     import pypdf
 
-    from coldroom.project import open_project
-    from coldroom.refrigerant import get_fluid
-    from coldroom.report.sheet import render_sheet
-    from coldroom.sizing import size_project
+    from coldroom.inputs.opening import open_project
+    from coldroom.physics.refrigerant import get_fluid
+    from coldroom.output.pdf.sheet import render_sheet
+    from coldroom.design.sizing import size_project
 
     path = REPO / "project_files" / "propane_cooler.yaml"
     model = open_project(path).model

@@ -13,10 +13,10 @@ import pytest
 from hypothesis import given
 from hypothesis import strategies as st
 
-from coldroom.charge import estimate_charge
-from coldroom.cycle import solve_cycle
+from coldroom.physics.charge import estimate_charge
+from coldroom.physics.cycle import solve_cycle
 from coldroom.data import tubes
-from coldroom.piping import FITTINGS, LineSpec, line_drop, size_line, size_lines
+from coldroom.physics.line_sizing import FITTINGS, LineSpec, line_drop, size_line, size_lines
 
 CYCLE = solve_cycle("R-404A", -10.0, 40.0, 4000.0)
 SUCTION_DENSITY = CYCLE.evaporator_outlet.density
@@ -105,7 +105,7 @@ class _Piping:
 
 @given(st.floats(min_value=-15.0, max_value=15.0), st.floats(min_value=0.0, max_value=5.0))
 def test_liquid_rise_eats_subcooling_and_a_drop_restores_it(rise, more):
-    from coldroom.pipework import size_system_lines, valve_subcooling
+    from coldroom.design.pipework import size_system_lines, valve_subcooling
 
     low = valve_subcooling(CYCLE, size_system_lines(CYCLE, _Piping(rise)))
     high = valve_subcooling(CYCLE, size_system_lines(CYCLE, _Piping(min(rise + more, 20.0))))
@@ -116,8 +116,8 @@ def test_liquid_rise_eats_subcooling_and_a_drop_restores_it(rise, more):
 
 
 def test_flash_gas_is_warned_when_the_liquid_line_climbs_too_far():
-    from coldroom.pipework import cycle_drops, pipework, size_system_lines, valve_subcooling
-    from coldroom.projectfile import ChargeSettings
+    from coldroom.design.pipework import cycle_drops, pipework, size_system_lines, valve_subcooling
+    from coldroom.inputs.projectfile import ChargeSettings
 
     piping = size_system_lines(CYCLE, _Piping(15.0))
     sub = valve_subcooling(CYCLE, piping)

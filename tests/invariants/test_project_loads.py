@@ -14,8 +14,8 @@ from hypothesis import given, settings
 from hypothesis import strategies as st
 
 from coldroom.loads import room_loads
-from coldroom.projectfile import parse_project_data, parse_project_text
-from coldroom.safeyaml import load_yaml
+from coldroom.inputs.projectfile import parse_project_data, parse_project_text
+from coldroom.inputs.safeyaml import load_yaml
 
 from pathlib import Path
 

@@ -1,4 +1,4 @@
-"""Invariants of the pull-down simulation (coldroom.pulldown).
+"""Invariants of the pull-down simulation (coldroom.loads.pulldown).
 
 - more capacity never lengthens the pull-down (nor raises the product temperature at any time);
 - the heat the unit removes equals the enthalpy the masses and the air lose plus the steady load
@@ -14,8 +14,8 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from coldroom.data.products import get_product
-from coldroom.pulldown import ThermalMass, half_cooling_conductance, simulate, thermostat
+from coldroom.physics.products import get_product
+from coldroom.loads.pulldown import ThermalMass, half_cooling_conductance, simulate, thermostat
 
 BEEF = get_product("beef_frozen").properties()
 
@@ -87,7 +87,7 @@ def test_inverse_is_np_interp_row_by_row(steps, picks, on_grid):
     """The pull-down's one-step inversion of all masses' tables equals np.interp per mass
     exactly (==), below, inside, on a grid point and above each table (the reference is
     numpy's own np.interp)."""
-    from coldroom.pulldown import _Inverse
+    from coldroom.loads.pulldown import _Inverse
 
     temps = [-40.0 + 10.0 * k for k in range(7)]
     tables = []
@@ -116,7 +116,7 @@ def test_inverse_is_np_interp_row_by_row(steps, picks, on_grid):
 def test_capacity_curve_is_np_interp(steps, capacities, picks, on_point):
     """The pull-down's capacity curve answers exactly (==) what numpy's own np.interp
     gives through the same points: below, between, on a point and above them."""
-    from coldroom.pulldown import capacity_curve
+    from coldroom.loads.pulldown import capacity_curve
 
     air = [-5.0]
     for d in steps:

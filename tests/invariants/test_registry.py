@@ -11,9 +11,10 @@ import pytest
 from hypothesis import given
 from hypothesis import strategies as st
 
-from coldroom.data import materials, products, refrigerants, tubes
+from coldroom.data import materials, refrigerants, tubes
+from coldroom.physics import products
 from coldroom.errors import LookupNameError
-from coldroom.food import Composition, chang_tao_freezing_point, property_model
+from coldroom.physics.food import Composition, chang_tao_freezing_point, property_model
 from coldroom.loads import infiltration, internal, product, totals
 from coldroom.registry import DuplicateNameError, Registry, normalise
 

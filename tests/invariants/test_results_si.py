@@ -20,8 +20,8 @@ IP_TEXT = re.compile(r"°F|Btu|\bft\b|ft²|ft³|\blb\b|\bTR\b|\bpsi")
 
 @pytest.fixture(scope="module")
 def ip_result():
-    from coldroom.project import open_project
-    from coldroom.sizing import size_project
+    from coldroom.inputs.opening import open_project
+    from coldroom.design.sizing import size_project
 
     opened = open_project(PROJECT_FILES / "meat_cooler_ip.yaml")
     assert opened.model.project.units == "IP"
@@ -50,7 +50,7 @@ def test_ip_sheet_basis_shows_the_same_terms_in_ip_units(ip_result) -> None:
 
 
 def test_ip_terminal_summary_speaks_ip(ip_result) -> None:
-    from coldroom.textreport import size_summary
+    from coldroom.output.terminal import size_summary
 
     model, result = ip_result
     text = size_summary(result, model)
@@ -59,9 +59,9 @@ def test_ip_terminal_summary_speaks_ip(ip_result) -> None:
 
 def test_check_report_in_ip_has_no_si_temperatures() -> None:
     """The existing-unit report (verdict, ambient range, warnings) in an IP project reads °F only."""
-    from coldroom.equipment import check_existing_units
-    from coldroom.project import open_project
-    from coldroom.textreport import check_report
+    from coldroom.design.existing import check_existing_units
+    from coldroom.inputs.opening import open_project
+    from coldroom.output.terminal import check_report
 
     model = open_project(PROJECT_FILES / "cooler_to_freezer.yaml").model
     ip = model.model_copy(update={"project": model.project.model_copy(update={"units": "IP"})})

@@ -22,7 +22,7 @@ from hypothesis import assume, given, settings
 from hypothesis import strategies as st
 
 from coldroom.errors import ProjectFileError
-from coldroom.safeyaml import load_yaml
+from coldroom.inputs.safeyaml import load_yaml
 
 SLOW = 1.0  # [s] per input; generous because the machine is shared (typical: < 5 ms)
 
@@ -214,7 +214,7 @@ def test_every_plain_surprise_is_rejected_or_read_as_its_yaml12_value(word):
 
 def _both(source):
     """(fast path result or None, pure-Python result or the ProjectFileError)."""
-    import coldroom.safeyaml as sy
+    import coldroom.inputs.safeyaml as sy
 
     if sy._CLoader is None:  # PyYAML built without libyaml: there is no fast path to check
         return None, None

@@ -10,12 +10,12 @@ from pathlib import Path
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from coldroom.catalogue import catalogue_rows, load_catalogue, parse_catalogue
-from coldroom.equipment import check_room
-from coldroom.project import open_project
-from coldroom.projectfile import ExistingUnit
-from coldroom.safeyaml import load_yaml
-from coldroom.selection import choose_condensing_unit, select_project
+from coldroom.inputs.catalogue import catalogue_rows, load_catalogue, parse_catalogue
+from coldroom.design.existing import check_room
+from coldroom.inputs.opening import open_project
+from coldroom.inputs.projectfile import ExistingUnit
+from coldroom.inputs.safeyaml import load_yaml
+from coldroom.design.selection import choose_condensing_unit, select_project
 
 REPO = Path(__file__).resolve().parents[2]
 DEMO = REPO / "project_files" / "catalogue" / "demo_catalogue.yaml"
@@ -57,7 +57,7 @@ _FREEZER = open_project(REPO / "project_files" / "cooler_to_freezer.yaml").model
 
 
 def _duty():  # type: ignore[no-untyped-def]
-    import coldroom.selection as selection
+    import coldroom.design.selection as selection
 
     seen = []
     original = selection.choose_condensing_unit

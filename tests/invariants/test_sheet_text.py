@@ -11,7 +11,7 @@ from __future__ import annotations
 from hypothesis import given
 from hypothesis import strategies as st
 
-from coldroom.report.text import _REPLACE, clean
+from coldroom.output.pdf.text import _REPLACE, clean
 
 text = st.text(alphabet=st.characters(max_codepoint=0x33FF) | st.sampled_from(sorted(_REPLACE)), max_size=40)
 

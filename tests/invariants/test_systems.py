@@ -18,9 +18,9 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from coldroom.cycle import solve_cycle, solve_system_cycle
-from coldroom.project import open_project, open_project_data
-from coldroom.sizing import size_project, size_system
+from coldroom.physics.cycle import solve_cycle, solve_system_cycle
+from coldroom.inputs.opening import open_project, open_project_data
+from coldroom.design.sizing import size_project, size_system
 
 REPO = Path(__file__).resolve().parents[2]
 COMBO = REPO / "project_files" / "combo_cooler_freezer.yaml"

@@ -7,8 +7,8 @@ from hypothesis import given
 from hypothesis import strategies as st
 
 from coldroom.errors import CalculationError
-from coldroom.tewi import tewi
-from coldroom.weather import bins_from_hours
+from coldroom.design.tewi import tewi
+from coldroom.inputs.weather import bins_from_hours
 
 positive = st.floats(min_value=0.0, max_value=1e4, allow_nan=False)
 share = st.floats(min_value=0.0, max_value=1.0)

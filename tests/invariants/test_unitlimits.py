@@ -1,4 +1,4 @@
-"""Round trips of what an old unit can still do (coldroom.unitlimits), through the full check.
+"""Round trips of what an old unit can still do (coldroom.design.unit_limits), through the full check.
 
 The change-of-use demo (project_files/cooler_to_freezer.yaml) as it is (the unit holds) and with
 three times the intake (it does not):
@@ -18,11 +18,11 @@ import copy
 
 import pytest
 
-from coldroom.equipment import check_room
+from coldroom.design.existing import check_room
 from coldroom.loads import room_loads
-from coldroom.project import open_project_data
-from coldroom.safeyaml import load_yaml
-from coldroom.unitlimits import unit_limits
+from coldroom.inputs.opening import open_project_data
+from coldroom.inputs.safeyaml import load_yaml
+from coldroom.design.unit_limits import unit_limits
 from tests.conftest import PROJECT_FILES
 
 DEMO = load_yaml((PROJECT_FILES / "cooler_to_freezer.yaml").read_bytes(), "demo").data

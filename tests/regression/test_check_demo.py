@@ -32,8 +32,8 @@ PINS = {
 
 @pytest.fixture(scope="module")
 def check():  # type: ignore[no-untyped-def]
-    from coldroom.equipment import check_existing_units
-    from coldroom.project import open_project
+    from coldroom.design.existing import check_existing_units
+    from coldroom.inputs.opening import open_project
 
     ((loads, result),) = check_existing_units(open_project(DEMO).model)
     return result
@@ -64,12 +64,12 @@ def test_demo_chart_is_pinned(check) -> None:  # type: ignore[no-untyped-def]
 
 
 def test_size_carries_the_check_into_json_and_sheet() -> None:
-    """`size` runs the same check (one call, coldroom.equipment.check_room) and prints its section."""
+    """`size` runs the same check (one call, coldroom.design.existing.check_room) and prints its section."""
     import io
 
-    from coldroom.project import open_project
-    from coldroom.report.sheet import render_sheet
-    from coldroom.sizing import size_project
+    from coldroom.inputs.opening import open_project
+    from coldroom.output.pdf.sheet import render_sheet
+    from coldroom.design.sizing import size_project
 
     pypdf = pytest.importorskip("pypdf")
     model = open_project(DEMO).model

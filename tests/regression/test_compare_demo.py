@@ -22,8 +22,8 @@ KEYS = ("design_capacity_w", "compressor_input_power_w", "annual_energy_kwh", "a
 
 
 def compute() -> dict:
-    from coldroom.annual import compare
-    from coldroom.project import open_project
+    from coldroom.design.annual import compare
+    from coldroom.inputs.opening import open_project
 
     result = compare(open_project(DEMO).model).to_json()
     return {

@@ -23,7 +23,7 @@ DEMOS = sorted((REPO / "project_files").glob("*.yaml"))
 
 def compute(path: Path) -> list[dict[str, object]]:
     from coldroom.loads import project_loads
-    from coldroom.project import open_project
+    from coldroom.inputs.opening import open_project
 
     model = open_project(path).model
     out = []

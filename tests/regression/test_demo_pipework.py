@@ -21,8 +21,8 @@ DEMOS = sorted(p for p in (REPO / "project_files").glob("*.yaml") if "piping:" i
 
 
 def compute(path: Path) -> list[dict[str, object]]:
-    from coldroom.project import open_project
-    from coldroom.sizing import size_project
+    from coldroom.inputs.opening import open_project
+    from coldroom.design.sizing import size_project
 
     out = []
     for system in size_project(open_project(path).model, str(path), path.read_bytes()).systems:

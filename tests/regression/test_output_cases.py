@@ -12,9 +12,9 @@ from pathlib import Path
 
 import pytest
 
-import coldroom.output as output
+import coldroom.output.files as output
 from coldroom.errors import OutputError, UsageError
-from coldroom.output import write_atomic
+from coldroom.output.files import write_atomic
 
 
 def listing(folder: Path) -> list[str]:

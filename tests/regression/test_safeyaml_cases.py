@@ -21,7 +21,7 @@ import pytest
 import yaml
 
 from coldroom.errors import ProjectFileError
-from coldroom.safeyaml import MAX_BYTES, dotted, load_yaml
+from coldroom.inputs.safeyaml import MAX_BYTES, dotted, load_yaml
 
 FAST = 0.5  # [s] a hostile file must be rejected within this time (brief: bombs < 0.1 s on an idle machine)
 

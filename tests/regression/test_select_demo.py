@@ -6,11 +6,12 @@ from pathlib import Path
 
 import pytest
 
-from coldroom.catalogue import load_catalogue
+from coldroom.inputs.catalogue import load_catalogue
 from coldroom.data import refrigerants
-from coldroom.equipment import RATING_SUCTION_GAP, build_compressor
-from coldroom.project import open_project
-from coldroom.selection import _condenser, _rate, select_project
+from coldroom.design.existing import build_compressor
+from coldroom.equipment import RATING_SUCTION_GAP
+from coldroom.inputs.opening import open_project
+from coldroom.design.selection import _condenser, _rate, select_project
 
 REPO = Path(__file__).resolve().parents[2]
 CATALOGUE = load_catalogue(REPO / "project_files" / "catalogue" / "demo_catalogue.yaml")
@@ -32,7 +33,7 @@ def holds_by_brute_force(entry, duty, refrigeration) -> bool:  # type: ignore[no
 @pytest.mark.parametrize("name", ["produce_cooler", "combo_cooler_freezer", "propane_cooler"])
 def test_choice_is_the_cheapest_that_holds(name: str, monkeypatch: pytest.MonkeyPatch) -> None:
     model = open_project(REPO / "project_files" / f"{name}.yaml").model
-    import coldroom.selection as selection
+    import coldroom.design.selection as selection
 
     duties = []
     original = selection.choose_condensing_unit
@@ -68,7 +69,7 @@ def test_demo_choices_pinned() -> None:
 
 
 def _cooler(**kw):  # type: ignore[no-untyped-def]
-    from coldroom.catalogue import UnitCoolerEntry
+    from coldroom.inputs.catalogue import UnitCoolerEntry
 
     data = dict(model="C", capacity=2000, air_on=0, evaporating_temperature=-8, air_flow=0.5, throw=10,
                 fan_power=100, defrost="off_cycle", fin_spacing="4 mm", price=500)
@@ -77,7 +78,7 @@ def _cooler(**kw):  # type: ignore[no-untyped-def]
 
 
 def test_coil_rules_stated_in_the_issue() -> None:
-    from coldroom.selection import choose_coolers
+    from coldroom.design.selection import choose_coolers
 
     room = dict(room_name="R", temperature_difference=8.0)
     # a freezer takes only electric or hot-gas defrost, fins >= 6 mm

@@ -30,9 +30,9 @@ DEMOS = sorted(p for p in (REPO / "project_files").glob("*.yaml") if p.stem in {
 
 
 def _size(path: Path):
-    from coldroom.project import open_project
-    from coldroom.report.sheet import render_sheet
-    from coldroom.sizing import size_project
+    from coldroom.inputs.opening import open_project
+    from coldroom.output.pdf.sheet import render_sheet
+    from coldroom.design.sizing import size_project
 
     model = open_project(path).model
     result = size_project(model, str(path), path.read_bytes())
@@ -60,7 +60,7 @@ def test_demo_list_is_complete():
 
 
 def test_json_figures_are_on_the_sheet(sized):
-    from coldroom.report.text import capacity, q, temperature
+    from coldroom.output.pdf.text import capacity, q, temperature
 
     model, result, pdf = sized
     text = _flat(" ".join(_pages_text(pdf)))
@@ -140,7 +140,7 @@ def test_sheet_uses_only_builtin_fonts(sized):
 
 
 def test_two_renders_are_identical_and_dated_from_the_project(sized):
-    from coldroom.report.sheet import render_sheet
+    from coldroom.output.pdf.sheet import render_sheet
 
     model, result, pdf = sized
     assert render_sheet(result, model) == pdf
@@ -177,8 +177,8 @@ def test_date_from_source_date_epoch(tmp_path, monkeypatch):
     ],
 )
 def test_design_temperatures_follow_the_td_table(stem, evaporating, condensing):
-    from coldroom.project import open_project
-    from coldroom.design import design_temperatures
+    from coldroom.inputs.opening import open_project
+    from coldroom.rules import design_temperatures
 
     model = open_project(REPO / "project_files" / f"{stem}.yaml").model
     room = model.rooms[0]
@@ -197,7 +197,7 @@ def test_design_temperatures_follow_the_td_table(stem, evaporating, condensing):
 )
 def test_td_inside_the_trade_band(rh, td):
     """The chosen TD lies inside the trade band for the RH [trade]."""
-    from coldroom.design import evaporator_td_for
+    from coldroom.rules import evaporator_td_for
 
     bands = [(0.875, 1.01, 4.0, 5.0), (0.80, 0.875, 5.5, 6.5), (0.65, 0.80, 6.5, 9.0), (0.50, 0.65, 9.0, 12.0),
              (0.0, 0.50, 9.0, 12.0)]
@@ -209,7 +209,7 @@ def test_td_inside_the_trade_band(rh, td):
 
 
 def test_freezer_td_is_the_freezer_band():
-    from coldroom.design import evaporator_td_for
+    from coldroom.rules import evaporator_td_for
 
     td, _source = evaporator_td_for(-25.0, 0.9)
     assert 5.0 <= td <= 6.0  # freezers ≈ 5–6 K [trade]
@@ -217,7 +217,7 @@ def test_freezer_td_is_the_freezer_band():
 
 def test_combo_sheet_page_one_shows_the_whole_job():
     """Page 1 of a job with one system of two rooms: the systems table with its total row above the rooms."""
-    from coldroom.report.text import capacity, temperature
+    from coldroom.output.pdf.text import capacity, temperature
 
     path = REPO / "project_files" / "combo_cooler_freezer.yaml"
     model, result, pdf = _size(path)

@@ -21,9 +21,9 @@ DEMO = REPO / "project_files" / "cooler_to_freezer.yaml"
 def sheet():
     import pypdf
 
-    from coldroom.project import open_project
-    from coldroom.report.sheet import render_sheet
-    from coldroom.sizing import size_project
+    from coldroom.inputs.opening import open_project
+    from coldroom.output.pdf.sheet import render_sheet
+    from coldroom.design.sizing import size_project
 
     model = open_project(DEMO).model
     result = size_project(model, str(DEMO), DEMO.read_bytes())

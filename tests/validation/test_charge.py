@@ -11,7 +11,7 @@ from __future__ import annotations
 
 import pytest
 
-from coldroom import charge
+from coldroom.physics import charge
 from coldroom.data.refrigerants import lookup
 
 

@@ -21,9 +21,9 @@ from __future__ import annotations
 
 import pytest
 
-from coldroom.cycle import liao_optimum_pressure, solve_cycle
+from coldroom.physics.cycle import liao_optimum_pressure, solve_cycle
 from coldroom.errors import CalculationError, LookupNameError
-from coldroom.refrigerant import get_fluid
+from coldroom.physics.refrigerant import get_fluid
 
 IDEAL = dict(superheat=0.0, suction_line_superheat=0.0, subcooling=0.0, isentropic_efficiency=1.0)
 

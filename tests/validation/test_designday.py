@@ -12,7 +12,7 @@ from __future__ import annotations
 
 import pytest
 
-from coldroom.designday import outdoor_temperatures
+from coldroom.loads.hourly import outdoor_temperatures
 
 # (table hour, percent of daily range) as printed
 PUBLISHED = [(1, 87), (5, 100), (8, 84), (12, 23), (15, 0), (18, 21), (21, 58), (24, 82)]

@@ -13,7 +13,7 @@ from pathlib import Path
 import pytest
 
 from coldroom.errors import ProjectFileError
-from coldroom.weather import bins_from_hours, read_epw, year_hours_error
+from coldroom.inputs.weather import bins_from_hours, read_epw, year_hours_error
 
 HEADER = [
     "LOCATION,Testville,TS,Nowhere,Invented,000000,51.50,-0.10,0.0,20.0",

@@ -10,7 +10,7 @@ Sources named beside each check:
 - Rice & Dabiri suction-density correction ṁ = ṁ_map·[1 + F(ρ/ρ_map − 1)]
   [pub; F = 0.75 from memory] [ref:dabiri-rice-1981].
 - CoolProp 8 ``PropsSI`` as the reference property library (the model uses
-  coldroom.refrigerant; the tests compute the same states independently) [ref:coolprop].
+  coldroom.physics.refrigerant; the tests compute the same states independently) [ref:coolprop].
 - Hand-worked balance-point examples: every input stated, arithmetic written out.
 """
 

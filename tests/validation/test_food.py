@@ -17,9 +17,9 @@ from __future__ import annotations
 
 import pytest
 
-from coldroom.data.products import get_product
+from coldroom.physics.products import get_product
 from coldroom.loads.product import product_pulldown
-from coldroom.food import (
+from coldroom.physics.food import (
     Composition,
     CompositionModel,
     component_specific_heat,
@@ -198,7 +198,7 @@ def test_peas_entering_frozen_still_release_latent_heat():
     The review that found this: the latent line read 0 W. Here the latent line lies between the
     ice formed × the latent heat of water at −18 °C and at −12 °C (Kirchhoff, L0 = 333.6 kJ/kg
     at 0 °C), and the two lines add up to the enthalpy drop."""
-    from coldroom.food import water_latent_heat
+    from coldroom.physics.food import water_latent_heat
 
     model = get_product("peas").properties()
     r = product_pulldown(1000.0, -12.0, -18.0, 86400.0, model)

@@ -22,7 +22,7 @@ from CoolProp.HumidAirProp import HAPropsSI
 from coldroom.data import materials
 from coldroom.errors import CalculationError, LookupNameError
 from coldroom.loads import infiltration, internal, totals, transmission
-from coldroom import psychrometrics as psy
+from coldroom.physics import psychrometrics as psy
 
 K = 273.15
 

@@ -20,7 +20,7 @@ import math
 import pytest
 
 from coldroom.data import tubes
-from coldroom.piping import LineSpec, friction_factor, line_drop
+from coldroom.physics.line_sizing import LineSpec, friction_factor, line_drop
 
 
 def test_cengel_example_8_3_water_pipe():

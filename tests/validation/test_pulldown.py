@@ -1,4 +1,4 @@
-"""The pull-down model (coldroom.pulldown) against analytic solutions of the lumped capacitance method.
+"""The pull-down model (coldroom.loads.pulldown) against analytic solutions of the lumped capacitance method.
 
 Source of the method: Incropera & DeWitt, *Fundamentals of Heat and Mass Transfer*, 6th ed., §5.1
 "The lumped capacitance method" [ref:incropera-dewitt] (from memory; verify): a body of uniform temperature exchanging
@@ -21,7 +21,7 @@ import math
 
 import pytest
 
-from coldroom.pulldown import FINAL_TOLERANCE, ThermalMass, simulate
+from coldroom.loads.pulldown import FINAL_TOLERANCE, ThermalMass, simulate
 
 
 def test_constant_capacity_pulls_down_linearly() -> None:

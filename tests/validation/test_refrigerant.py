@@ -22,7 +22,7 @@ import pytest
 
 from coldroom.data.refrigerants import CATALOGUE, lookup, names
 from coldroom.errors import LookupNameError, PropertyRangeError
-from coldroom.refrigerant import MIXTURE_CRITICAL_POINTS, coolprop_version, get_fluid
+from coldroom.physics.refrigerant import MIXTURE_CRITICAL_POINTS, coolprop_version, get_fluid
 
 # ----------------------------------------------------------------- catalogue
 
@@ -430,7 +430,7 @@ def test_absurd_discharge_is_refused_alike_for_pure_fluids_and_blends(name, extr
     # The blend path once reported thousands of °C here while pure fluids were
     # refused; both now stop at the same limit (1.5 × the EOS maximum
     # temperature, where CoolProp's own flash stops) with the same message.
-    from coldroom.cycle import solve_cycle
+    from coldroom.physics.cycle import solve_cycle
 
     with pytest.raises(PropertyRangeError, match="above the maximum temperature"):
         solve_cycle(name, -10.0, 25.0, 5000.0, **extreme)

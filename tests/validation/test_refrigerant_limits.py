@@ -28,7 +28,7 @@ def test_every_catalogue_refrigerant_has_limits() -> None:
 
 #: Blends whose critical points are recomputed here. CoolProp needs 5–30 s for
 #: each of the others (R-448A, R-449A …); for those the check uses the critical
-#: points stored in coldroom.refrigerant, which are the same CoolProp call's
+#: points stored in coldroom.physics.refrigerant, which are the same CoolProp call's
 #: result (one of them recomputed by tests/validation/test_refrigerant.py).
 QUICK_CRITICAL_POINTS = {"R452A.mix", "R407A.mix", "R455A.mix"}
 
@@ -38,7 +38,7 @@ def test_limits_match_coolprop(info) -> None:
     lowest, critical = REFRIGERANT_LIMITS[info.name]
     assert CP.PropsSI("Ttriple", info.coolprop_name) - K == pytest.approx(lowest, abs=0.01)
     if info.model == "mixture" and info.coolprop_name not in QUICK_CRITICAL_POINTS:
-        from coldroom.refrigerant import MIXTURE_CRITICAL_POINTS
+        from coldroom.physics.refrigerant import MIXTURE_CRITICAL_POINTS
 
         assert critical == pytest.approx(MIXTURE_CRITICAL_POINTS[info.coolprop_name][0] - K, abs=0.01)
     elif info.model == "mixture":

@@ -1,7 +1,7 @@
 """Blend viscosity approximation against an independent route.
 
 CoolProp's pseudo-pure R-407C model carries its own viscosity correlation
-(the reference); the component mixing rules of coldroom.refrigerant
+(the reference); the component mixing rules of coldroom.physics.refrigerant
 (Grunberg-Nissan for the liquid, Wilke for the vapour) built from R-32, R-125
 and R-134a at R-407C's mole fractions (0.381/0.180/0.439, from the 23/25/52
 mass composition) must agree within 8 % on both saturation lines.
@@ -11,7 +11,7 @@ from __future__ import annotations
 
 import pytest
 
-from coldroom.refrigerant import MIXTURE_VISCOSITY_BASIS, blend_viscosity, get_fluid
+from coldroom.physics.refrigerant import MIXTURE_VISCOSITY_BASIS, blend_viscosity, get_fluid
 
 R407C = (("R32", 0.381109), ("R125", 0.179559), ("R134a", 0.439332))
 

@@ -15,7 +15,7 @@ from __future__ import annotations
 import pytest
 
 from coldroom.data.refrigerants import lookup
-from coldroom.tewi import tewi
+from coldroom.design.tewi import tewi
 
 
 def test_condensing_unit_sample_r404a() -> None:

@@ -14,7 +14,7 @@ import copy
 import pytest
 
 from coldroom.loads import room_loads
-from coldroom.projectfile import parse_project_data
+from coldroom.inputs.projectfile import parse_project_data
 
 PANEL = 0.100  # m, walls and ceiling
 SLAB = 0.250  # m, floor build-up
@@ -117,7 +117,7 @@ def test_u_value_construction_counts_its_given_thickness() -> None:
 
 def test_outside_dimensions_smaller_than_the_walls_are_refused() -> None:
     from coldroom.errors import ProjectFileError
-    from coldroom.project import open_project_data
+    from coldroom.inputs.opening import open_project_data
 
     bad = copy.deepcopy(_project({"length": 0.15, "width": 3, "height": 2.6, "measured": "outside"}))
     with pytest.raises(ProjectFileError, match="dimensions: inside volume"):

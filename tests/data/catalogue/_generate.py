@@ -21,7 +21,7 @@ import numpy as np
 ROOT = Path(__file__).resolve().parents[3]
 sys.path.insert(0, str(ROOT))
 
-from coldroom.catalogue import catalogue_rows  # noqa: E402
+from coldroom.inputs.catalogue import catalogue_rows  # noqa: E402
 from coldroom.equipment import OperatingConditions, RatedPointCompressor  # noqa: E402
 
 RATING = OperatingConditions(superheat=10.0, suction_line_superheat=0.0, subcooling=0.0)

@@ -1,0 +1,609 @@
+"""Pull-down after a delivery: a lumped model of room air, product, packaging and panels.
+
+The model (heat balances, our formulation of the lumped-capacitance method;
+each mass uniform in temperature — Incropera & DeWitt, *Fundamentals of Heat
+and Mass Transfer*, 6th ed., §5.1 "The lumped capacitance method" [ref:incropera-dewitt] [mem])::
+
+    C_air · dT_a/dt = L(T_a) + Σ_i UA_i·(T_i − T_a) − s(T_a)·Q(T_a)
+    m_i · dh_i/dt   = UA_i·(T_a − T_i),    T_i = T(h_i)
+
+- T_a room air [°C], C_air = ρ·c_p·V of the room air [J/K];
+- masses *i*: the delivered product (specific enthalpy h_i(T) from the food
+  property model, so the latent heat of freezing is released as the ice
+  forms — :mod:`coldroom.physics.food`), its packaging, the product already stored
+  and, optionally, the panels' inner metal skin (constant specific heat:
+  h = c·T);
+- L(T_a): the room's steady loads (transmission, infiltration, internal,
+  respiration) at the room air temperature [W];
+- Q(T_a): the unit's capacity with the room air at T_a [W] (the design cycle
+  or the existing-unit model: it falls as the room and the suction fall);
+- s: the thermostat, a proportional band :data:`THERMOSTAT_BAND` wide
+  centred on the set point (0 below, 1 above) [trade].
+
+The equations are integrated by scipy's ``odeint`` (LSODA: the air node
+is fast, the product slow — a stiff system; [ref:petzold-1983]), imported only here. A product
+has reached its final temperature when it is within
+:data:`FINAL_TOLERANCE` of it [trade].
+
+Examples
+--------
+A mass of 1000 kg at c = 3600 J/(kg·K), tied tightly to the air, 10 kW of
+capacity against 2 kW of steady load: it falls (10 − 2) kW ÷ 3.6 MJ/K =
+8 K in 3600 s.
+
+>>> m = ThermalMass("block", 1000.0, 1e6, 10.0, specific_heat=3600.0, final_temperature=2.5)
+>>> r = simulate(0.0, [m], lambda t: 10e3, lambda t: 2e3, set_point=-30.0,
+...              initial_air_temperature=10.0, duration=7200.0)
+>>> round(r.hours_to_final, 3)   # 10 → 3.0 °C (2.5 °C + 0.5 K) at 8 K/h
+0.875
+"""
+
+from __future__ import annotations
+
+import math
+from bisect import bisect_right
+from dataclasses import dataclass
+from typing import TYPE_CHECKING, Any, Callable, Optional, Sequence
+
+from coldroom.errors import CalculationError
+
+if TYPE_CHECKING:  # pragma: no cover
+    from coldroom.inputs.projectfile import ProjectModel, Room
+
+#: Width of the thermostat's proportional band around the set point [K] (a
+#: 1 K differential, common practice [trade]).
+THERMOSTAT_BAND = 1.0
+#: A product is at its final temperature within this much of it [K] [trade].
+FINAL_TOLERANCE = 0.5
+#: Default half-cooling time of product in a cold room with the unit
+#: cooler's air movement [s]: 3 h (cartons and crates room-cooled; forced-air
+#: cooling is faster, stacked pallets slower — common practice, no source).
+DEFAULT_HALF_COOLING_TIME = 3.0 * 3600.0
+#: Packaging cools this many times faster than the product it holds [-] [trade].
+PACKAGING_SPEED = 3.0
+#: Inner panel skin: 0.5 mm steel, 7850 kg/m³, 460 J/(kg·K) (steel properties
+#: ASHRAE Fundamentals [mem]; skin thickness common practice [trade]); film
+#: coefficient 8 W/(m²·K) to room air with fans running [trade].
+SKIN_MASS_PER_AREA = 0.0005 * 7850.0  # kg/m²
+SKIN_SPECIFIC_HEAT = 460.0  # J/(kg·K)
+SKIN_FILM = 8.0  # W/(m²·K)
+#: Room air: ρ·c_p at about 0 °C [J/(m³·K)] (1.27 kg/m³ × 1006 J/(kg·K), ASHRAE
+#: Fundamentals, Psychrometrics [mem]); kept constant over the pull-down.
+AIR_HEAT_CAPACITY_PER_VOLUME = 1.27 * 1006.0
+#: Time steps of the reported curves [s].
+REPORT_STEP = 900.0
+
+
+@dataclass(frozen=True)
+class ThermalMass:
+    """One lumped mass tied to the room air.
+
+    Attributes
+    ----------
+    name : str
+    mass : float
+        [kg].
+    conductance : float
+        UA to the room air [W/K].
+    initial_temperature : float
+        [°C].
+    enthalpy : callable, optional
+        Specific enthalpy h(T) [J/kg] of T [°C], increasing; default c·T.
+    enthalpies : callable, optional
+        The same enthalpy for a sequence of temperatures at once (a vectorised
+        form of *enthalpy*, used for the inversion tables when given).
+    specific_heat : float
+        [J/(kg·K)] when no *enthalpy* is given.
+    final_temperature : float, optional
+        Target [°C]: the mass is a product whose time to reach it is reported.
+    asked_time : float, optional
+        The pull-down time the project asks for [s].
+    """
+
+    name: str
+    mass: float
+    conductance: float
+    initial_temperature: float
+    enthalpy: Optional[Callable[[float], float]] = None
+    specific_heat: float = 0.0
+    final_temperature: Optional[float] = None
+    asked_time: Optional[float] = None
+    enthalpies: Optional[Callable[[Sequence[float]], Sequence[float]]] = None  # h at many T at once (optional)
+
+    def h(self, temperature: float) -> float:
+        """Specific enthalpy [J/kg]."""
+        if self.enthalpy is not None:
+            return self.enthalpy(temperature)
+        return self.specific_heat * temperature
+
+
+@dataclass(frozen=True)
+class ProductTrace:
+    """One product's pull-down.
+
+    Attributes
+    ----------
+    name : str
+    temperature : tuple of float
+        [°C] at :attr:`PulldownResult.time`.
+    final_temperature : float
+        [°C].
+    time_to_final : float or None
+        [s]; None when not reached within the simulated time.
+    asked_time : float or None
+        [s].
+    """
+
+    name: str
+    temperature: tuple[float, ...]
+    final_temperature: float
+    time_to_final: Optional[float]
+    asked_time: Optional[float]
+
+    @property
+    def met(self) -> bool:
+        """The asked pull-down time is met (True when none is asked)."""
+        if self.asked_time is None:
+            return True
+        return self.time_to_final is not None and self.time_to_final <= self.asked_time * (1 + 1e-9)
+
+
+@dataclass(frozen=True)
+class PulldownResult:
+    """The simulated pull-down.
+
+    Attributes
+    ----------
+    time : tuple of float
+        [s] from the delivery.
+    air_temperature : tuple of float
+        Room air [°C].
+    products : tuple of ProductTrace
+    duration : float
+        Time simulated [s].
+    lowest_air_temperature : float
+        The room air's lowest temperature during the simulation [°C].
+    basis : str
+        Where the capacity came from, and the model's assumptions.
+    """
+
+    time: tuple[float, ...]
+    air_temperature: tuple[float, ...]
+    products: tuple[ProductTrace, ...]
+    duration: float
+    lowest_air_temperature: float
+    basis: str = ""
+
+    @property
+    def governing(self) -> Optional[ProductTrace]:
+        """The product that reaches its final temperature last (never reached counts last)."""
+        if not self.products:
+            return None
+        return max(self.products, key=lambda p: math.inf if p.time_to_final is None else p.time_to_final)
+
+    @property
+    def hours_to_final(self) -> Optional[float]:
+        """Hours until every product is at its final temperature (None: not within the simulation)."""
+        g = self.governing
+        if g is None or g.time_to_final is None:
+            return None
+        return g.time_to_final / 3600.0
+
+    @property
+    def met(self) -> bool:
+        """Every product meets the pull-down time asked for it."""
+        return all(p.met for p in self.products)
+
+    def to_json(self) -> dict:
+        g = self.governing
+        return {
+            "hours_to_final_temperature": self.hours_to_final,
+            "lowest_room_air_temperature_c": self.lowest_air_temperature,
+            "time_h": [t / 3600.0 for t in self.time],
+            "product_temperature_c": list(g.temperature) if g is not None else [],
+            "room_air_temperature_c": list(self.air_temperature),
+            "product": g.name if g is not None else None,
+            "asked_hours": g.asked_time / 3600.0 if g is not None and g.asked_time is not None else None,
+            "meets_asked_time": self.met,
+            "products": [
+                {
+                    "name": p.name,
+                    "hours_to_final_temperature": None if p.time_to_final is None else p.time_to_final / 3600.0,
+                    "final_temperature_c": p.final_temperature,
+                    "asked_hours": None if p.asked_time is None else p.asked_time / 3600.0,
+                    "meets_asked_time": p.met,
+                }
+                for p in self.products
+            ],
+            "simulated_hours": self.duration / 3600.0,
+            "basis": self.basis,
+        }
+
+
+def thermostat(air_temperature: float, set_point: float, band: float = THERMOSTAT_BAND) -> float:
+    """Share of full capacity the thermostat lets the unit give [-] (proportional band).
+
+    Examples
+    --------
+    >>> thermostat(2.0, 2.0), thermostat(3.0, 2.0), thermostat(1.0, 2.0)
+    (0.5, 1.0, 0.0)
+    """
+    return min(1.0, max(0.0, (air_temperature - (set_point - band / 2.0)) / band))
+
+
+def _inverse_table(mass: ThermalMass, low: float, high: float) -> tuple[list[float], list[float]]:
+    """(enthalpies, temperatures) on a grid dense enough to invert h(T) by interpolation."""
+    n = 400
+    temps = [low + (high - low) * i / (n - 1) for i in range(n)]
+    enth = list(mass.enthalpies(temps)) if mass.enthalpies is not None else [mass.h(t) for t in temps]
+    for a, b in zip(enth, enth[1:]):
+        if not b > a:
+            raise CalculationError(f"the enthalpy of {mass.name} does not rise with temperature")
+    return enth, temps
+
+
+class _Interpolant:
+    """y(x) through points with *x* rising: linear between them, flat beyond the ends.
+
+    Gives exactly ``np.interp(x, xs, ys)`` — the same bracket xs[j] ≤ x < xs[j+1] (a
+    binary search), the same arithmetic ``slope·(x − xs[j]) + ys[j]`` in double
+    precision, the ends clamped — so results are bit-identical (tested). Plain Python:
+    the integrator asks hundreds of times per room, and numpy's per-call overhead is
+    most of the cost of one answer.
+    """
+
+    def __init__(self, xs: Sequence[float], ys: Sequence[float]) -> None:
+        self.xs = [float(v) for v in xs]
+        self.ys = [float(v) for v in ys]
+        x, y = self.xs, self.ys
+        self.slopes = [(y[k + 1] - y[k]) / (x[k + 1] - x[k]) for k in range(len(x) - 1)]
+
+    def __call__(self, x: float) -> float:
+        j = bisect_right(self.xs, x)  # points at or below x
+        if j == 0:
+            return self.ys[0]
+        if j == len(self.xs):
+            return self.ys[-1]
+        return float(self.slopes[j - 1] * (x - self.xs[j - 1]) + self.ys[j - 1])
+
+
+def capacity_curve(air: Sequence[float], capacity: Sequence[float]) -> Callable[[float], float]:
+    """A unit's capacity [W] against the room air [°C] through the points (*air* rising):
+    linear between them, flat beyond the ends — exactly ``np.interp`` (:class:`_Interpolant`)."""
+    return _Interpolant(air, capacity)
+
+
+class _Inverse:
+    """T(h) of every mass at once, from tables on one temperature grid: row *i* is
+    ``np.interp(h[i], enthalpies[i], temperatures)`` (bit-identical, :class:`_Interpolant`)."""
+
+    def __init__(self, tables: Sequence[tuple[Sequence[float], Sequence[float]]]) -> None:
+        self.rows = [_Interpolant(enthalpies, temperatures) for enthalpies, temperatures in tables]
+
+    def __call__(self, h: Any) -> Any:
+        import numpy as np
+
+        return np.array([row(x) for row, x in zip(self.rows, np.asarray(h, dtype=float).tolist())])
+
+
+def simulate(
+    air_heat_capacity: float,
+    masses: Sequence[ThermalMass],
+    capacity: Callable[[float], float],
+    steady_load: Callable[[float], float],
+    *,
+    set_point: float,
+    initial_air_temperature: float,
+    duration: float,
+    band: float = THERMOSTAT_BAND,
+    basis: str = "",
+) -> PulldownResult:
+    """Integrate the pull-down (see the module notes for the equations).
+
+    Parameters
+    ----------
+    air_heat_capacity : float
+        ρ·c_p·V of the room air [J/K], ≥ 0 (0: the air is taken as massless).
+    masses : sequence of ThermalMass
+    capacity : callable
+        Unit capacity [W] at a room air temperature [°C], ≥ 0.
+    steady_load : callable
+        The room's other loads [W] at a room air temperature [°C].
+    set_point : float
+        Thermostat set point [°C].
+    initial_air_temperature : float
+        [°C].
+    duration : float
+        Time to simulate [s], > 0.
+    band : float
+        Thermostat proportional band [K], > 0.
+
+    Returns
+    -------
+    PulldownResult
+
+    Raises
+    ------
+    CalculationError
+        The integrator fails.
+    """
+    import numpy as np
+    from scipy.integrate import odeint
+
+    if not duration > 0.0:
+        raise CalculationError(f"pull-down duration {duration!r} s must be positive")
+    if not band > 0.0:
+        raise CalculationError(f"thermostat band {band!r} K must be positive")
+    temps0 = [initial_air_temperature, set_point] + [m.initial_temperature for m in masses]
+    low, high = min(temps0) - 40.0, max(temps0) + 10.0
+    # one table per enthalpy function (a product's delivery and its stored stock share one)
+    tables, known = [], {}
+    for m in masses:
+        key = (m.enthalpy, None if m.enthalpy is not None else m.specific_heat)
+        try:
+            table = known[key]
+        except KeyError:
+            table = known[key] = _inverse_table(m, low, high)
+        except TypeError:  # an unhashable enthalpy callable
+            table = _inverse_table(m, low, high)
+        tables.append(table)
+    temperatures = _Inverse(tables)  # h → T of every mass at once
+    ua = np.array([m.conductance for m in masses], dtype=float)
+    mass = np.array([m.mass for m in masses], dtype=float)
+    n = len(masses)
+    massless_air = air_heat_capacity <= 0.0
+
+    def air_balance(ta: float, tm: np.ndarray) -> float:
+        return steady_load(ta) + float(np.dot(ua, tm - ta)) - thermostat(ta, set_point, band) * capacity(ta)
+
+    def quasi_steady_air(tm: np.ndarray) -> float:
+        # massless air: the air temperature where the balance is zero (monotone falling in T_a)
+        a, b = low, high
+        fa = air_balance(a, tm)
+        for _ in range(80):
+            mid = 0.5 * (a + b)
+            fm = air_balance(mid, tm)
+            if (fm > 0) == (fa > 0):
+                a, fa = mid, fm
+            else:
+                b = mid
+            if b - a < 1e-7:
+                break
+        return 0.5 * (a + b)
+
+    def rhs(_t: float, y: np.ndarray) -> np.ndarray:
+        if massless_air:
+            tm = temperatures(y)
+            ta = quasi_steady_air(tm)
+            d = np.empty(n)
+        else:
+            ta = float(y[0])  # a Python float: the same value, quicker arithmetic than numpy's scalar
+            tm = temperatures(y[1:])
+            d = np.empty(n + 1)
+            d[0] = air_balance(ta, tm) / air_heat_capacity
+        flow = ua * (ta - tm) / mass
+        d[-n:] = flow
+        return d
+
+    y0 = [m.h(m.initial_temperature) for m in masses]
+    if not massless_air:
+        y0 = [initial_air_temperature] + y0
+    steps = max(2, int(math.ceil(duration / REPORT_STEP)) + 1)
+    t_eval = np.linspace(0.0, duration, steps)
+    # LSODA (Hindmarsh's stiff/non-stiff switching solver, ODEPACK) through odeint: the
+    # integration runs in Fortran, Python only evaluates rhs; reports at t_eval
+    ys, info = odeint(rhs, np.asarray(y0, dtype=float), t_eval, tfirst=True, rtol=1e-6, atol=1e-3,
+                      hmax=REPORT_STEP, full_output=True, mxstep=100000)
+    if info.get("message") != "Integration successful.":  # pragma: no cover - LSODA reports its own failures
+        raise CalculationError(f"the pull-down simulation failed: {info.get('message')}")
+    ys = np.asarray(ys).T
+    product_h = ys if massless_air else ys[1:]
+    mass_t = np.array([temperatures(product_h[:, k]) for k in range(ys.shape[1])]).T.reshape(n, ys.shape[1])
+    if massless_air:
+        air = np.array([quasi_steady_air(mass_t[:, k]) for k in range(ys.shape[1])])
+    else:
+        air = ys[0]
+    traces = []
+    for i, m in enumerate(masses):
+        if m.final_temperature is None:
+            continue
+        target = m.final_temperature + FINAL_TOLERANCE
+        reached = None
+        series = mass_t[i]
+        for k in range(len(series)):
+            if series[k] <= target:
+                if k == 0:
+                    reached = 0.0
+                else:  # linear interpolation between the reported steps
+                    t0, t1, a, b = t_eval[k - 1], t_eval[k], series[k - 1], series[k]
+                    reached = float(t0 + (t1 - t0) * (a - target) / (a - b))
+                break
+        traces.append(
+            ProductTrace(
+                name=m.name,
+                temperature=tuple(float(x) for x in series),
+                final_temperature=m.final_temperature,
+                time_to_final=reached,
+                asked_time=m.asked_time,
+            )
+        )
+    return PulldownResult(
+        time=tuple(float(t) for t in t_eval),
+        air_temperature=tuple(float(x) for x in air),
+        products=tuple(traces),
+        duration=duration,
+        lowest_air_temperature=float(np.min(air)),
+        basis=basis,
+    )
+
+
+def half_cooling_conductance(mass: float, specific_heat: float, half_cooling_time: float) -> float:
+    """UA [W/K] of a lumped mass whose excess over steady air halves in *half_cooling_time*.
+
+    UA = ln 2 · m·c / t½ (exponential decay of the lumped capacitance method [ref:incropera-dewitt] [mem]).
+
+    Examples
+    --------
+    >>> round(half_cooling_conductance(1000.0, 3600.0, 3 * 3600.0), 2)
+    231.05
+    """
+    return math.log(2.0) * mass * specific_heat / half_cooling_time
+
+
+def _steady_load(model: "ProjectModel", room: "Room") -> Callable[[float], float]:
+    """The room's loads other than the delivery, as a function of the room air [W].
+
+    Transmission follows the room air (U·A of the envelope, found as the change of the
+    transmission lines for 1 K); infiltration, internal and equipment loads (defrost
+    left out) and respiration stay at their 24-hour averages at the set point.
+    """
+    from coldroom.loads import internal_lines, infiltration_lines, product_lines, transmission_lines
+
+    def transmission(temperature: float) -> float:
+        r = room if temperature == room.temperature else room.model_copy(update={"temperature": temperature})
+        return sum(line.average_power for line in transmission_lines(model, r))
+
+    at_set = transmission(room.temperature)
+    envelope_ua = at_set - transmission(room.temperature + 1.0)
+    others = sum(line.average_power for line in infiltration_lines(model, room))
+    others += sum(
+        line.average_power for line in internal_lines(model, room) if not line.item.startswith("defrost")
+    )
+    others += sum(line.average_power for line in product_lines(model, room) if line.item.endswith("respiration"))
+    set_point = room.temperature
+
+    def load(air: float) -> float:
+        return at_set + others + envelope_ua * (set_point - air)
+
+    return load
+
+
+def _reference_specific_heat(properties: Any, temperature: float) -> float:
+    """Specific heat for the product's conductance: the enthalpy slope over the 1 K below *temperature* [J/(kg·K)]."""
+    return properties.enthalpy(temperature) - properties.enthalpy(temperature - 1.0)
+
+
+def room_masses(room: "Room", half_cooling_time: float = DEFAULT_HALF_COOLING_TIME) -> list[ThermalMass]:
+    """The lumped masses of *room* just after a delivery.
+
+    The delivery is the largest of the schedule's deliveries (else the whole daily
+    intake), shared among the products in proportion to their intake; its packaging
+    comes with it; the stored product and, when ``pulldown.panel_skin`` is set, the
+    panels' inner skin start at the set point.
+    """
+    from coldroom.loads import product_properties
+    from coldroom.loads.product import packaging_specific_heat
+
+    share = 1.0
+    schedule = room.schedule
+    if schedule is not None and schedule.deliveries is not None:
+        delivered = sum(d.mass for d in schedule.deliveries)
+        share = max(d.mass for d in schedule.deliveries) / delivered
+    masses: list[ThermalMass] = []
+    for item in room.products:
+        properties, _respiration, label = product_properties(item)
+        label = label.replace("_", " ")
+        if item.daily_intake > 0:
+            assert item.entering_temperature is not None and item.final_temperature is not None
+            m = item.daily_intake * share
+            c = _reference_specific_heat(properties, item.entering_temperature)
+            masses.append(
+                ThermalMass(
+                    label,
+                    m,
+                    half_cooling_conductance(m, c, half_cooling_time),
+                    item.entering_temperature,
+                    enthalpy=properties.enthalpy,
+                    enthalpies=getattr(properties, "enthalpies", None),
+                    final_temperature=item.final_temperature,
+                    asked_time=item.pulldown_time,
+                )
+            )
+            pack = item.packaging
+            if pack is not None and pack.mass > 0:
+                cp = pack.specific_heat
+                if cp is None:
+                    cp = packaging_specific_heat(pack.material if pack.material != "other" else "corrugated_board")
+                mp = pack.mass * share
+                masses.append(
+                    ThermalMass(
+                        f"{label} packaging",
+                        mp,
+                        half_cooling_conductance(mp, cp, half_cooling_time / PACKAGING_SPEED),
+                        item.entering_temperature,
+                        specific_heat=cp,
+                    )
+                )
+        if item.stored_mass > 0:
+            c = _reference_specific_heat(properties, room.temperature)
+            masses.append(
+                ThermalMass(
+                    f"{label} stored",
+                    item.stored_mass,
+                    half_cooling_conductance(item.stored_mass, c, half_cooling_time),
+                    room.temperature,
+                    enthalpy=properties.enthalpy,
+                    enthalpies=getattr(properties, "enthalpies", None),
+                )
+            )
+    if room.pulldown.panel_skin:
+        area = sum(room.surface_area(side) for side in ("north", "east", "south", "west", "ceiling", "floor"))
+        masses.append(
+            ThermalMass(
+                "panel inner skin",
+                area * SKIN_MASS_PER_AREA,
+                area * SKIN_FILM,
+                room.temperature,
+                specific_heat=SKIN_SPECIFIC_HEAT,
+            )
+        )
+    return masses
+
+
+def simulated_time(room: "Room") -> float:
+    """Time to simulate [s]: given, else twice the longest asked pull-down time, 24 h to 7 days."""
+    if room.pulldown.hours is not None:
+        return room.pulldown.hours
+    asked = [p.pulldown_time for p in room.products if p.daily_intake > 0]
+    return min(7 * 86400.0, max(86400.0, 2.0 * max(asked, default=0.0)))
+
+
+def room_pulldown(
+    model: "ProjectModel", room: "Room", capacity: Callable[[float], float], basis: str
+) -> Optional[PulldownResult]:
+    """Simulate the pull-down after a delivery in *room* with a unit of *capacity*.
+
+    Parameters
+    ----------
+    model : ProjectModel
+    room : Room
+    capacity : callable
+        Unit capacity [W] at a room air temperature [°C].
+    basis : str
+        Where the capacity comes from (printed with the result).
+
+    Returns
+    -------
+    PulldownResult or None
+        None when the room takes no product in.
+    """
+    if not any(p.daily_intake > 0 for p in room.products):
+        return None
+    masses = room_masses(room)
+    text = (
+        f"{basis}; room air, product (food enthalpy, freezing included), packaging"
+        + (", panel inner skin" if room.pulldown.panel_skin else "")
+        + f" as lumped masses, half-cooling time {DEFAULT_HALF_COOLING_TIME / 3600:g} h (packaging "
+        f"{PACKAGING_SPEED:g}× faster) [trade]; steady loads at their averages, defrost off; "
+        f"final temperature reached within {FINAL_TOLERANCE:g} K; LSODA (scipy odeint)"
+    )
+    return simulate(
+        AIR_HEAT_CAPACITY_PER_VOLUME * room.inside_volume,
+        masses,
+        capacity,
+        _steady_load(model, room),
+        set_point=room.temperature,
+        initial_air_temperature=room.temperature,
+        duration=simulated_time(room),
+        basis=text,
+    )

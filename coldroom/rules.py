@@ -1,0 +1,308 @@
+"""Design rules that sizing, the physical checks, the cycle and the existing-unit check share.
+
+One owner for each rule of thumb; everything here is plain numbers and
+imports nothing of coldroom (no CoolProp, no pydantic), so ``coldroom validate`` and every layer above can use
+it without an import circle.
+
+* Evaporator TD by room RH, the freezer TD and the condenser TD
+  (:func:`evaporator_td_for`, :func:`design_temperatures`,
+  :func:`room_design_temperatures`) [trade].
+* The cycle defaults (:data:`CYCLE_DEFAULTS`): one table for ``coldroom cycle``,
+  :func:`coldroom.physics.cycle.solve_cycle` and a project's ``refrigeration`` block.
+* The pressure-ratio advisory by application and compressor kind
+  (:data:`PRESSURE_RATIO_LIMITS`, :func:`pressure_ratio_limit`) [trade].
+* The discharge-temperature advisory and limit (:data:`DISCHARGE_ADVISORY`,
+  :data:`DISCHARGE_LIMIT`) [trade].
+* The condenser-air range searched by the existing-unit check
+  (:data:`AMBIENT_SWEEP`).
+
+Temperatures in °C (the trade states TDs against °C room temperatures),
+differences in K.
+
+Examples
+--------
+>>> evaporator_td_for(room_temperature=2.0, relative_humidity=0.90)[0]
+4.5
+>>> evaporator_td_for(room_temperature=2.0, relative_humidity=0.70)[0]
+7.5
+>>> evaporator_td_for(room_temperature=-20.0, relative_humidity=0.80)[0]
+5.5
+>>> pressure_ratio_limit(-30.0), pressure_ratio_limit(-8.0)
+(10.0, 8.0)
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+from typing import TYPE_CHECKING, Optional
+
+
+if TYPE_CHECKING:  # pragma: no cover
+    from coldroom.inputs.projectfile import ProjectModel, Room
+
+# --------------------------------------------------------------------------- design temperatures
+
+TD_SOURCE = "trade practice, evaporator TD vs room RH [trade]"
+
+#: Evaporator TD (room air − saturated evaporating dew temperature) by room
+#: relative humidity, for rooms above :data:`FREEZER_BELOW` [trade, common
+#: practice, no source]: 4–5 K ≈ 90 % RH; 5.5–6.5 K ≈ 80–85 %; 6.5–9 K ≈ 65–80 %; 9–12 K ≈ 50–65 %.
+#: Each row: (lowest RH of the band [-], TD [K], source). The TD is the middle
+#: of the trade band, rounded to 0.5 K; below 50 % RH the top of the last band
+#: is used.
+EVAPORATOR_TD_BY_RH: tuple[tuple[float, float, str], ...] = (
+    (0.875, 4.5, f"4–5 K for about 90 % RH, {TD_SOURCE}"),
+    (0.80, 6.0, f"5.5–6.5 K for 80–85 % RH, {TD_SOURCE}"),
+    (0.65, 7.5, f"6.5–9 K for 65–80 % RH, {TD_SOURCE}"),
+    (0.50, 10.0, f"9–12 K for 50–65 % RH, {TD_SOURCE}"),
+    (0.0, 12.0, f"12 K (top of the 9–12 K band) below 50 % RH, {TD_SOURCE}"),
+)
+
+#: Rooms colder than this are freezers: RH is not controlled, TD 5–6 K [trade]
+#: (the threshold is common practice, no source) [°C].
+FREEZER_BELOW = -5.0
+FREEZER_TD = (5.5, f"5–6 K for freezers, {TD_SOURCE}")
+
+#: Air-cooled condenser TD above the entering air [K]: 10 K, inside the trade
+#: range 8–15 K [trade].
+DEFAULT_CONDENSER_TD = 10.0
+CONDENSER_TD_SOURCE = "air-cooled condenser, trade range 8–15 K [trade]"
+
+
+def evaporator_td_for(room_temperature: float, relative_humidity: float) -> tuple[float, str]:
+    """Evaporator TD for a room, from the trade table.
+
+    Parameters
+    ----------
+    room_temperature : float
+        Room air temperature [°C].
+    relative_humidity : float
+        Target room relative humidity [-].
+
+    Returns
+    -------
+    (float, str)
+        TD [K] and its source text.
+
+    Examples
+    --------
+    >>> evaporator_td_for(0.0, 0.55)
+    (10.0, '9–12 K for 50–65 % RH, trade practice, evaporator TD vs room RH [trade]')
+    """
+    if room_temperature < FREEZER_BELOW:
+        return FREEZER_TD
+    for lowest, td, source in EVAPORATOR_TD_BY_RH:
+        if relative_humidity >= lowest:
+            return td, source
+    return EVAPORATOR_TD_BY_RH[-1][1], EVAPORATOR_TD_BY_RH[-1][2]  # pragma: no cover
+
+
+@dataclass(frozen=True)
+class DesignTemperatures:
+    """Design temperatures of one room's refrigeration system.
+
+    Attributes
+    ----------
+    evaporating_temperature : float
+        Saturated evaporating (dew) temperature [°C].
+    condensing_temperature : float
+        Saturated condensing (dew) temperature [°C].
+    condenser_air_temperature : float
+        Air entering the condenser [°C].
+    evaporator_td, condenser_td : float
+        The TDs used [K].
+    evaporator_td_source, condenser_td_source, condenser_air_source : str
+        Where each came from.
+    """
+
+    evaporating_temperature: float
+    condensing_temperature: float
+    condenser_air_temperature: float
+    evaporator_td: float
+    condenser_td: float
+    evaporator_td_source: str
+    condenser_td_source: str
+    condenser_air_source: str
+
+
+def design_temperatures(
+    room_temperature: float,
+    relative_humidity: float,
+    outdoor_temperature: float,
+    evaporator_td: Optional[float] = None,
+    condenser_td: Optional[float] = None,
+    condenser_air_temperature: Optional[float] = None,
+) -> DesignTemperatures:
+    """Evaporating and condensing dew temperatures for one room.
+
+    Evaporating = room − evaporator TD (:func:`evaporator_td_for` unless
+    given); condensing = condenser air (the outdoor design dry bulb unless
+    given) + condenser TD (:data:`DEFAULT_CONDENSER_TD` unless given).
+
+    Parameters
+    ----------
+    room_temperature : float
+        Room air [°C].
+    relative_humidity : float
+        Target room RH [-].
+    outdoor_temperature : float
+        Outdoor design dry bulb [°C], the condenser air unless given.
+    evaporator_td, condenser_td : float, optional
+        Overrides [K].
+    condenser_air_temperature : float, optional
+        Air entering the condenser [°C].
+
+    Examples
+    --------
+    >>> t = design_temperatures(2.0, 0.90, 32.0)
+    >>> (t.evaporating_temperature, t.condensing_temperature)
+    (-2.5, 42.0)
+    """
+    if evaporator_td is None:
+        td_e, td_e_source = evaporator_td_for(room_temperature, relative_humidity)
+    else:
+        td_e, td_e_source = evaporator_td, "given in the project file"
+    if condenser_td is None:
+        td_c, td_c_source = DEFAULT_CONDENSER_TD, CONDENSER_TD_SOURCE
+    else:
+        td_c, td_c_source = condenser_td, "given in the project file"
+    if condenser_air_temperature is None:
+        air, air_source = outdoor_temperature, "outdoor design dry bulb"
+    else:
+        air, air_source = condenser_air_temperature, "given in the project file"
+    return DesignTemperatures(
+        evaporating_temperature=room_temperature - td_e,
+        condensing_temperature=air + td_c,
+        condenser_air_temperature=air,
+        evaporator_td=td_e,
+        condenser_td=td_c,
+        evaporator_td_source=td_e_source,
+        condenser_td_source=td_c_source,
+        condenser_air_source=air_source,
+    )
+
+
+def room_design_temperatures(model: "ProjectModel", room: "Room") -> DesignTemperatures:
+    """:func:`design_temperatures` for one room of a project, with its refrigeration overrides
+    (the room's own block, or its system's: ``model.refrigeration_for(room)``)."""
+    r = model.refrigeration_for(room)
+    return design_temperatures(
+        room.temperature,
+        room.rh,
+        model.design.outdoor_temperature,
+        evaporator_td=r.evaporator_td,
+        condenser_td=r.condenser_td,
+        condenser_air_temperature=r.condenser_air_temperature,
+    )
+
+
+# --------------------------------------------------------------------------- cycle defaults
+
+
+@dataclass(frozen=True)
+class CycleDefaults:
+    """Defaults of a single-stage cycle, shared by ``coldroom cycle`` and a project's ``refrigeration`` block.
+
+    Attributes
+    ----------
+    superheat : float
+        Useful superheat at the evaporator outlet [K]: 4–7 K with a
+        thermostatic expansion valve [trade].
+    suction_line_superheat : float
+        Further (useless) superheat picked up in the suction line [K] [trade].
+    subcooling : float
+        Liquid subcooling at the condenser outlet [K] [trade].
+    isentropic_efficiency : float
+        Overall isentropic efficiency of a small reciprocating or scroll
+        compressor [1]; 0.6–0.75 typical [trade].
+    clearance : float
+        Clearance volume ratio C [1]; 0.03–0.06 for reciprocating compressors
+        [mem, textbooks, e.g. Stoecker & Jones 2nd ed. ch. 11] [ref:stoecker-jones].
+    """
+
+    superheat: float = 5.0
+    suction_line_superheat: float = 5.0
+    subcooling: float = 2.0
+    isentropic_efficiency: float = 0.65
+    clearance: float = 0.04
+
+
+#: The one table of cycle defaults.
+CYCLE_DEFAULTS = CycleDefaults()
+
+# --------------------------------------------------------------------------- pressure ratio
+
+#: Evaporating dew temperature below which a compressor works in the
+#: low-temperature (low back pressure) application [°C]; manufacturers' LBP
+#: envelopes start at about −20 °C suction [trade].
+LOW_TEMPERATURE_BELOW = -20.0
+
+#: Pressure ratio above which single-stage compression is questioned, by
+#: application ("medium" or "low" temperature) and compressor kind [1].
+#: Medium temperature: a single-stage unit normally runs at 3–6; past 8 the
+#: unit is working at low-temperature suction [trade]. Low temperature:
+#: single-stage reciprocating compressors are applied to about 10, scrolls
+#: with liquid or vapour injection to about 12; past that, two stages or a
+#: compound system [trade]. Each entry: (limit, source).
+PRESSURE_RATIO_LIMITS: dict[tuple[str, str], tuple[float, str]] = {
+    ("medium", "reciprocating"): (8.0, "medium-temperature single stage to ≈8 [trade]"),
+    ("medium", "scroll"): (8.0, "medium-temperature single stage to ≈8 [trade]"),
+    ("low", "reciprocating"): (10.0, "low-temperature reciprocating single stage to ≈10 [trade]"),
+    ("low", "scroll"): (12.0, "low-temperature scroll with injection to ≈12 [trade]"),
+}
+
+
+def application_of(evaporating_temperature: float) -> str:
+    """``"low"`` below :data:`LOW_TEMPERATURE_BELOW` evaporating [°C], else ``"medium"``."""
+    return "low" if evaporating_temperature < LOW_TEMPERATURE_BELOW else "medium"
+
+
+def pressure_ratio_limit(evaporating_temperature: float, kind: str = "reciprocating") -> float:
+    """The pressure ratio [1] above which the advisory is given, for this suction and compressor kind.
+
+    Parameters
+    ----------
+    evaporating_temperature : float
+        Evaporating (suction) dew temperature [°C].
+    kind : str
+        ``"reciprocating"`` (the default: the clearance model is a
+        reciprocating compressor's) or ``"scroll"``.
+    """
+    return PRESSURE_RATIO_LIMITS[(application_of(evaporating_temperature), kind)][0]
+
+
+def pressure_ratio_advisory(pressure_ratio: float, evaporating_temperature: float, kind: str = "reciprocating") -> Optional[str]:
+    """The advisory text when *pressure_ratio* [1] is past the limit for the application, else None.
+
+    Examples
+    --------
+    >>> pressure_ratio_advisory(8.7, -31.0) is None
+    True
+    >>> pressure_ratio_advisory(8.7, -10.0)[:20]
+    'pressure ratio 8.7 i'
+    """
+    application = application_of(evaporating_temperature)
+    limit, source = PRESSURE_RATIO_LIMITS[(application, kind)]
+    if pressure_ratio <= limit:
+        return None
+    if application == "medium":
+        advice = "a medium-temperature compressor is working at low-temperature suction"
+    else:
+        advice = "past what a single stage does sensibly: two stages or a compound system"
+    return f"pressure ratio {pressure_ratio:.1f} is above {limit:g} for a {application}-temperature {kind} compressor ({source}): {advice}"
+
+
+# --------------------------------------------------------------------------- discharge temperature
+
+#: Discharge temperature above which a warning is given [°C]: 110–120 °C at the
+#: discharge line is the usual advice for oil stability [trade].
+DISCHARGE_ADVISORY = 110.0
+#: Discharge temperature commonly applied as the hard limit [°C] [trade].
+DISCHARGE_LIMIT = 135.0
+
+# --------------------------------------------------------------------------- ambient sweep
+
+#: Condenser-air range [°C] over which the existing-unit check searches the
+#: highest ambient at which a unit holds (common practice, no source: covers
+#: temperate to hot-climate condenser air).
+AMBIENT_SWEEP = (10.0, 55.0)
