@@ -427,13 +427,12 @@ def system_year(
 
 
 def _charge(settings: Any, design: Any) -> tuple[Optional[float], str]:
-    """The system's charge [kg] and its basis: given (``charge: {total: …}``) wins; else the sizing's estimate."""
-    given = settings.charge.total
-    if given is not None:
-        return given, "given in the project file"
+    """The system's charge [kg] and its basis: the sizing's (a stated ``charge:`` wins there), with its origin."""
     works = design.pipework
     if works is None:  # pragma: no cover - design_system always estimates
         return None, "unknown"
+    if works.charge.stated:
+        return works.charge.total, "given in the project file"
     if works.piping is None:
         return works.charge.total, "estimated: evaporator and condenser (no piping: block, lines left out)"
     return works.charge.total, "estimated: lines, evaporator and condenser"

@@ -48,6 +48,7 @@ class Pipework:
         Pressure at the expansion-valve inlet [Pa] (:func:`valve_inlet_pressure`);
         ``None`` without a liquid line. The sheet's p–h chart draws the state there.
     charge : ChargeEstimate
+        The charge that counts: stated in the project file when given, else the estimate.
     limits : tuple of ChargeLimit
     room : str
         The room whose volume the limits use (the smallest member).
@@ -248,6 +249,8 @@ def pipework(
         receiver_volume=charge_settings.receiver_volume,
         receiver_level=charge_settings.receiver_level,
     )
+    # a stated charge (total or parts) wins over the estimate: the limits judge it, the sheet shows it
+    estimate = charge_rules.stated_charge(estimate, charge_settings.total, charge_settings.parts)
     given = charge_settings.model_fields_set
     defaults = tuple(
         name for name, key in (("occupancy category", "occupancy"), ("location class", "location_class"))
@@ -291,7 +294,8 @@ def pipework(
         if limit.verdict != charge_rules.WITHIN:
             warnings.append(
                 Note.fill(
-                    f"charge {{m}} against {limit.rule}: {limit.verdict} (limit {{lim}})",
+                    f"{'stated ' if estimate.stated else ''}charge {{m}} against {limit.rule}: {limit.verdict} "
+                    "(limit {lim})",
                     m=(estimate.total, "mass"),
                     lim=(limit.limit or 0.0, "mass"),
                 )

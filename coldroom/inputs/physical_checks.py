@@ -18,6 +18,8 @@ Errors (exit 65), each naming the key, the value and why:
   + condenser TD) at or above its critical temperature (R-744 excepted: it is
   sized transcritical, :func:`coldroom.physics.cycle.r744_transcritical`) — limits in
   :data:`coldroom.data.refrigerants.LIMITS`;
+- ``charge.location_class: III`` on a split system (``self_contained: false``):
+  its evaporator is in the cold room;
 - a door taller than the room, wider than or larger than its wall, doors
   together larger than their wall, a door standing open more than 24 h;
 - defrosts taking more than 24 h a day;
@@ -135,6 +137,16 @@ def check_physics(model: "ProjectModel", error: ErrorFactory) -> None:
         except ColdroomError as exc:
             raise error(str(exc), _setting_path(model, i, "refrigerant")) from None
         _check_refrigerant_range(model, room, info.name, at, error)
+        charge = refrigeration.charge
+        if charge.location_class == "III" and not charge.self_contained:
+            # EN 378-1:2016 5.3 / ISO 5149-1:2014 5.3 [mem] [ref:en-378]: class III puts every refrigerant-
+            # containing part in a machinery room or the open air; a split system's evaporator is in the room
+            raise error(
+                "location class III means every refrigerant-containing part is in a machinery room or the open "
+                "air, but with self_contained: false the evaporator is in the cold room (EN 378-1 location "
+                "classes); use I or II",
+                _setting_path(model, i, "charge") + ("location_class",),
+            )
         _check_existing_unit(room, at, error)
         _check_doors(room, at, error)
         _check_defrost(room, at, error)

@@ -664,8 +664,25 @@ class ChargeSettings(Strict):
 
     total: Optional[Q("mass", gt=0.0, le=1e4)] = Field(  # type: ignore[valid-type]
         default=None,
-        description="The charge as known (nameplate, weighed in) [kg]; wins over the estimate (TEWI in compare).",
+        description="The charge as known (nameplate, weighed in) [kg]; wins over the estimate everywhere "
+        "(charge limits, TEWI).",
     )
+    parts: Optional[dict[Name, Q("mass", gt=0.0, le=1e4)]] = Field(  # type: ignore[valid-type]
+        default=None,
+        description="The charge as known, by part (e.g. condensing unit: 0.8 kg, lines: 0.3 kg) [kg]; their sum "
+        "wins over the estimate; with total given as well they must agree within 1 %.",
+    )
+
+    @model_validator(mode="after")
+    def _parts_agree(self) -> "ChargeSettings":
+        if self.parts and self.total is not None:
+            summed = sum(self.parts.values())
+            if abs(summed - self.total) > 0.01 * self.total:
+                raise ValueError(
+                    f"the parts add up to {summed:.3g} kg but total is {self.total:.3g} kg; give one, or make "
+                    "them agree within 1 %"
+                )
+        return self
 
     @model_validator(mode="before")
     @classmethod
@@ -682,7 +699,9 @@ class ChargeSettings(Strict):
         default="a", description="EN 378-1 access category of the cold room (default a, the most restrictive)."
     )
     location_class: Literal["I", "II", "III", "IV"] = Field(
-        default="I", description="EN 378-1 location class of the system (default I, the most restrictive)."
+        default="I",
+        description="EN 378-1 location class of the system (default I, the most restrictive); III and IV only "
+        "for a self-contained unit outside the room, since a split system's evaporator is in the cold room.",
     )
     self_contained: bool = Field(
         default=False, description="A self-contained (plug-in / monoblock) appliance: IEC 60335-2-89 applies."

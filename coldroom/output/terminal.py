@@ -166,7 +166,9 @@ def systems_report(systems: Sequence["SystemResult"], system: str) -> str:
                 f" (limit {display(limit.limit, 'mass', system)})" if limit.limit is not None else "")
                 for limit in works.limits)
             lines.append(
-                f"{s.name}: {tubes}charge about {display(works.charge.total, 'mass', system)}"
+                f"{s.name}: {tubes}"
+                + (f"charge {display(works.charge.total, 'mass', system)} (stated)" if works.charge.stated
+                   else f"charge about {display(works.charge.total, 'mass', system)} (estimate)")
                 + (f"; charge limits: {verdicts}" if verdicts else "")
             )
     return "\n".join(lines)

@@ -52,6 +52,10 @@ from coldroom.results import Note
 
 VERIFY = "from memory; verify against the current edition"
 
+#: Where a system's charge comes from (JSON ``charge.basis``, contract values).
+STATED = "stated"
+ESTIMATE = "estimate"
+
 #: Verdicts (JSON contract values).
 WITHIN = "within"
 OVER = "over — measures needed"
@@ -116,18 +120,72 @@ class ChargePart:
 
 @dataclass(frozen=True)
 class ChargeEstimate:
-    """The estimated charge of one system."""
+    """The charge of one system: stated in the project file, or estimated.
+
+    Attributes
+    ----------
+    parts : tuple of ChargePart
+        What the total is made of (the stated parts, the stated total as one part,
+        or the estimate's parts).
+    basis : str
+        :data:`STATED` (``charge:`` given, it wins everywhere) or :data:`ESTIMATE`.
+    estimate_total : float or None
+        The estimate [kg] when a stated charge wins over it (shown beside it); ``None`` otherwise.
+    """
 
     parts: tuple[ChargePart, ...]
+    basis: str = ESTIMATE
+    estimate_total: float | None = None
 
     @property
     def total(self) -> float:
         """Total charge [kg]."""
         return math.fsum(p.mass for p in self.parts)
 
+    @property
+    def stated(self) -> bool:
+        """The charge was given in the project file."""
+        return self.basis == STATED
+
     def to_json(self) -> dict:
-        """The ``charge`` object (contract keys ``total_kg``, ``parts``)."""
-        return {"total_kg": self.total, "parts": [p.to_json() for p in self.parts]}
+        """The ``charge`` object (contract keys ``total_kg``, ``basis``, ``parts``; ``estimate_kg`` beside a stated one)."""
+        out = {"total_kg": self.total, "basis": self.basis, "parts": [p.to_json() for p in self.parts]}
+        if self.estimate_total is not None:
+            out["estimate_kg"] = self.estimate_total
+        return out
+
+
+def stated_charge(
+    estimate: ChargeEstimate, total: float | None, parts: dict[str, float] | None
+) -> ChargeEstimate:
+    """The charge that wins: the stated total or parts, else the estimate.
+
+    Parameters
+    ----------
+    estimate : ChargeEstimate
+        The estimate from the cycle and lines.
+    total : float or None
+        ``charge: {total: …}`` [kg].
+    parts : dict of str to float, or None
+        ``charge: {parts: {name: mass}}`` [kg]; their sum is the charge when no total is given
+        (the project file checks that a total given with them agrees).
+
+    Examples
+    --------
+    >>> est = ChargeEstimate((ChargePart("evaporator", 0.2, "rule of thumb"),))
+    >>> c = stated_charge(est, 1.1, None)
+    >>> c.basis, c.total, c.estimate_total
+    ('stated', 1.1, 0.2)
+    >>> stated_charge(est, None, None) is est
+    True
+    """
+    if parts:
+        items = tuple(ChargePart(name, mass, "stated in the project file") for name, mass in parts.items())
+    elif total is not None:
+        items = (ChargePart("total", total, "stated in the project file"),)
+    else:
+        return estimate
+    return ChargeEstimate(items, STATED, estimate.total)
 
 
 @dataclass(frozen=True)
@@ -138,6 +196,8 @@ class ChargeLimit:
     ----------
     rule : str
         The rule's name and source.
+    charge : float
+        The charge judged [kg] (the stated one when given).
     limit : float or None
         The limit [kg]; ``None`` when the rule sets none here.
     verdict : str
@@ -147,13 +207,17 @@ class ChargeLimit:
     """
 
     rule: str
+    charge: float
     limit: float | None
     verdict: str
     working: str
 
     def to_json(self) -> dict:
-        """A ``charge_limits`` item (contract keys ``rule``, ``limit_kg``, ``verdict``)."""
-        return {"rule": self.rule, "limit_kg": self.limit, "verdict": self.verdict, "working": self.working}
+        """A ``charge_limits`` item (contract keys ``rule``, ``charge_kg``, ``limit_kg``, ``verdict``)."""
+        return {
+            "rule": self.rule, "charge_kg": self.charge, "limit_kg": self.limit, "verdict": self.verdict,
+            "working": self.working,
+        }
 
 
 def line_part(name: str, inside_area: float, length: float, density: float, what: str) -> ChargePart:
@@ -319,6 +383,7 @@ def charge_limits(
             results.append(
                 ChargeLimit(
                     f"EN 378-1 Annex C / ISO 5149-1 toxicity, {where}",
+                    charge,
                     limit,
                     verdict,
                     Note.fill(
@@ -331,6 +396,7 @@ def charge_limits(
             results.append(
                 ChargeLimit(
                     f"EN 378-1 Annex C / ISO 5149-1 toxicity, {where}",
+                    charge,
                     None,
                     WITHIN,
                     "all refrigerant-containing parts outside the occupied space: the room volume sets no "
@@ -357,6 +423,7 @@ def charge_limits(
             results.append(
                 ChargeLimit(
                     f"EN 378-1 Annex C / ISO 5149-1 flammability, {where}",
+                    charge,
                     limit,
                     _verdict(charge, limit, cap),
                     working,
@@ -366,6 +433,7 @@ def charge_limits(
             results.append(
                 ChargeLimit(
                     f"EN 378-1 Annex C / ISO 5149-1 flammability, {where}",
+                    charge,
                     cap,
                     _verdict(charge, cap, None),
                     Note("outside the occupied space: the cap applies; ", *masses.phrase, f" ({VERIFY})"),
@@ -380,6 +448,7 @@ def charge_limits(
             results.append(
                 ChargeLimit(
                     "IEC 60335-2-89:2019 self-contained appliance, per circuit",
+                    charge,
                     limit,
                     WITHIN if charge <= limit else NOT_PERMITTED,
                     Note(*working.phrase, f" ({VERIFY})"),

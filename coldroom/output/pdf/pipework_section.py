@@ -101,7 +101,12 @@ def pipework_flowables(ctx: Any, pipework: Any, system_name: str) -> list:
     rows = [["Charge part", "Mass", "Basis"]]
     for part in charge.parts:
         rows.append([part.part, q(part.mass, "mass", system), clean(format_terms(part.basis, system))])
-    rows.append(["total", q(charge.total, "mass", system), "estimate; weigh the actual charge in"])
+    if charge.stated:
+        rows.append(["total", q(charge.total, "mass", system),
+                     f"stated in the project file (the estimate was {q(charge.estimate_total or 0.0, 'mass', system)}); "
+                     "the limits judge the stated charge"])
+    else:
+        rows.append(["total", q(charge.total, "mass", system), "estimate; weigh the actual charge in"])
     flow.append(Spacer(1, 4))
     flow.append(KeepTogether([
         heading(f"Refrigerant charge - {system_name}"),
@@ -109,9 +114,10 @@ def pipework_flowables(ctx: Any, pipework: Any, system_name: str) -> list:
              style=CELL_SMALL),
     ]))
 
-    limit_rows = [["Charge-limit rule", "Limit", "Verdict"]]
+    limit_rows = [["Charge-limit rule", "Charge judged", "Limit", "Verdict"]]
     for limit in pipework.limits:
-        limit_rows.append([limit.rule, "–" if limit.limit is None else q(limit.limit, "mass", system), limit.verdict])
+        limit_rows.append([limit.rule, q(limit.charge, "mass", system),
+                           "–" if limit.limit is None else q(limit.limit, "mass", system), limit.verdict])
     defaults = ""
     if pipework.defaults_used:
         defaults = (
@@ -126,7 +132,8 @@ def pipework_flowables(ctx: Any, pipework: Any, system_name: str) -> list:
     )
     block = [heading(f"Charge limits - {system_name}")]
     if len(limit_rows) > 1:
-        block.append(grid(limit_rows, [0.62 * width, 0.14 * width, 0.24 * width], align_right=(1,), style=CELL_SMALL))
+        block.append(grid(limit_rows, [0.5 * width, 0.13 * width, 0.13 * width, 0.24 * width], align_right=(1, 2),
+                          style=CELL_SMALL))
     else:
         block.append(note("No room-volume charge limit applies to this refrigerant and location class.", TINY))
     block.append(note(basis, TINY))
