@@ -342,17 +342,27 @@ def room_design_day(model: "ProjectModel", room: "Room", sources: LineSources) -
         if schedule is not None and schedule.doors is not None
         else even()
     )
+    # the lines depend on the hour only through its outdoor temperature: computed once per
+    # distinct temperature (once for a flat day, daily range 0, the default), summed per hour
+    # in the same order as before, so the figures are the same to the last digit
     same_day = design.daily_range == 0.0
+    outdoor_lines: dict[float, tuple[list[float], list[float]]] = {}
     for h in range(HOURS):
-        if same_day:
-            hour_model = model
-        else:
-            hour_model = _hour_model(model, temps[h], _outdoor_rh(temps[h], w_out, pressure))
-        for line in transmission_lines(hour_model, room):
-            by["transmission"][h] += line.average_power
-        for line in infiltration_lines(hour_model, room):
+        try:
+            transmission_powers, infiltration_powers = outdoor_lines[temps[h]]
+        except KeyError:
+            if same_day:
+                hour_model = model
+            else:
+                hour_model = _hour_model(model, temps[h], _outdoor_rh(temps[h], w_out, pressure))
+            transmission_powers = [line.average_power for line in transmission_lines(hour_model, room)]
+            infiltration_powers = [line.average_power for line in infiltration_lines(hour_model, room)]
+            outdoor_lines[temps[h]] = transmission_powers, infiltration_powers
+        for power in transmission_powers:
+            by["transmission"][h] += power
+        for power in infiltration_powers:
             factor = HOURS * door_shares[h] if room.infiltration.method == "door" else 1.0
-            by["infiltration"][h] += line.average_power * factor
+            by["infiltration"][h] += power * factor
     if room.infiltration.method == "door":
         for door in room.doors:
             open_fraction = (door.passages_per_day * door.passage_time + door.open_time) / DAY

@@ -116,3 +116,49 @@ def test_a_zero_length_defrost_puts_no_heat_in() -> None:
     model = _model(data)
     loads = room_loads(model, model.rooms[0])
     assert sum(loads.design_day.hourly_load) / 24 == pytest.approx(loads.daily_energy / 86400.0, rel=0.005)
+
+
+@pytest.mark.parametrize("daily_range", [0.0, 8.0])
+def test_outdoor_lines_are_computed_once_per_outdoor_temperature(daily_range) -> None:
+    """The outdoor-driven lines depend on the hour only through its outdoor air: a flat day (the
+    default) computes them once, a day with a range once per distinct hourly temperature; each hour
+    still gets exactly the lines computed at its own outdoor air (an hour-by-hour recomputation)."""
+    from coldroom import loads
+    from coldroom.loads.hourly import HOURS, LineSources, _hour_model, _outdoor_rh, outdoor_temperatures
+    from coldroom.loads.hourly import room_design_day as place
+    from coldroom.physics import psychrometrics
+
+    data = copy.deepcopy(FREEZER)
+    data["design"]["daily_range"] = daily_range
+    model = _model(data)
+    room = model.rooms[0]
+    calls = {"transmission": 0, "infiltration": 0}
+
+    def counted(name, function):
+        def wrapper(*args):
+            calls[name] += 1
+            return function(*args)
+
+        return wrapper
+
+    sources = LineSources(
+        product_loads=loads._product_loads,
+        transmission_lines=counted("transmission", loads.transmission_lines),
+        infiltration_lines=counted("infiltration", loads.infiltration_lines),
+        internal_lines=loads.internal_lines,
+        outdoor_relative_humidity=loads.outdoor_relative_humidity,
+        site_pressure=loads.site_pressure,
+    )
+    day = place(model, room, sources)
+    temps = outdoor_temperatures(model.design.outdoor_temperature, daily_range)
+    assert calls == {"transmission": len(set(temps)), "infiltration": len(set(temps))}
+    assert (len(set(temps)) == 1) == (daily_range == 0.0)
+    design = model.design
+    pressure = loads.site_pressure(design)
+    w_out = psychrometrics.humidity_ratio(design.outdoor_temperature, loads.outdoor_relative_humidity(design), pressure)
+    for h in range(HOURS):
+        hour_model = model if daily_range == 0.0 else _hour_model(model, temps[h], _outdoor_rh(temps[h], w_out, pressure))
+        expected = 0.0
+        for line in loads.transmission_lines(hour_model, room):
+            expected += line.average_power
+        assert day.components["transmission"][h] == expected
