@@ -64,9 +64,10 @@ from coldroom.rules import (
     DISCHARGE_LIMIT,
     pressure_ratio_advisory,
 )
+from coldroom.constants import ZERO_CELSIUS_K
 from coldroom.errors import CalculationError
 from coldroom.results import Note, Term
-from coldroom.physics.refrigerant import Fluid, StatePoint, coolprop_version, get_fluid, KELVIN
+from coldroom.physics.refrigerant import Fluid, StatePoint, coolprop_version, get_fluid
 
 #: Defaults of the cycle (superheat, suction-line superheat, subcooling,
 #: isentropic efficiency, clearance): :data:`coldroom.rules.CYCLE_DEFAULTS`,
@@ -620,7 +621,7 @@ def solve_cycle(
     condenser_duty = mass_flow * (state2.h - state3.h)
     suction_gain = mass_flow * (state1.h - evap_out.h)
     cop = capacity / power
-    te_k, tr_k = te + KELVIN, t_reject + KELVIN
+    te_k, tr_k = te + ZERO_CELSIUS_K, t_reject + ZERO_CELSIUS_K
     carnot = te_k / (tr_k - te_k)  # Carnot refrigerator COP, any thermodynamics text
 
     warnings = _warnings(info, state2.t, pressure_ratio, p_suction, eta_v, evaporating_temperature)

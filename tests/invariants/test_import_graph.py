@@ -211,3 +211,21 @@ def test_the_orchestrator_is_imported_only_from_above() -> None:
     """Only the CLI, the option comparison and the equipment selection (which work on whole sizings) import sizing."""
     importers = sorted(m for m, deps in import_graph().items() if "coldroom.design.sizing" in deps)
     assert set(importers) <= {"coldroom.cli", "coldroom.design.annual", "coldroom.design.selection"}, importers
+
+
+def _imports_coolprop(path: Path) -> bool:
+    for node in ast.walk(ast.parse(path.read_text(encoding="utf-8"), str(path))):
+        if isinstance(node, ast.Import) and any(a.name.split(".")[0] == "CoolProp" for a in node.names):
+            return True
+        if isinstance(node, ast.ImportFrom) and (node.module or "").split(".")[0] == "CoolProp":
+            return True
+    return False
+
+
+def test_only_the_refrigerant_package_imports_coolprop() -> None:
+    """CoolProp is behind one door: ``coldroom.physics.refrigerant`` (its range guards and
+    the blend tables are there); everything else asks it for states."""
+    importers = sorted(name for name, path in _modules().items() if _imports_coolprop(path))
+    assert importers, "the walker found no CoolProp import at all"
+    outside = [name for name in importers if not name.startswith("coldroom.physics.refrigerant")]
+    assert not outside, f"only coldroom.physics.refrigerant may import CoolProp: {outside}"
