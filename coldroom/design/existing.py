@@ -44,7 +44,8 @@ _MASS_FLOW_FACTORS = {"SI": 1.0 / 3600.0, "IP": _POUND / 3600.0}  # kg/s per kg/
 
 
 def build_compressor(unit: "ExistingUnit", refrigeration: "Refrigeration") -> Compressor:
-    """The compressor model of a project file's ``existing_unit``.
+    """The compressor model of a project file's ``existing_unit`` (a rating table: the whole unit, read
+    through a fixed condenser TD, see :mod:`coldroom.equipment.rating_table`).
 
     Polynomial units: ``SI`` = °C, W, W, kg/h; ``IP`` = °F, Btu/h, W, lb/h
     (AHRI 540 gives power in W in both [mem]).
@@ -67,6 +68,23 @@ def build_compressor(unit: "ExistingUnit", refrigeration: "Refrigeration") -> Co
             clearance=refrigeration.clearance,
             isentropic_efficiency=refrigeration.isentropic_efficiency,
             operating=operating,
+        )
+    if unit.rating_table is not None:
+        from coldroom.equipment.rating_table import RatingTableUnit
+        from coldroom.rules import DEFAULT_CONDENSER_TD
+
+        t = unit.rating_table
+        return RatingTableUnit(
+            refrigerant=name,
+            evaporating_temperatures=tuple(t.evaporating_temperatures),
+            ambient_temperatures=tuple(t.ambient_temperatures),
+            capacity=tuple(tuple(row) for row in t.capacity),
+            power=tuple(tuple(row) for row in t.power),
+            condenser_td=refrigeration.condenser_td if refrigeration.condenser_td is not None else DEFAULT_CONDENSER_TD,
+            operating=operating,
+            rating_superheat=t.superheat,
+            return_gas_temperature=t.return_gas_temperature,
+            rating_subcooling=t.subcooling,
         )
     p = unit.polynomial
     assert p is not None

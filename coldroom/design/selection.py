@@ -527,6 +527,19 @@ def existing_unit_block(entry: "CondensingUnitEntry", coolers: CoolerChoice) -> 
         if r.swept_volume is not None:
             rated["swept_volume"] = _quantity(r.swept_volume * 3600.0, "m³/h")
         block["rated_point"] = rated
+    elif entry.rating_table is not None:
+        t = entry.rating_table
+        table: dict[str, Any] = {}
+        if t.return_gas_temperature is not None:
+            table["return_gas_temperature"] = _quantity(t.return_gas_temperature, "°C")
+        else:
+            table["superheat"] = _quantity(t.superheat or 0.0, "K")
+        table["subcooling"] = _quantity(t.subcooling, "K")
+        table["evaporating_temperatures"] = [_quantity(x, "°C") for x in t.evaporating_temperatures]
+        table["ambient_temperatures"] = [_quantity(x, "°C") for x in t.ambient_temperatures]
+        table["capacity"] = [[_quantity(x, "W") for x in row] for row in t.capacity]
+        table["power"] = [[_quantity(x, "W") for x in row] for row in t.power]
+        block["rating_table"] = table
     else:
         p = entry.polynomial
         assert p is not None

@@ -282,6 +282,8 @@ def _unit_suction_floor(room: "Room") -> Optional[float]:
         return None
     if unit.polynomial is not None:
         return unit.polynomial.suction_min
+    if unit.rating_table is not None:
+        return unit.rating_table.evaporating_temperatures[0]
     assert unit.rated_point is not None
     return unit.rated_point.evaporating_temperature
 

@@ -30,12 +30,20 @@ YAML layout::
         fin_spacing: 6 mm
         price: 1100
 
+A condensing unit may instead carry the whole unit's ``rating_table`` (capacity
+and power over SST × ambient, no ``condenser``) and its electrical data
+(``supply``, ``running_current``, ``locked_rotor_current``, ``power_factor``; coils
+too). The items a quote prices (``panels``, ``doors``, ``expansion_valves``,
+``accessories``, ``tubes``, ``insulation``, ``refrigerants``, ``labour``) are
+listed in :mod:`coldroom.inputs.catalogue_items`.
+
 Table layout (CSV/XLSX, first row = column names): a ``kind`` column
-(``condensing_unit`` or ``unit_cooler``), a ``currency`` column (the same in
+(``condensing_unit``, ``unit_cooler`` or an item kind), a ``currency`` column (the same in
 every row), and one column per key, nested keys dotted
 (``rated_point.capacity``, ``polynomial.suction_min``, ``condenser.heat_rejection``).
 Polynomial coefficients go in one cell, ten numbers separated by blanks or
-semicolons. An empty cell is a key not given.
+semicolons; a rating table's lists likewise (``;`` when values carry units),
+its ``capacity`` and ``power`` rows separated by ``|``. An empty cell is a key not given.
 
 Errors are :class:`coldroom.errors.ProjectFileError` located at
 ``file:line:col`` (YAML) or ``file:row:column`` (CSV: column number; XLSX:
@@ -54,12 +62,25 @@ from typing import Any, Literal, Optional, Sequence
 from pydantic import Field, ValidationError, model_validator
 
 from coldroom.errors import ProjectFileError
+from coldroom.inputs.catalogue_items import (
+    ITEM_KINDS,
+    AccessoryEntry,
+    DoorEntry,
+    Electrical,
+    ExpansionValveEntry,
+    InsulationEntry,
+    LabourEntry,
+    PanelEntry,
+    RefrigerantEntry,
+    TubeEntry,
+)
 from coldroom.inputs.projectfile import (
     Q,
     CompressorPolynomial,
     CondenserRating,
     ExistingUnit,
     RatedPoint,
+    RatingTable,
     Strict,
     UnitCoolerRating,
     _message,
@@ -69,9 +90,10 @@ from coldroom.inputs.projectfile import (
 #: Keys only a unit cooler has / only a condensing unit has (to name the wrong kind).
 COOLER_KEYS = ("capacity", "air_on", "evaporating_temperature", "air_flow", "throw", "defrost",
                "defrost_heater_power", "fin_spacing")
-UNIT_KEYS = ("rated_point", "polynomial", "condenser")
+UNIT_KEYS = ("rated_point", "polynomial", "rating_table", "condenser")
 ENVELOPE_KEYS = ("suction_min", "suction_max", "discharge_min", "discharge_max")
-KINDS = {"condensing_unit": "condensing_units", "unit_cooler": "unit_coolers"}
+KINDS = {"condensing_unit": "condensing_units", "unit_cooler": "unit_coolers",
+         **{kind: group for kind, (group, _model, _key) in ITEM_KINDS.items()}}
 
 
 def _wrong_kind(data: Any, foreign: Sequence[str], other: str) -> None:
@@ -84,14 +106,16 @@ def _wrong_kind(data: Any, foreign: Sequence[str], other: str) -> None:
             )
 
 
-class CondensingUnitEntry(Strict):
-    """A condensing unit of the catalogue: compressor rating as in an ``existing_unit`` block, price."""
+class CondensingUnitEntry(Electrical):
+    """A condensing unit of the catalogue: compressor rating as in an ``existing_unit`` block (or the
+    whole unit's ``rating_table``), price, optional electrical data."""
 
     model: str = Field(min_length=1, max_length=100)
     refrigerant: str
     price: float = Field(ge=0.0, le=1e8)
     rated_point: Optional[RatedPoint] = None
     polynomial: Optional[CompressorPolynomial] = None
+    rating_table: Optional[RatingTable] = None
     condenser: Optional[CondenserRating] = None
     fan_power: Optional[Q("power", ge=0.0, le=1e5)] = None  # type: ignore[valid-type]
 
@@ -125,6 +149,7 @@ class CondensingUnitEntry(Strict):
                 refrigerant=self.refrigerant,
                 rated_point=self.rated_point,
                 polynomial=self.polynomial,
+                rating_table=self.rating_table,
                 unit_cooler=unit_cooler,
                 condenser=self.condenser,
             )
@@ -132,7 +157,7 @@ class CondensingUnitEntry(Strict):
             raise ValueError(_message(exc.errors(include_url=False)[0])) from None
 
 
-class UnitCoolerEntry(Strict):
+class UnitCoolerEntry(Electrical):
     """A unit cooler: capacity at an EN 328 style rating condition, air, fans, defrost, fins, price.
 
     DT1 = air on − evaporating (dew) temperature at rating; the capacity at
@@ -190,6 +215,14 @@ class Catalogue(Strict):
     currency: str = Field(min_length=1, max_length=10)
     condensing_units: list[CondensingUnitEntry] = Field(default_factory=list, max_length=5000)
     unit_coolers: list[UnitCoolerEntry] = Field(default_factory=list, max_length=5000)
+    panels: list[PanelEntry] = Field(default_factory=list, max_length=5000)
+    doors: list[DoorEntry] = Field(default_factory=list, max_length=5000)
+    expansion_valves: list[ExpansionValveEntry] = Field(default_factory=list, max_length=5000)
+    accessories: list[AccessoryEntry] = Field(default_factory=list, max_length=5000)
+    tubes: list[TubeEntry] = Field(default_factory=list, max_length=5000)
+    insulation: list[InsulationEntry] = Field(default_factory=list, max_length=5000)
+    refrigerants: list[RefrigerantEntry] = Field(default_factory=list, max_length=5000)
+    labour: list[LabourEntry] = Field(default_factory=list, max_length=5000)
 
 
 @dataclass(frozen=True)
@@ -221,6 +254,8 @@ class _Table:
         return ProjectFileError(message, file=self.filename, line=1, column=1, key=None)
 
 
+#: rating_table keys written in one cell: lists of numbers; capacity and power rows separated by "|".
+_TABLE_LISTS = ("evaporating_temperatures", "ambient_temperatures", "capacity", "power")
 _NUMBER = re.compile(r"[-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?")
 
 
@@ -229,9 +264,16 @@ def _cell(header: str, value: Any) -> Any:
         value = value.strip()
         if value == "":
             return None
-        if header.startswith("polynomial.") and header.split(".")[1] in ("capacity", "power", "mass_flow"):
-            parts = [p for p in re.split(r"[\s;]+", value) if p]
-            return [float(p) if _NUMBER.fullmatch(p) else p for p in parts]
+        if header.startswith("polynomial.") and header.split(".")[1] in ("capacity", "power", "mass_flow") or (
+            header.startswith("rating_table.") and header.split(".")[1] in _TABLE_LISTS
+        ):
+            def items(text: str) -> list[Any]:
+                parts = [p.strip() for p in re.split(r";" if ";" in text else r"\s+", text) if p.strip()]
+                return [float(p) if _NUMBER.fullmatch(p) else p for p in parts]
+
+            if header.split(".")[1] in ("capacity", "power") and header.startswith("rating_table."):
+                return [items(row) for row in value.split("|")]
+            return items(value)
         if _NUMBER.fullmatch(value):
             return float(value)
     return value
@@ -279,7 +321,7 @@ def catalogue_from_rows(rows: Sequence[Sequence[Any]], filename: str, *, letters
                                    file=filename, line=1, column=_column_label(i, letters), key=name)
         if name:
             seen[name] = i
-    data: dict[str, Any] = {"condensing_units": [], "unit_coolers": []}
+    data: dict[str, Any] = {group: [] for group in KINDS.values()}
     currency: Optional[tuple[str, int]] = None
     for r, values in enumerate(rows[1:], start=2):
         cells = {h: _cell(h, v) for h, v in zip(header, values) if h}
@@ -288,7 +330,7 @@ def catalogue_from_rows(rows: Sequence[Sequence[Any]], filename: str, *, letters
         columns = {h: _column_label(i, letters) for i, h in enumerate(header) if h}
         kind = cells.pop("kind", None)
         if kind not in KINDS:
-            raise ProjectFileError(f"{kind!r} is not a kind of unit: write condensing_unit or unit_cooler",
+            raise ProjectFileError(f"{kind!r} is not a kind of catalogue item: write one of {', '.join(KINDS)}",
                                    file=filename, line=r, column=columns["kind"], key="kind")
         cur = cells.pop("currency", None)
         if cur is None:
@@ -369,16 +411,19 @@ def parse_catalogue(raw: bytes, filename: str) -> Catalogue:
         raise located.error(message, _refined_location(first)) from None
     from coldroom.registry import normalise
 
-    for group in ("condensing_units", "unit_coolers"):
-        first_seen: dict[str, int] = {}
+    keys = {"condensing_units": ("model",), "unit_coolers": ("model",),
+            **{group: key for group, _model, key in ITEM_KINDS.values()}}
+    for group, fields in keys.items():
+        first_seen: dict[tuple, int] = {}
         for i, entry in enumerate(getattr(catalogue, group)):
-            key = normalise(entry.model)
+            key = tuple(normalise(str(getattr(entry, f))) for f in fields)
             if key in first_seen:
-                where = located.error("", (group, first_seen[key], "model"))
+                where = located.error("", (group, first_seen[key], fields[0]))
+                named = " ".join(f"{f} {getattr(entry, f)!r}" for f in fields)
                 raise located.error(
-                    f"model {entry.model!r} is listed twice (first at {where.line}:{where.column}): "
-                    "each model once, with one price",
-                    (group, i, "model"),
+                    f"{named} is listed twice (first at {where.line}:{where.column}): "
+                    "each item once, with one price",
+                    (group, i, fields[0]),
                 )
             first_seen[key] = i
     return catalogue
@@ -399,7 +444,7 @@ def catalogue_rows(data: dict[str, Any]) -> list[list[Any]]:
     become one cell of numbers separated by blanks.
     """
     flat_rows: list[dict[str, Any]] = []
-    for group, kind in (("condensing_units", "condensing_unit"), ("unit_coolers", "unit_cooler")):
+    for kind, group in KINDS.items():
         for entry in data.get(group, []):
             flat: dict[str, Any] = {"kind": kind, "currency": data["currency"]}
 
@@ -407,6 +452,10 @@ def catalogue_rows(data: dict[str, Any]) -> list[list[Any]]:
                 if isinstance(value, dict):
                     for k, v in value.items():
                         walk(f"{prefix}.{k}" if prefix else k, v)
+                elif isinstance(value, list) and value and isinstance(value[0], list):
+                    flat[prefix] = " | ".join("; ".join(str(x) for x in row) for row in value)
+                elif isinstance(value, list) and any(isinstance(x, str) for x in value):
+                    flat[prefix] = "; ".join(str(x) for x in value)
                 elif isinstance(value, list):
                     flat[prefix] = " ".join(repr(float(x)) for x in value)
                 else:

@@ -471,6 +471,16 @@ def _check_existing_unit(room: "Room", at: tuple, error: ErrorFactory) -> None:
                 ),
                 u_at + ("rated_point", "evaporating_temperature"),
             )
+    if unit.rating_table is not None and unit.rating_table.evaporating_temperatures[0] < lowest:
+        raise error(
+            Note.fill(
+                "the rating table's lowest evaporating temperature {e} is below {low}, the lowest temperature of "
+                + name,
+                e=(unit.rating_table.evaporating_temperatures[0], "temperature"),
+                low=(lowest, "temperature"),
+            ),
+            u_at + ("rating_table", "evaporating_temperatures"),
+        )
     if unit.polynomial is not None and unit.polynomial.discharge_min >= critical:
         raise error(
             Note.fill(

@@ -902,10 +902,59 @@ class CondenserRating(Strict):
     temperature_difference: Q("temperature_difference", gt=0.0, le=40.0)  # type: ignore[valid-type]
 
 
+GridTemperatures = Annotated[
+    list[Q("temperature", ge=-60.0, le=70.0)], Field(min_length=2, max_length=30)  # type: ignore[valid-type]
+]
+GridRows = Annotated[
+    list[Annotated[list[Rating], Field(min_length=2, max_length=30)]],  # type: ignore[valid-type]
+    Field(min_length=2, max_length=30),
+]
+
+
+class RatingTable(Strict):
+    """A condensing unit's capacity and power over a grid of SST × condenser air (EN 13215 convention [mem]).
+
+    ``capacity`` and ``power`` are rows, one per ambient (``ambient_temperatures``),
+    of columns, one per SST (``evaporating_temperatures``, dew at the unit's suction),
+    at the rating ``superheat`` (or ``return_gas_temperature``) and ``subcooling``.
+    The whole unit is rated (compressor and its condenser): give no ``condenser`` beside it.
+    """
+
+    superheat: Optional[Q("temperature_difference", ge=0.0, le=40.0)] = None  # type: ignore[valid-type]
+    return_gas_temperature: Optional[Q("temperature", ge=-50.0, le=40.0)] = None  # type: ignore[valid-type]
+    subcooling: Q("temperature_difference", ge=0.0, le=30.0) = 0.0  # type: ignore[valid-type]
+    evaporating_temperatures: GridTemperatures
+    ambient_temperatures: GridTemperatures
+    capacity: GridRows
+    power: GridRows
+
+    @model_validator(mode="after")
+    def _check(self) -> "RatingTable":
+        if self.superheat is not None and self.return_gas_temperature is not None:
+            raise ValueError("give the table's rating superheat or the return_gas_temperature, not both")
+        if self.superheat is None and self.return_gas_temperature is None:
+            raise ValueError("give the table's rating superheat (EN 13215: 10 K) or return_gas_temperature")
+        for name in ("evaporating_temperatures", "ambient_temperatures"):
+            values = getattr(self, name)
+            if any(b <= a for a, b in zip(values, values[1:])):
+                raise ValueError(f"{name} must rise from left to right, each value once")
+        columns, rows = len(self.evaporating_temperatures), len(self.ambient_temperatures)
+        for name in ("capacity", "power"):
+            table = getattr(self, name)
+            if len(table) != rows or any(len(row) != columns for row in table):
+                raise ValueError(
+                    f"{name} needs {rows} rows (one per ambient temperature) of {columns} values (one per "
+                    f"evaporating temperature); got {len(table)} rows of {', '.join(str(len(r)) for r in table)}"
+                )
+        if max(self.evaporating_temperatures) >= min(self.ambient_temperatures):
+            raise ValueError("the evaporating temperatures must lie below the ambient temperatures")
+        return self
+
+
 class ExistingUnit(Strict):
     """An installed unit to check at the room's new conditions (see :mod:`coldroom.equipment`).
 
-    Give the compressor as ``rated_point`` or ``polynomial`` (exactly one);
+    Give the compressor as ``rated_point``, ``polynomial`` or the whole unit's ``rating_table`` (exactly one);
     ``unit_cooler`` and ``condenser`` are optional — without them the sizing
     TDs fix the evaporating and condensing temperatures.
     """
@@ -914,13 +963,19 @@ class ExistingUnit(Strict):
     refrigerant: str
     rated_point: Optional[RatedPoint] = None
     polynomial: Optional[CompressorPolynomial] = None
+    rating_table: Optional[RatingTable] = None
     unit_cooler: Optional[UnitCoolerRating] = None
     condenser: Optional[CondenserRating] = None
 
     @model_validator(mode="after")
     def _check(self) -> "ExistingUnit":
-        if (self.rated_point is None) == (self.polynomial is None):
-            raise ValueError("describe the existing unit's compressor by rated_point or polynomial (exactly one)")
+        given = [x is not None for x in (self.rated_point, self.polynomial, self.rating_table)]
+        if sum(given) != 1:
+            raise ValueError(
+                "describe the existing unit's compressor by rated_point, polynomial or rating_table (exactly one)"
+            )
+        if self.rating_table is not None and self.condenser is not None:
+            raise ValueError("a rating_table rates the whole unit with its condenser: give no condenser beside it")
         from coldroom.data import refrigerants
 
         refrigerants.lookup(self.refrigerant)  # raises LookupNameError listing close names

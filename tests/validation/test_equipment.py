@@ -288,3 +288,32 @@ def test_run_hours_needed_follows_the_ashrae_required_capacity_relation() -> Non
     assert result.holds is (17.904 <= 16.0)
     assert result.margin_percent == pytest.approx((2560.0 / (1.1 * 150e6 / 57600.0) - 1) * 100, rel=1e-6)
     assert math.isclose(result.margin_percent, -10.6, abs_tol=0.1)
+
+
+# --------------------------------------------------------------------------- rating table
+
+
+def test_rating_table_subcooling_correction_against_coolprop() -> None:
+    """A rating table (invented: R-134a, 3000 W at SST −10 °C / 32 °C ambient, 10 K superheat, 0 K
+    subcooling) run at 5 K useful superheat + 5 K in the suction line and 4 K subcooling: the
+    capacity is the table's times the refrigerating-effect ratio, ṁ = Q/(h1 − h3) held, by hand
+    with CoolProp PropsSI (the nominal condensing temperature 32 + 10 = 42 °C dew)."""
+    from coldroom.equipment.rating_table import RatingTableUnit
+
+    table = RatingTableUnit(
+        refrigerant="R134a", evaporating_temperatures=(-20.0, -10.0), ambient_temperatures=(25.0, 32.0),
+        capacity=((2200.0, 3200.0), (2000.0, 3000.0)), power=((1300.0, 1500.0), (1400.0, 1600.0)),
+        condenser_td=10.0, operating=E.OperatingConditions(superheat=5.0, suction_line_superheat=5.0, subcooling=4.0),
+        rating_superheat=10.0, rating_subcooling=0.0,
+    )
+    fluid = "R134a"
+    p_e = CP.PropsSI("P", "T", 263.15, "Q", 1, fluid)
+    p_c = CP.PropsSI("P", "T", 315.15, "Q", 1, fluid)
+    t_bubble = CP.PropsSI("T", "P", p_c, "Q", 0, fluid)
+    h_liq_rated = CP.PropsSI("H", "P", p_c, "Q", 0, fluid)
+    h_liq = CP.PropsSI("H", "P", p_c, "T", t_bubble - 4.0, fluid)
+    h_rated = CP.PropsSI("H", "P", p_e, "T", 273.15, fluid)
+    h_out = CP.PropsSI("H", "P", p_e, "T", 268.15, fluid)
+    point = table.performance(-10.0, 42.0)
+    assert point.capacity == pytest.approx(3000.0 * (h_out - h_liq) / (h_rated - h_liq_rated), rel=2e-4)
+    assert point.power == 1600.0
