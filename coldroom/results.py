@@ -364,7 +364,8 @@ class SystemElectrical:
     other_heater_power : float
         Door-frame, drain-line and other heaters of the members [W].
     refrigerating_load, defrost_load : float
-        Simultaneous draw while refrigerating and while defrosting [W].
+        Simultaneous draw while refrigerating and the largest while a coil
+        defrosts [W] (:func:`coldroom.design.systems.defrost_draw`).
     compressor_run_time : float
         Compressor running time per day at the design point [s].
     daily_energy_parts : tuple of (str, float)
@@ -381,6 +382,7 @@ class SystemElectrical:
     defrost_load: float
     compressor_run_time: float
     daily_energy_parts: tuple[tuple[str, float], ...]
+    defrost_case: str = "defrost"
 
     @property
     def connected_load(self) -> float:
@@ -389,8 +391,9 @@ class SystemElectrical:
 
     @property
     def connected_load_case(self) -> str:
-        """``"refrigerating"`` or ``"defrost"``: which case sets the connected load."""
-        return "defrost" if self.defrost_load > self.refrigerating_load else "refrigerating"
+        """Which case sets the connected load: ``"refrigerating"``, ``"defrost"`` (one room, compressor
+        stopped) or ``"defrost of ROOM"`` (several rooms, the compressor running for the others)."""
+        return self.defrost_case if self.defrost_load > self.refrigerating_load else "refrigerating"
 
     @property
     def daily_energy(self) -> float:

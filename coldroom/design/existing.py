@@ -121,13 +121,14 @@ def _shifted_model(model: "ProjectModel", shift: float) -> "ProjectModel":
 
 
 def room_load_at(
-    model: "ProjectModel", room: "Room", loads: "RoomLoads", ambient: float
+    model: "ProjectModel", room: "Room", loads: "RoomLoads", ambient: float, figure: str = "required_capacity"
 ) -> Callable[[float], float]:
     """The room's required capacity [W] as a function of the condenser air [°C] (cached).
 
     At *ambient* (the design condenser air) it is ``loads.required_capacity``;
     elsewhere the outdoor air moves with the condenser air (:func:`_shifted_model`)
-    and the room's loads are recomputed.
+    and the room's loads are recomputed. *figure* names the :class:`RoomLoads`
+    figure (``"design_capacity"`` for what ``size`` and ``select`` aim at).
     """
     from coldroom.loads import room_loads
 
@@ -138,10 +139,10 @@ def room_load_at(
         key = round(t, 6)
         if key not in cache:
             if abs(t - ambient) < 1e-9:
-                cache[key] = loads.required_capacity
+                cache[key] = getattr(loads, figure)
             else:
                 shifted = _shifted_model(model, t - ambient)
-                cache[key] = room_loads(shifted, shifted.rooms[index]).required_capacity
+                cache[key] = getattr(room_loads(shifted, shifted.rooms[index]), figure)
         return cache[key]
 
     return load_at

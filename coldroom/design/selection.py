@@ -36,7 +36,13 @@ the compressor's suction (its evaporating temperature less the suction-line
 drop) plus the warmer rooms' coils, held by their pressure regulators at their
 design evaporating temperatures, delivering their capacity at their TD — a
 linear evaporator K_c·(t_c − drop + W/K_c − S) that the existing balance code
-solves unchanged. Its required capacity is the system's design capacity.
+solves unchanged. A one-room system is the same without warmer coils:
+K·(t_room − drop − S), the coil evaporating the suction-line drop above the
+compressor's SST. Either way the unit aims at the system's design capacity as
+``size`` prints it (the larger of the 24-hour and the peak-hour figure, times
+the diversity) and the drop is the one ``size`` uses (given, or from the sized
+suction line): :func:`coldroom.design.sizing.design_system` builds the job once
+for both.
 """
 
 from __future__ import annotations
@@ -584,19 +590,14 @@ def select_system(
     NothingFitsError
         No coil fits a room, or no condensing unit holds (reasons counted, duty stated).
     """
-    from coldroom.data import refrigerants
     from coldroom.design.existing import room_load_at
+    from coldroom.design.sizing import design_system
     from coldroom.equipment import HeatExchanger
-    from coldroom.loads import room_loads
-    from coldroom.design.sizing import room_design_temperatures
-    from coldroom.design.systems import suction_temperature, system_design_capacity
 
-    rooms = [model.rooms[i] for i in indices]
+    job = design_system(model, name, indices, diversity)
+    rooms, temps, settings, refrigerant = job.rooms, job.temps, job.settings[0], job.info.name
     if loads is None:
-        loads = [room_loads(model, room) for room in rooms]
-    temps = [room_design_temperatures(model, room) for room in rooms]
-    settings = model.refrigeration_for(rooms[0])
-    refrigerant = refrigerants.lookup(settings.refrigerant).name
+        loads = job.loads
     coolers = tuple(
         choose_coolers(
             catalogue.unit_coolers,
@@ -609,30 +610,29 @@ def select_system(
         )
         for room, x, t in zip(rooms, loads, temps)
     )
-    ambient = temps[0].condenser_air_temperature
-    suction = suction_temperature([t.evaporating_temperature for t in temps], settings.suction_line_drop)
+    ambient, suction, drop = job.air, job.suction, job.suction_drop
+    energy = sum((1.0 + x.safety_factor) * x.daily_energy for x in loads)
     if len(rooms) == 1:
         room, x, c = rooms[0], loads[0], coolers[0]
         evaporator = HeatExchanger.from_rating(c.count * c.rating_capacity, c.dt1, "unit cooler (EN 328 DT1)")
-        load_at = room_load_at(model, room, x, ambient)
+        load_at = room_load_at(model, room, x, ambient, "design_capacity")
+        # aimed at the design capacity: (1 + SF)·E over the hours in which the design capacity removes it
         duty = Duty(
-            refrigerant, evaporator, room.temperature, ambient, temps[0].condenser_td, x.daily_energy,
-            x.safety_factor, x.run_time, x.peak_capacity, suction, temps[0].condensing_temperature, load_at,
+            refrigerant, evaporator, room.temperature - drop, ambient, temps[0].condenser_td, energy, 0.0,
+            energy / job.capacity, x.peak_capacity, suction, temps[0].condensing_temperature, load_at,
         )
     else:
         coldest = min(range(len(rooms)), key=lambda i: temps[i].evaporating_temperature)
         c = coolers[coldest]
         warm = sum(k.capacity for i, k in enumerate(coolers) if i != coldest)
-        t_eff = rooms[coldest].temperature - settings.suction_line_drop + warm / c.conductance
+        t_eff = rooms[coldest].temperature - drop + warm / c.conductance
         evaporator = HeatExchanger(
             conductance=c.conductance,
             basis=(f"coils of {rooms[coldest].name} at the suction plus the warmer rooms' coils behind their "
                    "pressure regulators",),
         )
-        required = system_design_capacity([x.design_capacity for x in loads], diversity)
-        energy = sum((1.0 + x.safety_factor) * x.daily_energy for x in loads)
         duty = Duty(
-            refrigerant, evaporator, t_eff, ambient, temps[0].condenser_td, energy, 0.0, energy / required,
+            refrigerant, evaporator, t_eff, ambient, temps[0].condenser_td, energy, 0.0, energy / job.capacity,
             sum(x.peak_capacity for x in loads), suction, temps[0].condensing_temperature,
         )
     options, rejected = choose_condensing_unit(catalogue.condensing_units, duty, settings, max_ambient=max_ambient)

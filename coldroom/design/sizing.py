@@ -226,6 +226,7 @@ def _member_draw(room: "Room", loads: "RoomLoads") -> "MemberDraw":
         heater_energy=sum(a.power * a.count * a.hours for a in heaters),
         defrost_heater_power=d.heater_power if electric else 0.0,
         defrost_time=d.per_day * d.duration if electric else 0.0,
+        room=room.name,
     )
 
 

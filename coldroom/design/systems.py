@@ -17,11 +17,15 @@ One system is one compressor (or condensing unit) at one suction pressure:
   chosen for ``compressor_input_power_w``; see :mod:`coldroom.physics.cycle`);
 - condenser fans: given, else :data:`CONDENSER_FAN_SHARE` of the heat of
   rejection [trade];
-- connected load = the larger of the refrigerating case (compressor,
-  condenser fans, evaporator fans, door-frame and drain-line heaters) and the
-  defrost case (every member's electric defrost heaters at once with the
-  evaporator fans and those heaters; the compressor stopped) — the members of
-  one condensing unit defrost together on one timer [trade];
+- connected load = the largest simultaneous draw (:func:`electrical_figures`):
+  the refrigerating case (compressor, condenser fans, evaporator fans,
+  door-frame and drain-line heaters), and a defrost case. A one-room system
+  stops its compressor while its coil defrosts: defrost heaters, evaporator
+  fans and heaters. In a system of several rooms the compressor runs on for
+  the other rooms while one room defrosts, so each room with electric
+  defrost is its own case: its defrost heaters, the heaters, the compressor
+  and condenser fans, and the other rooms' evaporator fans (the defrosting
+  coil's fans stopped) [trade]; the case that governs is named;
 - electricity per day: the compressor and condenser fans for the time the
   design capacity needs to remove the members' daily heat gain
   (:func:`compressor_run_time`, design-point COP, no part-load correction
@@ -72,6 +76,8 @@ class MemberDraw:
         Electric defrost heaters [W] (0 for off-cycle or hot-gas defrost).
     defrost_time : float
         Defrost heater time per day, defrosts × duration [s].
+    room : str
+        The room's name (names the defrost case that governs).
     """
 
     daily_heat_gain: float
@@ -81,6 +87,7 @@ class MemberDraw:
     heater_energy: float = 0.0
     defrost_heater_power: float = 0.0
     defrost_time: float = 0.0
+    room: str = ""
 
 
 def system_design_capacity(member_capacities: Sequence[float], diversity: float = 1.0) -> float:
@@ -188,9 +195,9 @@ def electrical_figures(
     --------
     >>> e = electrical_figures(800.0, 2000.0, (100.0, "given"),
     ...                        [MemberDraw(86.4e6, 120.0, 86400.0), MemberDraw(43.2e6, 90.0, 86400.0, 100.0,
-    ...                                    8.64e6, 2000.0, 4800.0)])
+    ...                                    8.64e6, 2000.0, 4800.0, "Freezer")])
     >>> e.refrigerating_load, e.defrost_load, e.connected_load_case
-    (1210.0, 2310.0, 'defrost')
+    (1210.0, 3120.0, 'defrost of Freezer')
     >>> round(e.compressor_run_time / 3600, 2)
     18.0
     """
@@ -207,6 +214,7 @@ def electrical_figures(
         ("heaters", sum(m.heater_energy for m in members)),
         ("defrost heaters", sum(m.defrost_heater_power * m.defrost_time for m in members)),
     )
+    defrost_load, defrost_case = defrost_draw(compressor, fans_c, members)
     return SystemElectrical(
         compressor_input_power=compressor,
         evaporator_fan_power=fans_e,
@@ -215,7 +223,44 @@ def electrical_figures(
         defrost_heater_power=defrost,
         other_heater_power=heaters,
         refrigerating_load=compressor + fans_c + fans_e + heaters,
-        defrost_load=(defrost + fans_e + heaters) if defrost > 0.0 else 0.0,
+        defrost_load=defrost_load,
         compressor_run_time=run,
         daily_energy_parts=parts,
+        defrost_case=defrost_case,
     )
+
+
+def defrost_draw(
+    compressor_input_power: float, condenser_fan_power: float, members: Sequence[MemberDraw]
+) -> tuple[float, str]:
+    """The largest draw while a coil defrosts [W] and the case's name (module note).
+
+    One room: its defrost heaters, evaporator fans and heaters, the compressor
+    stopped (``"defrost"``). Several rooms: for each room with electric
+    defrost, its defrost heaters + every heater + compressor + condenser fans +
+    the other rooms' evaporator fans (``"defrost of ROOM"``). (0, "defrost")
+    without electric defrost.
+
+    Examples
+    --------
+    >>> defrost_draw(800.0, 100.0, [MemberDraw(0.0, 120.0, 0.0, 50.0, 0.0, 1000.0, 0.0, "A")])
+    (1170.0, 'defrost')
+    >>> defrost_draw(800.0, 100.0, [MemberDraw(0.0, 120.0, room="Cooler"),
+    ...                             MemberDraw(0.0, 90.0, 0.0, 0.0, 0.0, 2000.0, 0.0, "Freezer")])
+    (3020.0, 'defrost of Freezer')
+    """
+    fans_e = sum(m.evaporator_fan_power for m in members)
+    heaters = sum(m.heater_power for m in members)
+    if len(members) == 1:
+        defrost = members[0].defrost_heater_power
+        return ((defrost + fans_e + heaters) if defrost > 0.0 else 0.0), "defrost"
+    best = (0.0, "defrost")
+    for m in members:
+        if m.defrost_heater_power <= 0.0:
+            continue
+        draw = m.defrost_heater_power + heaters + compressor_input_power + condenser_fan_power + (
+            fans_e - m.evaporator_fan_power
+        )
+        if draw > best[0]:
+            best = (draw, f"defrost of {m.room}")
+    return best

@@ -145,6 +145,9 @@ def systems_report(systems: Sequence["SystemResult"], system: str) -> str:
             f"defrost: heaters {electrical_text(e.defrost_heater_power)} + evaporator fans "
             f"{electrical_text(e.evaporator_fan_power)} + other heaters {electrical_text(e.other_heater_power)}"
             if e.connected_load_case == "defrost"
+            else f"{e.connected_load_case}: its defrost heaters + heaters + compressor + condenser fans + the other "
+            "rooms' evaporator fans"
+            if e.connected_load_case.startswith("defrost of ")
             else f"refrigerating: compressor {electrical_text(e.compressor_input_power)} + condenser fans "
             f"{electrical_text(e.condenser_fan_power)} + evaporator fans {electrical_text(e.evaporator_fan_power)}"
             f" + heaters {electrical_text(e.other_heater_power)}"

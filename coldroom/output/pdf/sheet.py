@@ -304,7 +304,7 @@ def system_details_section(ctx: SheetContext) -> list:
             ["Door-frame, drain-line and other heaters", *(_electrical(x.other_heater_power) for x in e)],
             ["Electric defrost heaters", *(_electrical(x.defrost_heater_power) for x in e)],
             ["Draw while refrigerating (compressor, fans, heaters)", *(_electrical(x.refrigerating_load) for x in e)],
-            ["Draw while defrosting (defrost heaters, fans, heaters)", *(_electrical(x.defrost_load) for x in e)],
+            ["Draw while a coil defrosts (largest case)", *(_electrical(x.defrost_load) for x in e)],
             ["Compressor run time at design capacity", *(f"{x.compressor_run_time / 3600:.1f} h/day" for x in e)],
             ["Electricity per day", *(f"{x.daily_energy / 3.6e6:.1f} kWh" for x in e)],
             ["Connected load (the larger draw)", *(f"{_electrical(x.connected_load)} ({x.connected_load_case})" for x in e)],
@@ -313,8 +313,10 @@ def system_details_section(ctx: SheetContext) -> list:
                      total_rows=(len(rows) - 1,)), Spacer(1, 3)]
     out.append(
         note(
-            "Connected load: the larger of compressor + condenser fans + evaporator fans + heaters, and all the "
-            "system's electric defrost heaters at once with the fans and heaters (compressor stopped). "
+            "Connected load: the largest of compressor + condenser fans + evaporator fans + heaters, and a defrost "
+            "case. One room: its defrost heaters with the fans and heaters (compressor stopped). Several rooms: "
+            "for each room with electric defrost, its defrost heaters + heaters + compressor + condenser fans + "
+            "the other rooms' evaporator fans (the compressor runs on for them); the case in brackets governs. "
             "Electricity per day: the compressor and condenser fans for the time the design capacity needs to "
             "remove the day's heat gain (design-point COP, no part-load correction); fans and heaters for their "
             "hours; defrost heaters for defrosts x duration. Condenser fans marked (est.) are 20 W per kW "

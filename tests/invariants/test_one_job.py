@@ -1,0 +1,151 @@
+"""One job, one answer: the same project through size, select, check and compare tells one story.
+
+Each command builds on one design of the job (:func:`coldroom.design.sizing.design_system`);
+where two outputs meet they must agree: the duty, the equipment, the charge and the electrical
+figures. The checks are invariants between the commands (no published values), on the demo
+projects and on an invented three-room back store (tests/data/one_job/back_store.yaml). The
+commands' cores run in process (the CLI's subprocess smoke tests live in tests/cli).
+"""
+
+from __future__ import annotations
+
+from pathlib import Path
+
+import pytest
+
+REPO = Path(__file__).resolve().parents[2]
+DEMOS = REPO / "project_files"
+CATALOGUE = DEMOS / "catalogue" / "demo_catalogue.yaml"
+BACK_STORE = REPO / "tests" / "data" / "one_job" / "back_store.yaml"
+
+#: Jobs the demo catalogue can equip (the heated-slab freezer's R-449A is not in it).
+SELECTABLE = [DEMOS / "produce_cooler.yaml", DEMOS / "combo_cooler_freezer.yaml", BACK_STORE]
+
+
+def _open(path: Path):
+    from coldroom.inputs.opening import open_project
+
+    return open_project(str(path)).model
+
+
+def _size(path: Path) -> dict:
+    from coldroom.design.sizing import size_project
+
+    return size_project(_open(path), str(path), path.read_bytes()).to_json()
+
+
+@pytest.fixture(scope="module", params=SELECTABLE, ids=lambda p: p.stem)
+def job(request):
+    """(model, size JSON, selections) of one job, computed once for the module."""
+    from coldroom.design.selection import select_project
+    from coldroom.inputs.catalogue import load_catalogue
+
+    path = request.param
+    model = _open(path)
+    return model, _size(path), select_project(model, load_catalogue(str(CATALOGUE)), max_ambient=False)
+
+
+def test_select_aims_at_the_design_capacity_size_prints(job) -> None:
+    """The condensing unit is chosen for the system's design capacity (peak hour where larger)."""
+    _model, size, selections = job
+    assert [s.system for s in selections] == [s["name"] for s in size["systems"]]
+    for chosen, designed in zip(selections, size["systems"]):
+        assert chosen.required_capacity == pytest.approx(designed["design_capacity_w"], rel=1e-12)
+        assert chosen.choice.check.capacity_at_balance >= designed["design_capacity_w"]
+        for cooler, member in zip(chosen.coolers, designed["members"]):
+            assert cooler.room == member["room"] and cooler.duty >= member["duty_w"] - 1e-9
+
+
+def _with_drop(tmp_path: Path, drop: str) -> Path:
+    text = (DEMOS / "produce_cooler.yaml").read_text(encoding="utf-8")
+    marker = "      condenser_air_temperature: 32 °C\n"
+    assert marker in text
+    path = tmp_path / f"drop_{drop.split()[0]}.yaml"
+    path.write_text(text.replace(marker, marker + f"      suction_line_drop: {drop}\n", 1), encoding="utf-8")
+    return path
+
+
+def test_the_suction_line_drop_moves_the_balance_point(tmp_path: Path) -> None:
+    """A 4 K suction-line drop balances the chosen unit at a lower SST than a 1 K drop.
+
+    The coil evaporates the drop above the compressor's SST; with the same coils and unit the
+    balance SST falls (common practice, no source: the suction line's loss is a loss of
+    saturation temperature at the compressor).
+    """
+    from coldroom.design.selection import select_system
+    from coldroom.inputs.catalogue import load_catalogue
+
+    catalogue = load_catalogue(str(CATALOGUE))
+    balance = {}
+    for drop in ("1 K", "4 K"):
+        model = _open(_with_drop(tmp_path, drop))
+        ((name, _entry, indices),) = model.system_groups()
+        chosen = select_system(model, catalogue, name, indices, max_ambient=False)
+        balance[drop] = (chosen.choice.model, chosen.choice.check.balance_evaporating)
+    assert balance["1 K"][1] != balance["4 K"][1]
+    if balance["1 K"][0] == balance["4 K"][0]:  # the same unit: its SST falls by less than the drop's change
+        assert -3.0 < balance["4 K"][1] - balance["1 K"][1] < 0.0
+
+
+def test_connected_load_of_several_rooms_keeps_the_compressor_running(job) -> None:
+    """Largest of: everything refrigerating; each electrically defrosted room's defrost and the
+    heaters with the compressor, condenser fans and the other rooms' evaporator fans (issue #24 rule)."""
+    model, size, _selections = job
+    for system in size["systems"]:
+        rooms = [r for r in model.rooms if r.name in system["rooms"]]
+        if len(rooms) < 2:
+            continue
+        fans = {r.name: (r.fans.power * r.fans.count if r.fans is not None and r.fans.hours > 0 else 0.0) for r in rooms}
+        heaters = sum(a.power * a.count for r in rooms for a in r.appliances if a.kind == "heater" and a.hours > 0)
+        running = system["compressor_input_power_w"] + system["condenser_fan_power_w"]
+        cases = {"refrigerating": running + sum(fans.values()) + heaters}
+        for r in rooms:
+            if r.defrost.type == "electric" and r.defrost.per_day > 0:
+                cases[f"defrost of {r.name}"] = (
+                    r.defrost.heater_power + heaters + running + sum(fans.values()) - fans[r.name]
+                )
+        governing = max(cases, key=cases.get)
+        assert system["connected_load_w"] == pytest.approx(cases[governing], rel=1e-12)
+        assert system["connected_load_case"] == governing
+
+
+def test_back_store_freezer_defrost_governs_with_the_compressor_running() -> None:
+    """The invented back store: 1.8 kW defrost + 60 W heater + compressor + 150 W condenser fans +
+    the dairy's 100 W and the meat room's 120 W fans (figures of the project file)."""
+    (system,) = _size(BACK_STORE)["systems"]
+    assert system["connected_load_case"] == "defrost of Freezer"
+    expected = 1800.0 + 60.0 + system["compressor_input_power_w"] + 150.0 + 100.0 + 120.0
+    assert system["connected_load_w"] == pytest.approx(expected, rel=1e-12)
+
+
+@pytest.mark.parametrize("path", [DEMOS / "farm_shop_options.yaml", BACK_STORE], ids=lambda p: p.stem)
+def test_compare_base_is_the_sized_job(path: Path) -> None:
+    """compare's base option: the same design capacity, compressor input and charge as size."""
+    from coldroom.design.annual import compare
+
+    size = _size(path)
+    base = compare(_open(path)).to_json()["options"][0]
+    assert base["name"] == "base"
+    for system, year in zip(size["systems"], base["systems"]):
+        assert year["name"] == system["name"]
+        assert year["design_capacity_w"] == pytest.approx(system["design_capacity_w"], rel=1e-12)
+        assert year["compressor_input_power_w"] == pytest.approx(system["compressor_input_power_w"], rel=1e-12)
+        assert year["charge_kg"] == pytest.approx(system["charge"]["total_kg"], rel=1e-12)
+
+
+def test_check_is_the_sized_job() -> None:
+    """check and size rate the same existing unit against the same room figures."""
+    from coldroom.design.existing import check_existing_units
+
+    path = DEMOS / "cooler_to_freezer.yaml"
+    size = _size(path)
+    checks = check_existing_units(_open(path))
+    for room, (loads, check) in zip(size["rooms"], checks):
+        assert loads.required_capacity == pytest.approx(room["required_capacity_w"], rel=1e-12)
+        if check is None:
+            assert room.get("existing_unit") is None
+            continue
+        sized = room["existing_unit"]
+        assert check.holds == sized["holds"]
+        assert check.capacity_at_balance == pytest.approx(sized["capacity_at_balance_w"], rel=1e-6)
+        assert check.power_at_balance == pytest.approx(sized["power_at_balance_w"], rel=1e-6)
