@@ -626,11 +626,11 @@ def check_command(
         from coldroom.inputs.opening import open_project
 
         model = open_project(project).model
-        from coldroom.design.existing import check_existing_units  # CoolProp, lazily
+        from coldroom.design.sizing import existing_unit_checks  # CoolProp, lazily
         from coldroom.output.terminal import check_report
         from coldroom.design.unit_limits import unit_limits
 
-        checks = check_existing_units(model)
+        checks = existing_unit_checks(model)
         limits = [
             None if check is None else unit_limits(model, i, loads, check.holds, pulldown=True)
             for i, (loads, check) in enumerate(checks)

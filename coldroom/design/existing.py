@@ -154,6 +154,7 @@ def check_room(
     loads: "Optional[RoomLoads]" = None,
     *,
     chart: bool = True,
+    suction_drop: Optional[float] = None,
 ) -> Optional[CheckResult]:
     """Check the room's existing unit, if it has one (the single call sizing uses).
 
@@ -171,6 +172,11 @@ def check_room(
         The room's loads at design (computed when not given).
     chart : bool
         Compute the chart arrays and the maximum ambient.
+    suction_drop : float, optional
+        The system's suction-line drop as saturation temperature [K] (the sized line's, as
+        :func:`coldroom.design.sizing.design_system` finds it); default the given
+        ``suction_line_drop``. The coil evaporates this much above the compressor's SST, so
+        the balance is solved with the room air lowered by it (as ``select`` does).
 
     Returns
     -------
@@ -196,8 +202,11 @@ def check_room(
         compressor = build_compressor(unit, r)
     except CalculationError as exc:
         raise type(exc)(f"room {room.name!r}: existing unit {unit.name!r}: {exc}") from None
+    drop = r.suction_line_drop if suction_drop is None else suction_drop
     if unit.unit_cooler is not None:
-        evaporator = HeatExchanger.from_rating(unit.unit_cooler.capacity, unit.unit_cooler.dt1, "unit cooler (EN 328 DT1)")
+        evaporator = HeatExchanger.from_rating(
+            unit.unit_cooler.capacity, unit.unit_cooler.dt1, "unit cooler (EN 328 DT1)" + drop_words(drop)
+        )
     else:
         evaporator = HeatExchanger.fixed(
             temps.evaporator_td,
@@ -227,7 +236,7 @@ def check_room(
         compressor,
         evaporator,
         condenser,
-        room_temperature=room.temperature,
+        room_temperature=room.temperature - drop,
         ambient_temperature=ambient,
         daily_energy=loads.daily_energy,
         safety_factor=loads.safety_factor,
@@ -238,6 +247,8 @@ def check_room(
         search_max_ambient=chart,
         name=unit.name,
     )
+    if drop:
+        result = replace(result, room_temperature=room.temperature)
     if compressor.refrigerant != refrigerants.lookup(r.refrigerant).name:
         result = replace(
             result,
@@ -251,12 +262,25 @@ def check_room(
     return result
 
 
-def check_existing_units(model: "ProjectModel") -> tuple[tuple["RoomLoads", Optional[CheckResult]], ...]:
-    """:func:`check_room` for every room, with its loads, in file order."""
+def drop_words(drop: float) -> str:
+    """How a coil's rating basis names the suction-line drop (nothing without one)."""
+    return f", evaporating {drop:.2f} K above the compressor's SST (suction-line drop)" if drop else ""
+
+
+def check_existing_units(
+    model: "ProjectModel", suction_drops: Optional[dict[int, float]] = None
+) -> tuple[tuple["RoomLoads", Optional[CheckResult]], ...]:
+    """:func:`check_room` for every room, with its loads, in file order.
+
+    *suction_drops* maps a room's index to its system's suction-line drop [K]
+    (:func:`coldroom.design.sizing.existing_unit_checks` passes the designed ones); a room
+    not in it takes the given ``suction_line_drop``.
+    """
     from coldroom.loads import room_loads
 
+    drops = suction_drops or {}
     out = []
-    for room in model.rooms:
+    for i, room in enumerate(model.rooms):
         loads = room_loads(model, room)
-        out.append((loads, check_room(model, room, loads)))
+        out.append((loads, check_room(model, room, loads, suction_drop=drops.get(i))))
     return tuple(out)

@@ -590,7 +590,7 @@ def select_system(
     NothingFitsError
         No coil fits a room, or no condensing unit holds (reasons counted, duty stated).
     """
-    from coldroom.design.existing import room_load_at
+    from coldroom.design.existing import drop_words, room_load_at
     from coldroom.design.sizing import design_system
     from coldroom.equipment import HeatExchanger
 
@@ -614,7 +614,9 @@ def select_system(
     energy = sum((1.0 + x.safety_factor) * x.daily_energy for x in loads)
     if len(rooms) == 1:
         room, x, c = rooms[0], loads[0], coolers[0]
-        evaporator = HeatExchanger.from_rating(c.count * c.rating_capacity, c.dt1, "unit cooler (EN 328 DT1)")
+        evaporator = HeatExchanger.from_rating(
+            c.count * c.rating_capacity, c.dt1, "unit cooler (EN 328 DT1)" + drop_words(drop)
+        )
         load_at = room_load_at(model, room, x, ambient, "design_capacity")
         # aimed at the design capacity: (1 + SF)·E over the hours in which the design capacity removes it
         duty = Duty(

@@ -532,7 +532,7 @@ def size_system(
         _design_unit_pulldown(model, room, x, t, s, info.name, condensing, gas_cooler)
         for room, x, t, s in zip(rooms, loads, temps, settings)
     ]
-    checks = [check_room(model, room, x) for room, x in zip(rooms, loads)]
+    checks = [check_room(model, room, x, suction_drop=suction_drop) for room, x in zip(rooms, loads)]
     limits = [
         None if check is None else unit_limits(model, i, x, check.holds, pulldown=True)
         for i, x, check in zip(indices, loads, checks)
@@ -591,6 +591,23 @@ def _system_basis(model: "ProjectModel", system: "SystemResult") -> tuple:
             )
         )
     return tuple(rows)
+
+
+def existing_unit_checks(model: "ProjectModel") -> tuple:
+    """``coldroom check``: every room's existing unit checked with its system's designed suction-line drop.
+
+    A system with an existing unit is designed first (:func:`design_system`), so the drop is
+    the one ``size`` and ``select`` use (given, or from the sized suction line); then
+    :func:`coldroom.design.existing.check_existing_units`.
+    """
+    from coldroom.design.existing import check_existing_units
+
+    drops: dict[int, float] = {}
+    for name, entry, indices in model.system_groups():
+        if any(model.rooms[i].existing_unit is not None for i in indices):
+            job = design_system(model, name, indices, entry.diversity if entry is not None else 1.0)
+            drops.update((i, job.suction_drop) for i in indices)
+    return check_existing_units(model, drops)
 
 
 def size_room(model: "ProjectModel", room: "Room") -> "RoomResult":

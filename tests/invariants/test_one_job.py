@@ -135,11 +135,11 @@ def test_compare_base_is_the_sized_job(path: Path) -> None:
 
 def test_check_is_the_sized_job() -> None:
     """check and size rate the same existing unit against the same room figures."""
-    from coldroom.design.existing import check_existing_units
+    from coldroom.design.sizing import existing_unit_checks
 
     path = DEMOS / "cooler_to_freezer.yaml"
     size = _size(path)
-    checks = check_existing_units(_open(path))
+    checks = existing_unit_checks(_open(path))
     for room, (loads, check) in zip(size["rooms"], checks):
         assert loads.required_capacity == pytest.approx(room["required_capacity_w"], rel=1e-12)
         if check is None:
