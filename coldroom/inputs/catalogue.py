@@ -83,9 +83,8 @@ from coldroom.inputs.projectfile import (
     RatingTable,
     Strict,
     UnitCoolerRating,
-    _message,
-    _refined_location,
 )
+from coldroom.inputs.projectfile.parsing import _message, _refined_location
 
 #: Keys only a unit cooler has / only a condensing unit has (to name the wrong kind).
 COOLER_KEYS = ("capacity", "air_on", "evaporating_temperature", "air_flow", "throw", "defrost",
