@@ -15,7 +15,7 @@ For every room:
    air-cooled condensers) unless the project gives
    ``refrigeration.condenser_td``;
 4. one compressor per system (:func:`size_system`; a room in no ``systems``
-   entry is a system of its own): :func:`coldroom.physics.cycle.solve_system_cycle`
+   entry is a system of its own): :func:`coldroom.physics.system_cycle.solve_system_cycle`
    at the coldest member's evaporating temperature less the suction-line drop,
    the system's condensing temperature and the system design capacity (Σ
    member design capacities × diversity, :mod:`coldroom.design.systems`), the warmer
@@ -369,10 +369,10 @@ class SystemDesign:
 
         The line drops default to the design's (the suction-line drop given, or the sized lines' fed back).
         """
-        from coldroom.physics import cycle as _cycle
+        from coldroom.physics.system_cycle import solve_system_cycle
 
         r = self.settings[0]
-        return _cycle.solve_system_cycle(
+        return solve_system_cycle(
             self.info.name,
             list(self.coils),
             condensing,

@@ -2,7 +2,7 @@
 
 Pure functions on plain floats (SI; temperatures in °C). :mod:`coldroom.design.sizing`
 gathers each system's rooms, solves its cycle
-(:func:`coldroom.physics.cycle.solve_system_cycle`) and calls these for the rest.
+(:func:`coldroom.physics.system_cycle.solve_system_cycle`) and calls these for the rest.
 
 One system is one compressor (or condensing unit) at one suction pressure:
 

@@ -23,7 +23,8 @@ from dataclasses import dataclass
 
 from coldroom.errors import CalculationError
 from coldroom.registry import Registry
-from coldroom.physics.food import CompositionModel, ExplicitModel, PropertyModel, RespirationData, respiration_heat
+from coldroom.physics.food import CompositionModel, ExplicitModel, PropertyModel
+from coldroom.physics.respiration import RespirationData, respiration_heat
 
 DAY = 86400.0  # s
 
@@ -327,7 +328,7 @@ def respiration_load(
     """Heat of respiration of the stored produce at the room temperature.
 
     q = m·q_resp(t) (Becker, Misra & Fricke coefficients or tabulated heats,
-    :func:`coldroom.physics.food.respiration_heat` [mem]); counted over 24 h. A
+    :func:`coldroom.physics.respiration.respiration_heat` [mem]); counted over 24 h. A
     product without respiration data (meat, frozen goods) gives 0.
 
     Parameters
@@ -341,7 +342,7 @@ def respiration_load(
 
     Examples
     --------
-    >>> from coldroom.physics.food import RespirationData
+    >>> from coldroom.physics.respiration import RespirationData
     >>> r = respiration_load(2000.0, 0.0, RespirationData(f=3.6683e-4, g=3.0330))
     >>> round(r.power), round(r.daily_energy / 1e6, 1)
     (80, 6.9)

@@ -27,18 +27,8 @@ Energy balance: refrigerating capacity + suction-line heat gain + compressor
 power = condenser duty, exactly (h₄ = h₃ by construction). With no suction-line
 superheat the suction-line gain is zero and Q + P = heat of rejection.
 
-Several evaporators on one compressor (:func:`solve_system_cycle`): each coil
-evaporates at its own dew temperature; the warmer ones sit behind an
-evaporator pressure regulator (EPR), an isenthalpic throttle down to the
-coldest coil's pressure. Each coil's flow is ṁᵢ = Qᵢ/(h_out,i − h₃); the
-streams mix adiabatically at the coldest coil's pressure, h_mix = Σṁᵢh_out,i/Σṁᵢ
-(steady-flow energy balance of a mixing tee; two evaporators on one compressor
-with a back-pressure valve, Stoecker & Jones 2nd ed. ch. 16 multipressure
-systems [mem] [ref:stoecker-jones]); state 1 is then the mixture heated by
-the suction-line superheat at the suction pressure. The cycle reports the
-coldest coil's evaporating temperature, the total capacity and the mixture as
-the evaporator outlet (its superheat over the coldest dew point as
-``superheat``).
+Several evaporators on one compressor: :mod:`coldroom.physics.system_cycle` (it calls
+:func:`solve_cycle` with the warmer coils, whose mixing is done here).
 
 Compressor power basis: ``isentropic_efficiency`` is the *overall* isentropic
 efficiency on the electrical input (motor included), so ``compressor_power``
@@ -68,6 +58,7 @@ from coldroom.constants import ZERO_CELSIUS_K
 from coldroom.errors import CalculationError
 from coldroom.results import Note, Term
 from coldroom.physics.refrigerant import Fluid, StatePoint, coolprop_version, get_fluid
+from coldroom.physics.transcritical import golden_max, liao_optimum_pressure
 
 #: Defaults of the cycle (superheat, suction-line superheat, subcooling,
 #: isentropic efficiency, clearance): :data:`coldroom.rules.CYCLE_DEFAULTS`,
@@ -182,10 +173,10 @@ class CycleResult:
         sub-atmospheric suction, flammability/toxicity, GWP).
     evaporator_flows : tuple of float
         Mass flow through each evaporator [kg/s], in the order given to
-        :func:`solve_system_cycle` (one entry, the total, for a single coil).
+        :func:`coldroom.physics.system_cycle.solve_system_cycle` (one entry, the total, for a single coil).
     coil_outlets : tuple of StatePoint
         Each evaporator's own outlet state, in the order given to
-        :func:`solve_system_cycle`, at its evaporating (dew) pressure, before
+        :func:`coldroom.physics.system_cycle.solve_system_cycle`, at its evaporating (dew) pressure, before
         a warmer coil's EPR throttles it to the coldest coil's pressure; empty
         for a single coil.
     """
@@ -289,29 +280,6 @@ class CycleResult:
             "warnings": list(self.warnings),
             "states": [state(s) for s in self.states],
         }
-
-
-def liao_optimum_pressure(evaporating_temperature: float, gas_cooler_outlet_temperature: float) -> float:
-    """Optimum high-side pressure of a transcritical R-744 cycle [Pa].
-
-    p_opt = (2.778 − 0.0157·t_e)·t_gc + (0.381·t_e − 9.34)  [bar, t in °C]
-    Liao, Zhao & Jakobsen, Applied Thermal Engineering 20 (2000) 831–841 [ref:liao-2000]
-    [mem; verify]. Fitted for t_gc ≈ 30–50 °C, t_e ≈ −10…+20 °C.
-
-    Parameters
-    ----------
-    evaporating_temperature : float
-        [°C]
-    gas_cooler_outlet_temperature : float
-        [°C]
-
-    Examples
-    --------
-    >>> round(liao_optimum_pressure(-10.0, 35.0) / 1e5, 1)
-    89.6
-    """
-    te, tgc = evaporating_temperature, gas_cooler_outlet_temperature
-    return ((2.778 - 0.0157 * te) * tgc + (0.381 * te - 9.34)) * 1e5
 
 
 def _check(name: str, value: float, low: float, high: float, unit: str, low_open: bool = False) -> None:
@@ -563,7 +531,7 @@ def solve_cycle(
                 s2s, s2, s3 = _high_side(fluid, state1, p, isentropic_efficiency, None, tgc)
                 return (evap_out.h - s3.h) / (s2.h - state1.h)
 
-            p_high = high_side_pressure if high_side_pressure is not None else _golden_max(
+            p_high = high_side_pressure if high_side_pressure is not None else golden_max(
                 cop_at, 1.02 * fluid.critical_pressure, 14e6
             )
             s2s, state2, state3 = _high_side(fluid, state1, p_high, isentropic_efficiency, None, tgc)
@@ -693,92 +661,6 @@ def compressor_displacement(
         refrigerant, evaporating_temperature, condensing_temperature, capacity,
         _displacement_only=True, **options,  # type: ignore[arg-type]
     )
-
-
-def solve_system_cycle(
-    refrigerant: str,
-    evaporators: "list[tuple[float, float, float]] | tuple[tuple[float, float, float], ...]",
-    condensing_temperature: float | None,
-    **options: float | None,
-) -> CycleResult:
-    """One compressor serving several evaporators, the warmer ones behind EPRs.
-
-    Parameters
-    ----------
-    refrigerant : str
-        Catalogue name.
-    evaporators : sequence of (float, float, float)
-        Each coil's evaporating dew temperature [°C], superheat at its outlet
-        [K] and duty [W] (> 0).
-    condensing_temperature : float or None
-        Condensing dew temperature [°C] (``None`` for transcritical R-744 with
-        ``gas_cooler_outlet_temperature``).
-    **options
-        The other keywords of :func:`solve_cycle` (subcooling, isentropic
-        efficiency, suction-line superheat, suction pressure drop, clearance,
-        gas-cooler outlet temperature, high-side pressure, discharge pressure drop).
-
-    Returns
-    -------
-    CycleResult
-        At the coldest coil's evaporating temperature, capacity = Σ duties;
-        ``evaporator_flows`` in the order of *evaporators*. One coil gives
-        exactly :func:`solve_cycle`.
-
-    Examples
-    --------
-    >>> r = solve_system_cycle("R134a", [(-10.0, 5.0, 3000.0), (-2.0, 5.0, 2000.0)], 40.0)
-    >>> r.evaporating_temperature, r.capacity
-    (-10.0, 5000.0)
-    >>> abs(sum(r.evaporator_flows) - r.mass_flow) < 1e-12
-    True
-    """
-    coils = [tuple(float(x) for x in coil) for coil in evaporators]
-    if not coils:
-        raise CalculationError("a system needs at least one evaporator")
-    for t, sh, q in coils:
-        _check("evaporator duty", q, 0.0, 1e9, "W", low_open=True)
-        _check("evaporating temperature", t, -100.0, 60.0, "°C")
-        _check("superheat", sh, 0.0, 60.0, "K")
-    coldest = min(range(len(coils)), key=lambda i: coils[i][0])
-    others = tuple(coils[i] for i in range(len(coils)) if i != coldest)
-    te, superheat, _q = coils[coldest]
-    total = sum(q for _t, _sh, q in coils)
-    result = solve_cycle(
-        refrigerant, te, condensing_temperature, total, superheat=superheat, _warmer=others, **options  # type: ignore[arg-type]
-    )
-    if not others:
-        return result
-    def in_given_order(values: tuple) -> tuple:
-        """*values* (coldest coil first, then the others) in the order of *evaporators*."""
-        ordered = [values[0]] * len(coils)
-        rest = iter(values[1:])
-        for i in range(len(coils)):
-            if i != coldest:
-                ordered[i] = next(rest)
-        return tuple(ordered)
-
-    return replace(result, evaporator_flows=in_given_order(result.evaporator_flows),
-                   coil_outlets=in_given_order(result.coil_outlets))
-
-
-def _golden_max(func, low: float, high: float, tolerance: float = 500.0) -> float:
-    """Maximise a unimodal *func* on [low, high] by golden-section search
-    (Kiefer 1953; any numerical-methods text) to *tolerance* [Pa]."""
-    ratio = (math.sqrt(5.0) - 1.0) / 2.0
-    a, b = low, high
-    c, d = b - ratio * (b - a), a + ratio * (b - a)
-    fc, fd = func(c), func(d)
-    while b - a > tolerance:
-        if fc >= fd:
-            b, d, fd = d, c, fc
-            c = b - ratio * (b - a)
-            fc = func(c)
-        else:
-            a, c, fc = c, d, fd
-            d = a + ratio * (b - a)
-            fd = func(d)
-    return 0.5 * (a + b)
 
 
 def _warnings(

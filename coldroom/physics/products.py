@@ -24,10 +24,9 @@ from coldroom.physics.food import (
     Composition,
     CompositionModel,
     ExplicitModel,
-    RespirationData,
     property_model,
-    respiration_heat,
 )
+from coldroom.physics.respiration import RespirationData, respiration_heat
 
 #: Categories used in the table.
 CATEGORIES = (

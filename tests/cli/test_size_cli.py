@@ -124,12 +124,14 @@ def test_impossible_cycle_exits_1_naming_the_room(project: Path, monkeypatch):
     is simulated here.
     """
     import coldroom.physics.cycle
+    import coldroom.physics.system_cycle
     from coldroom.errors import PropertyRangeError
 
     def impossible(*args, **kwargs):
         raise PropertyRangeError("suction state outside the property model's range")
 
     monkeypatch.setattr(coldroom.physics.cycle, "solve_cycle", impossible)
+    monkeypatch.setattr(coldroom.physics.system_cycle, "solve_cycle", impossible)
     result = _run("size", str(project))
     assert result.exit_code == 1, result.output
     assert "Produce cooler" in result.output and "outside the property model's range" in result.output

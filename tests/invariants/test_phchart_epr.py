@@ -25,7 +25,7 @@ COILS = [(-25.0, 6.0, 3000.0), (-4.0, 5.0, 2000.0)]  # freezer coil, cooler coil
 
 @pytest.fixture(scope="module", params=["R-448A", "R-134a"])
 def system_cycle(request):
-    from coldroom.physics.cycle import solve_system_cycle
+    from coldroom.physics.system_cycle import solve_system_cycle
 
     return request.param, solve_system_cycle(request.param, COILS, 40.0, suction_line_superheat=5.0)
 
@@ -118,7 +118,7 @@ def test_chart_draws_the_warmer_coil_and_its_throttle(system_cycle):
 def test_single_coil_chart_has_no_epr_parts():
     from reportlab.graphics.shapes import Circle, Line, PolyLine
 
-    from coldroom.physics.cycle import solve_system_cycle
+    from coldroom.physics.system_cycle import solve_system_cycle
     from coldroom.output.pdf.phchart import EPR_COIL, EPR_SOFT, ph_chart
 
     cycle = solve_system_cycle("R-448A", [COILS[0]], 40.0)
@@ -135,7 +135,7 @@ def test_three_coils_every_warmer_isobar_is_named_and_no_label_overlaps():
     with the coil's name or at least its mark, and the labels stay apart (IP units)."""
     from reportlab.graphics.shapes import Line
 
-    from coldroom.physics.cycle import solve_system_cycle
+    from coldroom.physics.system_cycle import solve_system_cycle
     from coldroom.output.pdf.phchart import CYCLE_SOFT, EPR_SOFT, ph_chart
 
     coils = COILS + [(2.0, 5.0, 1000.0)]

@@ -18,7 +18,8 @@ import pytest
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from coldroom.physics.cycle import solve_cycle, solve_system_cycle
+from coldroom.physics.cycle import solve_cycle
+from coldroom.physics.system_cycle import solve_system_cycle
 from coldroom.inputs.opening import open_project, open_project_data
 from coldroom.design.sizing import size_project, size_system
 

@@ -21,7 +21,8 @@ from __future__ import annotations
 
 import pytest
 
-from coldroom.physics.cycle import liao_optimum_pressure, solve_cycle
+from coldroom.physics.cycle import solve_cycle
+from coldroom.physics.transcritical import liao_optimum_pressure
 from coldroom.errors import CalculationError, LookupNameError
 from coldroom.physics.refrigerant import get_fluid
 

@@ -23,9 +23,9 @@ from coldroom.physics.food import (
     Composition,
     CompositionModel,
     component_specific_heat,
-    respiration_heat,
     water_latent_heat,
 )
+from coldroom.physics.respiration import respiration_heat
 
 KJ = 1000.0
 BTU_LB_F = 4.1868  # kJ/(kg·K) per Btu/(lb·°F) (definition)
