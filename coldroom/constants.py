@@ -14,7 +14,7 @@ STANDARD_ATMOSPHERE_PA = 101325.0
 #: 0 °C in kelvin, exact by the SI definition [pub] [ref:nist-sp811] [K].
 ZERO_CELSIUS_K = 273.15
 
-#: Standard acceleration of gravity, exact by definition [pub] [ref:nist-sp811] [m/s²].
+#: Standard acceleration of gravity, exact by definition [pub] [ref:nist-sp811] [ref:iso-80000-3] [m/s²].
 STANDARD_GRAVITY_M_S2 = 9.80665
 
 #: Seconds in a day [s].

@@ -8,6 +8,7 @@ from __future__ import annotations
 from dataclasses import dataclass, field, replace
 from typing import Any, Optional
 
+from coldroom.constants import SECONDS_PER_DAY_S
 from coldroom.units import format_terms
 
 #: The load components, in the order of the ASHRAE Handbook—Refrigeration
@@ -135,7 +136,7 @@ class LoadLine:
     @property
     def average_power(self) -> float:
         """24-hour average heat gain [W]."""
-        return self.daily_energy / 86400.0
+        return self.daily_energy / SECONDS_PER_DAY_S
 
 
 @dataclass(frozen=True)
@@ -195,7 +196,7 @@ class RoomLoads:
     @property
     def components_w(self) -> dict[str, float]:
         """24-hour average of each component [W], in :data:`COMPONENTS` order."""
-        return {c: self.component_energy(c) / 86400.0 for c in COMPONENTS}
+        return {c: self.component_energy(c) / SECONDS_PER_DAY_S for c in COMPONENTS}
 
     @property
     def daily_energy(self) -> float:

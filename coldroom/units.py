@@ -56,6 +56,7 @@ import re
 from dataclasses import dataclass
 from typing import Sequence
 
+from coldroom.constants import SECONDS_PER_DAY_S, STANDARD_ATMOSPHERE_PA, ZERO_CELSIUS_K
 from coldroom.errors import UnitError
 
 # --- exact or defined factors -----------------------------------------------
@@ -68,7 +69,6 @@ TON_REFRIGERATION = 12000.0 * BTU_PER_HOUR  # W, 12 000 Btu/h by definition (NIS
 HORSEPOWER = 745.69987158227022  # W, mechanical hp (NIST SP 811)
 PSI = 6894.757293168361  # Pa, lbf/in² (NIST SP 811)
 INCH_HG = 3386.389  # Pa, conventional inch of mercury at 0 °C (NIST SP 811)
-STANDARD_ATMOSPHERE = 101325.0  # Pa, exact
 CALORIE = 4.1868  # J, International Table calorie
 
 
@@ -136,7 +136,7 @@ _add("volume", ("ft³", "ft3", "cuft", "cu ft", "cubic feet"), _u("ft³", FOOT**
 # absolute temperature (stored in °C)
 _add("temperature", ("°C", "C", "celsius"), _u("°C", 1.0))
 _add("temperature", ("°F", "F", "fahrenheit"), _u("°F", 5.0 / 9.0, 0.0, -32.0))
-_add("temperature", ("K", "kelvin"), _u("K", 1.0, -273.15))
+_add("temperature", ("K", "kelvin"), _u("K", 1.0, -ZERO_CELSIUS_K))
 # temperature difference (K)
 _add("temperature_difference", ("K", "kelvin", "delta_K"), _u("K", 1.0))
 _add("temperature_difference", ("°C", "C", "delta_C"), _u("°C", 1.0))
@@ -165,7 +165,7 @@ _add("mass", ("lb", "lbs", "pound", "pounds", "lbm"), _u("lb", POUND))
 _add("time", ("s", "sec", "second", "seconds"), _u("s", 1.0))
 _add("time", ("min", "mins", "minute", "minutes"), _u("min", 60.0))
 _add("time", ("h", "hr", "hrs", "hour", "hours"), _u("h", 3600.0))
-_add("time", ("d", "day", "days"), _u("d", 86400.0))
+_add("time", ("d", "day", "days"), _u("d", SECONDS_PER_DAY_S))
 # pressure (absolute)
 _add("pressure", ("Pa", "pascal"), _u("Pa", 1.0))
 _add("pressure", ("hPa", "mbar"), _u("hPa", 100.0))
@@ -174,15 +174,15 @@ _add("pressure", ("MPa",), _u("MPa", 1e6))
 _add("pressure", ("bar", "bara", "bar(a)"), _u("bar", 1e5))
 _add("pressure", ("psi", "psia", "lbf/in2"), _u("psia", PSI))
 _add("pressure", ("inHg", "in hg"), _u("inHg", INCH_HG))
-_add("pressure", ("atm",), _u("atm", STANDARD_ATMOSPHERE))
+_add("pressure", ("atm",), _u("atm", STANDARD_ATMOSPHERE_PA))
 # pressure (gauge): a gauge reads above the surrounding air; taken here as the
 # standard atmosphere (101.325 kPa, exact by definition [ref:nist-sp811]), so "0 bar(g)"
 # is 101.325 kPa absolute. A site far above sea level reads a little higher
 # on its gauges (about 1 kPa per 100 m) [trade].
-_add("pressure", ("bar(g)", "barg"), _u("bar(g)", 1e5, offset=STANDARD_ATMOSPHERE))
-_add("pressure", ("kPa(g)", "kPag"), _u("kPa(g)", 1e3, offset=STANDARD_ATMOSPHERE))
-_add("pressure", ("MPa(g)", "MPag"), _u("MPa(g)", 1e6, offset=STANDARD_ATMOSPHERE))
-_add("pressure", ("psig", "psi(g)"), _u("psig", PSI, offset=STANDARD_ATMOSPHERE))
+_add("pressure", ("bar(g)", "barg"), _u("bar(g)", 1e5, offset=STANDARD_ATMOSPHERE_PA))
+_add("pressure", ("kPa(g)", "kPag"), _u("kPa(g)", 1e3, offset=STANDARD_ATMOSPHERE_PA))
+_add("pressure", ("MPa(g)", "MPag"), _u("MPa(g)", 1e6, offset=STANDARD_ATMOSPHERE_PA))
+_add("pressure", ("psig", "psi(g)"), _u("psig", PSI, offset=STANDARD_ATMOSPHERE_PA))
 # conductivity
 _add("conductivity", ("W/(m·K)", "W/mK", "W/m/K", "W/(mK)"), _u("W/(m·K)", 1.0))
 _add("conductivity", ("mW/(m·K)", "mW/mK"), _u("mW/(m·K)", 1e-3))
@@ -412,7 +412,7 @@ def parse_quantity(
         raise UnitError(f"{value!r} is not a finite number")
     unit = unit_for(kind, spelling)
     result = unit.to_si(number)
-    if kind == "temperature" and result < -273.15:
+    if kind == "temperature" and result < -ZERO_CELSIUS_K:
         raise UnitError(f"{value!r} is below absolute zero")
     return result
 

@@ -47,6 +47,7 @@ from dataclasses import dataclass, field
 from pathlib import Path
 from typing import TYPE_CHECKING, Any, Optional, Sequence
 
+from coldroom.constants import SECONDS_PER_DAY_S
 from coldroom.errors import CalculationError
 from coldroom.inputs.weather import AmbientBin
 
@@ -54,7 +55,6 @@ if TYPE_CHECKING:  # pragma: no cover
     from coldroom.inputs.projectfile import ProjectModel
     from coldroom.design.tewi import Tewi
 
-DAY = 86400.0
 J_PER_KWH = 3.6e6
 #: Spacing of the ambients at which room loads are computed [K] [trade].
 LOAD_GRID_STEP = 5.0
@@ -323,7 +323,7 @@ def system_year(
             if e < 0.0:
                 heat_loss_hours += b.hours
                 e = 0.0
-            gains[k] += e / DAY  # W
+            gains[k] += e / SECONDS_PER_DAY_S  # W
     # 2. heat rejection per bin
     indoor = r.condenser_air_temperature is not None
     td = d.temps[0].condenser_td
@@ -372,10 +372,10 @@ def system_year(
     # 3. energy per bin
     fan_c = _systems.condenser_fan_power(cyc.condenser_duty, r.condenser_fan_power)[0]
     draws = [_member_draw(model.rooms[i], x) for i, x in zip(indices, d.loads)]
-    evap_fans = sum(m.evaporator_fan_power * m.evaporator_fan_time for m in draws) / DAY  # W average
-    heaters = sum(m.heater_energy for m in draws) / DAY
-    defrost = sum(m.defrost_heater_power * m.defrost_time for m in draws) / DAY
-    lights = sum(_lighting_energy_per_day(model.rooms[i]) for i in indices) / DAY
+    evap_fans = sum(m.evaporator_fan_power * m.evaporator_fan_time for m in draws) / SECONDS_PER_DAY_S  # W average
+    heaters = sum(m.heater_energy for m in draws) / SECONDS_PER_DAY_S
+    defrost = sum(m.defrost_heater_power * m.defrost_time for m in draws) / SECONDS_PER_DAY_S
+    lights = sum(_lighting_energy_per_day(model.rooms[i]) for i in indices) / SECONDS_PER_DAY_S
     compressor = fans = other = defrost_e = 0.0
     short = 0.0
     for b, gain, (cond, gc) in zip(bins, gains, points):

@@ -46,6 +46,7 @@ import os
 from dataclasses import dataclass
 from typing import TYPE_CHECKING, Any, Optional
 
+from coldroom.constants import SECONDS_PER_DAY_S
 from coldroom.rules import DesignTemperatures, room_design_temperatures
 from coldroom.errors import CalculationError
 
@@ -508,7 +509,7 @@ def size_system(
     warnings = tuple(
         w.prefixed(prefix) if isinstance(w, Note) else f"{prefix}{w}" for w in getattr(cyc, "warnings", ()) or ()
     )
-    if electrical.compressor_run_time >= systems.DAY:
+    if electrical.compressor_run_time >= SECONDS_PER_DAY_S:
         warnings += (
             f"{prefix}at {diversity:.0%} diversity the design capacity cannot remove the rooms' daily heat in 24 h",
         )

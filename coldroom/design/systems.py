@@ -45,10 +45,10 @@ from __future__ import annotations
 from dataclasses import dataclass
 from typing import Optional, Sequence
 
+from coldroom.constants import SECONDS_PER_DAY_S
 from coldroom.errors import CalculationError, finite
 from coldroom.results import SystemElectrical
 
-DAY = 86400.0  # s
 
 #: Condenser fan input per watt of heat rejected when the project gives none:
 #: 20 W per kW, within the 15–30 W/kW of small air-cooled condensers
@@ -165,7 +165,7 @@ def compressor_run_time(daily_heat_gain: float, design_capacity: float) -> float
     capacity = finite("design capacity", design_capacity)
     if capacity <= 0.0:
         raise CalculationError(f"design capacity {capacity:g} W must be positive")
-    return min(DAY, max(0.0, heat) / capacity)
+    return min(SECONDS_PER_DAY_S, max(0.0, heat) / capacity)
 
 
 def electrical_figures(

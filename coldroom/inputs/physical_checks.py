@@ -54,6 +54,7 @@ from __future__ import annotations
 
 from typing import TYPE_CHECKING, Callable, Iterable, Iterator, get_args
 
+from coldroom.constants import SECONDS_PER_DAY_S
 from coldroom.data import refrigerants as _refrigerants
 from coldroom.rules import room_design_temperatures
 from coldroom.errors import ColdroomError
@@ -496,7 +497,7 @@ def _check_existing_unit(room: "Room", at: tuple, error: ErrorFactory) -> None:
 def _check_defrost(room: "Room", at: tuple, error: ErrorFactory) -> None:
     defrost = room.defrost
     total = defrost.per_day * defrost.duration
-    if total > 86400.0:
+    if total > SECONDS_PER_DAY_S:
         raise error(
             f"{defrost.per_day:g} defrosts a day of {defrost.duration / 60:g} min each take "
             f"{total / 3600:.3g} h, more than 24 h",
@@ -614,7 +615,7 @@ def _check_doors(room: "Room", at: tuple, error: ErrorFactory) -> None:
                     d_at + ("width",),
                 )
         open_per_day = door.passages_per_day * door.passage_time + door.open_time
-        if open_per_day > 86400.0:
+        if open_per_day > SECONDS_PER_DAY_S:
             raise error(
                 f"the door would stand open {open_per_day / 3600:.3g} h a day, more than 24 h "
                 "(passages × passage time + open time)",

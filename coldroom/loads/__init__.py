@@ -21,13 +21,13 @@ from __future__ import annotations
 from dataclasses import replace
 from typing import TYPE_CHECKING, Callable
 
+from coldroom.constants import SECONDS_PER_DAY_S
 from coldroom.results import LoadLine, RoomLoads, Term
 from coldroom.results import Term as T
 
 if TYPE_CHECKING:  # pragma: no cover
     from coldroom.inputs.projectfile import Construction, DesignConditions, Product, ProjectModel, Room
 
-DAY = 86400.0  # s
 SIDES = ("north", "east", "south", "west", "ceiling", "floor")
 
 #: Film coefficients used for constructions built from layers [W/(m²·K)]:
@@ -134,7 +134,7 @@ def transmission_lines(model: "ProjectModel", room: "Room") -> list[LoadLine]:
             LoadLine(
                 "transmission",
                 f"{side} ({beyond})",
-                counted * DAY,
+                counted * SECONDS_PER_DAY_S,
                 working,
             )
         )
@@ -445,7 +445,7 @@ def room_loads(model: "ProjectModel", room: "Room") -> RoomLoads:
     run_time, basis = _run_time(room)
     steady = sum(
         line.daily_energy for line in lines if line.component in ("transmission", "infiltration")
-    ) / DAY
+    ) / SECONDS_PER_DAY_S
     peak = steady + product_peak(model, room, products) + internal_peak(model, room)
     warnings = storage_advice(room)
     day = design_day(model, room)

@@ -43,6 +43,7 @@ import math
 from dataclasses import dataclass, field
 from typing import TYPE_CHECKING, Any, Callable, Iterable, Sequence
 
+from coldroom.constants import SECONDS_PER_DAY_S, SECONDS_PER_HOUR_S
 from coldroom.errors import CalculationError, finite, non_negative
 from coldroom.results import LoadLine
 
@@ -50,8 +51,6 @@ if TYPE_CHECKING:  # pragma: no cover
     from coldroom.inputs.projectfile import ProjectModel, Room
 
 HOURS = 24
-HOUR = 3600.0  # s
-DAY = 86400.0  # s
 
 #: Fraction of the daily dry-bulb range below the design dry bulb, for the
 #: hours 1 … 24 of the design day (hour 1 = 00:00–01:00 … hour 24 = 23:00–24:00,
@@ -199,7 +198,7 @@ def spread(daily_energy: float, shares: Sequence[float]) -> list[float]:
     total = sum(shares)
     if total <= 0.0:
         shares, total = even(), 1.0
-    return [daily_energy * s / total / HOUR for s in shares]
+    return [daily_energy * s / total / SECONDS_PER_HOUR_S for s in shares]
 
 
 def run_hours(hourly_load: Sequence[float], capacity: float) -> float:
@@ -249,7 +248,7 @@ class DesignDay:
     @property
     def daily_energy(self) -> float:
         """Heat of the design day [J]."""
-        return sum(self.hourly_load) * HOUR
+        return sum(self.hourly_load) * SECONDS_PER_HOUR_S
 
     @property
     def peak_hour(self) -> int:
@@ -365,7 +364,7 @@ def room_design_day(model: "ProjectModel", room: "Room", sources: LineSources) -
             by["infiltration"][h] += power * factor
     if room.infiltration.method == "door":
         for door in room.doors:
-            open_fraction = (door.passages_per_day * door.passage_time + door.open_time) / DAY
+            open_fraction = (door.passages_per_day * door.passage_time + door.open_time) / SECONDS_PER_DAY_S
             worst = max(door_shares) * HOURS * open_fraction
             if worst > 1.0:
                 notes.append(
@@ -386,7 +385,7 @@ def room_design_day(model: "ProjectModel", room: "Room", sources: LineSources) -
             if what.endswith("respiration") or total_intake <= 0.0:
                 add("product", spread(energy, even()))
             else:
-                add("product", spread(energy, after_events(events, item.pulldown_time / HOUR)))
+                add("product", spread(energy, after_events(events, item.pulldown_time / SECONDS_PER_HOUR_S)))
 
     # internal and equipment lines, in the order coldroom.loads.internal_lines makes them
     lines = iter(internal_lines(model, room))
@@ -395,7 +394,7 @@ def room_design_day(model: "ProjectModel", room: "Room", sources: LineSources) -
         return next(lines)
 
     def workday(hours_per_day: float) -> list[float]:
-        hours = hours_per_day / HOUR
+        hours = hours_per_day / SECONDS_PER_HOUR_S
         return even() if hours >= 24.0 else window_coverage([(WORKDAY_START, WORKDAY_START + hours)])
 
     if room.people.count > 0 and room.people.hours > 0:
@@ -424,7 +423,7 @@ def room_design_day(model: "ProjectModel", room: "Room", sources: LineSources) -
             count = max(1, round(d.per_day))
             starts = [i * 24.0 / count for i in range(count)]
         if d.duration > 0.0:
-            watts = spread(line.daily_energy, after_events(((t, 1.0) for t in starts), d.duration / HOUR))
+            watts = spread(line.daily_energy, after_events(((t, 1.0) for t in starts), d.duration / SECONDS_PER_HOUR_S))
         else:  # a zero-length defrost puts no heat in: its line is 0 J
             watts = spread(line.daily_energy, even())
         add(line.component, watts)

@@ -39,13 +39,12 @@ from dataclasses import dataclass
 from types import MappingProxyType
 from typing import Callable, Mapping
 
+from coldroom.constants import SECONDS_PER_DAY_S, STANDARD_ATMOSPHERE_PA, STANDARD_GRAVITY_M_S2
 from coldroom.registry import Registry
 from coldroom.errors import CalculationError, finite as _finite, non_negative as _non_negative
-from coldroom.physics.psychrometrics import STANDARD_PRESSURE, MoistAirState, moist_air_state
+from coldroom.physics.psychrometrics import MoistAirState, moist_air_state
 
 __all__ = [
-    "GRAVITY",
-    "SECONDS_PER_DAY",
     "DoorProtection",
     "DOOR_PROTECTION",
     "door_protection_effectiveness",
@@ -65,9 +64,6 @@ __all__ = [
     "infiltration_load",
 ]
 
-GRAVITY = 9.80665
-"""Standard acceleration of gravity [m/s²] (ISO 80000-3) [ref:iso-80000-3]."""
-SECONDS_PER_DAY = 86_400.0
 
 _FT3 = 0.028316846592  # m³ per cubic foot (exact)
 
@@ -208,12 +204,12 @@ def open_time_factor(passages_per_day: float, passage_time: float, standing_open
     tp = _non_negative("passage time", passage_time, "s")
     to = _non_negative("standing-open time", standing_open_time, "s")
     open_seconds = p * tp + to
-    if open_seconds > SECONDS_PER_DAY * (1.0 + 1e-12):
+    if open_seconds > SECONDS_PER_DAY_S * (1.0 + 1e-12):
         raise CalculationError(
             f"door open time {open_seconds:g} s per day (passages × passage time + standing-open time) "
-            f"exceeds one day ({SECONDS_PER_DAY:g} s)"
+            f"exceeds one day ({SECONDS_PER_DAY_S:g} s)"
         )
-    return min(open_seconds / SECONDS_PER_DAY, 1.0)
+    return min(open_seconds / SECONDS_PER_DAY_S, 1.0)
 
 
 def density_factor(room_density: float, outside_density: float) -> float:
@@ -299,7 +295,7 @@ def door_infiltration(
     protection: str = "none",
     effectiveness: float | None = None,
     flow_factor: float | None = None,
-    pressure: float = STANDARD_PRESSURE,
+    pressure: float = STANDARD_ATMOSPHERE_PA,
 ) -> DoorInfiltration:
     """Infiltration through a doorway, Gosney & Olama as presented in ASHRAE.
 
@@ -386,14 +382,14 @@ def door_infiltration(
     else:
         # Volume-flow part of Gosney & Olama (ASHRAE eq. as above) [mem]:
         # m_dot = 0.221 A ρ_r (1 − ρ_i/ρ_r)^0.5 (g H)^0.5 F_m   [kg/s]
-        volume_term = 0.221 * area * rho_r * math.sqrt(1.0 - rho_i / rho_r) * math.sqrt(GRAVITY * height) * fm
+        volume_term = 0.221 * area * rho_r * math.sqrt(1.0 - rho_i / rho_r) * math.sqrt(STANDARD_GRAVITY_M_S2 * height) * fm
     dh = outside.enthalpy - room.enthalpy
     q = volume_term * dh
     q_avg = q * dt * df * (1.0 - e)
     return DoorInfiltration(
         method="door",
         average_power=q_avg,
-        daily_energy=q_avg * SECONDS_PER_DAY,
+        daily_energy=q_avg * SECONDS_PER_DAY_S,
         full_open_power=q,
         full_open_dry_air_flow=volume_term,
         open_time_factor=dt,
@@ -526,7 +522,7 @@ def air_change_infiltration(
     outside_relative_humidity: float,
     usage: str = "normal",
     air_changes_per_day: float | None = None,
-    pressure: float = STANDARD_PRESSURE,
+    pressure: float = STANDARD_ATMOSPHERE_PA,
 ) -> AirChangeInfiltration:
     """Infiltration by average air changes per day.
 
@@ -582,7 +578,7 @@ def air_change_infiltration(
     daily = volume * n * heat_per_volume
     return AirChangeInfiltration(
         method="air_changes",
-        average_power=daily / SECONDS_PER_DAY,
+        average_power=daily / SECONDS_PER_DAY_S,
         daily_energy=daily,
         air_changes_per_day=n,
         table_air_changes_per_day=table,

@@ -21,12 +21,11 @@ from __future__ import annotations
 from types import MappingProxyType
 from typing import Mapping
 
+from coldroom.constants import SECONDS_PER_DAY_S, SECONDS_PER_HOUR_S
 from coldroom.registry import Registry
 from coldroom.errors import CalculationError, finite as _finite, non_negative as _non_negative
 
 __all__ = [
-    "SECONDS_PER_HOUR",
-    "SECONDS_PER_DAY",
     "average_power",
     "daily_energy",
     "people_heat_rate",
@@ -44,8 +43,6 @@ __all__ = [
     "defrost_energy",
 ]
 
-SECONDS_PER_HOUR = 3600.0
-SECONDS_PER_DAY = 86_400.0
 
 
 def _hours(hours_per_day: float) -> float:
@@ -63,7 +60,7 @@ def average_power(daily_energy_value: float) -> float:
     >>> average_power(86_400.0)
     1.0
     """
-    return _finite("daily energy", daily_energy_value) / SECONDS_PER_DAY
+    return _finite("daily energy", daily_energy_value) / SECONDS_PER_DAY_S
 
 
 def daily_energy(average_power_value: float) -> float:
@@ -74,7 +71,7 @@ def daily_energy(average_power_value: float) -> float:
     >>> daily_energy(1.0)
     86400.0
     """
-    return _finite("average power", average_power_value) * SECONDS_PER_DAY
+    return _finite("average power", average_power_value) * SECONDS_PER_DAY_S
 
 
 # --------------------------------------------------------------------------- people
@@ -131,7 +128,7 @@ def people_energy(people: float, hours_per_day: float, room_temperature: float) 
     1958400.0
     """
     n = _non_negative("number of people", people, "")
-    return n * people_heat_rate(room_temperature) * _hours(hours_per_day) * SECONDS_PER_HOUR
+    return n * people_heat_rate(room_temperature) * _hours(hours_per_day) * SECONDS_PER_HOUR_S
 
 
 # --------------------------------------------------------------------------- lighting
@@ -182,7 +179,7 @@ def lighting_energy(power: float, hours_per_day: float) -> float:
     >>> lighting_energy(10.0 * 20.0, 4.0)
     2880000.0
     """
-    return _non_negative("lighting power", power, "W") * _hours(hours_per_day) * SECONDS_PER_HOUR
+    return _non_negative("lighting power", power, "W") * _hours(hours_per_day) * SECONDS_PER_HOUR_S
 
 
 # --------------------------------------------------------------------------- motors
@@ -239,7 +236,7 @@ def motor_energy(
     if not (0.0 < eta <= 1.0):
         raise CalculationError(f"motor efficiency {eta:g} must lie in (0, 1]")
     share = {"in_air_stream": 1.0, "load_inside_motor_outside": eta, "motor_inside_load_outside": 1.0 - eta}[key]
-    return p * share * h * SECONDS_PER_HOUR
+    return p * share * h * SECONDS_PER_HOUR_S
 
 
 def forklift_energy(power: float, hours_per_day: float) -> float:
@@ -266,7 +263,7 @@ def forklift_energy(power: float, hours_per_day: float) -> float:
     >>> forklift_energy(4000.0, 2.0)
     28800000.0
     """
-    return _non_negative("forklift power", power, "W") * _hours(hours_per_day) * SECONDS_PER_HOUR
+    return _non_negative("forklift power", power, "W") * _hours(hours_per_day) * SECONDS_PER_HOUR_S
 
 
 def equipment_energy(power: float, hours_per_day: float) -> float:
@@ -279,7 +276,7 @@ def equipment_energy(power: float, hours_per_day: float) -> float:
     >>> equipment_energy(100.0, 10.0)
     3600000.0
     """
-    return _non_negative("equipment power", power, "W") * _hours(hours_per_day) * SECONDS_PER_HOUR
+    return _non_negative("equipment power", power, "W") * _hours(hours_per_day) * SECONDS_PER_HOUR_S
 
 
 def heater_energy(nameplate_power: float, hours_per_day: float = 24.0) -> float:
@@ -306,7 +303,7 @@ def heater_energy(nameplate_power: float, hours_per_day: float = 24.0) -> float:
     >>> heater_energy(50.0)
     4320000.0
     """
-    return _non_negative("heater power", nameplate_power, "W") * _hours(hours_per_day) * SECONDS_PER_HOUR
+    return _non_negative("heater power", nameplate_power, "W") * _hours(hours_per_day) * SECONDS_PER_HOUR_S
 
 
 # --------------------------------------------------------------------------- defrost
@@ -359,6 +356,6 @@ def defrost_energy(
     s = _finite("defrost share to room", share_to_room)
     if not (0.0 <= s <= 1.0):
         raise CalculationError(f"defrost share to room {s:g} must lie between 0 and 1")
-    if n * d > SECONDS_PER_DAY:
+    if n * d > SECONDS_PER_DAY_S:
         raise CalculationError(f"defrost time {n * d:g} s per day exceeds one day")
     return p * n * d * s

@@ -21,12 +21,12 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass
 
+from coldroom.constants import SECONDS_PER_DAY_S
 from coldroom.errors import CalculationError
 from coldroom.registry import Registry
 from coldroom.physics.food import CompositionModel, ExplicitModel, PropertyModel
 from coldroom.physics.respiration import RespirationData, respiration_heat
 
-DAY = 86400.0  # s
 
 #: Packaging specific heats [J/(kg·K)] (common practice, no source [trade]:
 #: corrugated board ≈1.3–1.4, wood ≈1.7–2.0, plastic crates ≈1.9–2.3 kJ/(kg·K)).
@@ -116,7 +116,7 @@ class ProductPulldown:
     @property
     def average_power(self) -> float:
         """24-hour average [W]."""
-        return self.daily_energy / DAY
+        return self.daily_energy / SECONDS_PER_DAY_S
 
 
 def product_pulldown(
@@ -174,7 +174,7 @@ def product_pulldown(
     _finite("daily intake mass [kg]", mass, 0.0, 1e8)
     t1 = _finite("entering temperature [°C]", entering_temperature, -60.0, 100.0)
     t3 = _finite("final temperature [°C]", final_temperature, -60.0, 100.0)
-    _finite("pull-down time [s]", pulldown_time, 1e-9, 30 * DAY)
+    _finite("pull-down time [s]", pulldown_time, 1e-9, 30 * SECONDS_PER_DAY_S)
     if t3 > t1:
         raise CalculationError(
             f"final temperature {t3:g} °C is above the entering temperature {t1:g} °C; "
@@ -319,7 +319,7 @@ class RespirationLoad:
     @property
     def daily_energy(self) -> float:
         """Over 24 h [J/day]."""
-        return self.power * DAY
+        return self.power * SECONDS_PER_DAY_S
 
 
 def respiration_load(
@@ -379,7 +379,7 @@ class ProductLoad:
     @property
     def average_power(self) -> float:
         """24-hour average [W]."""
-        return self.daily_energy / DAY
+        return self.daily_energy / SECONDS_PER_DAY_S
 
     @property
     def pulldown_rate(self) -> float:
@@ -405,7 +405,7 @@ def product_load(
     mass: float = 0.0,
     entering_temperature: float | None = None,
     final_temperature: float | None = None,
-    pulldown_time: float = DAY,
+    pulldown_time: float = SECONDS_PER_DAY_S,
     packaging_mass: float = 0.0,
     packaging_material: str = "corrugated_board",
     packaging_specific_heat: float | None = None,

@@ -48,6 +48,7 @@ from bisect import bisect_right
 from dataclasses import dataclass
 from typing import TYPE_CHECKING, Any, Callable, Optional, Sequence
 
+from coldroom.constants import SECONDS_PER_DAY_S
 from coldroom.errors import CalculationError
 
 if TYPE_CHECKING:  # pragma: no cover
@@ -604,7 +605,7 @@ def simulated_time(room: "Room") -> float:
     if room.pulldown.hours is not None:
         return room.pulldown.hours
     asked = [p.pulldown_time for p in room.products if p.daily_intake > 0]
-    return min(7 * 86400.0, max(86400.0, 2.0 * max(asked, default=0.0)))
+    return min(7 * SECONDS_PER_DAY_S, max(SECONDS_PER_DAY_S, 2.0 * max(asked, default=0.0)))
 
 
 def room_pulldown(

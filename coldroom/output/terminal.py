@@ -8,6 +8,7 @@ from __future__ import annotations
 
 from typing import TYPE_CHECKING, Any, Optional, Sequence
 
+from coldroom.constants import SECONDS_PER_DAY_S
 from coldroom.results import COMPONENTS, RoomLoads, Term
 
 if TYPE_CHECKING:  # pragma: no cover
@@ -54,9 +55,9 @@ def room_load_table(loads: RoomLoads, system: str) -> str:
     for component in COMPONENTS:
         energy = loads.component_energy(component)
         share = 100.0 * energy / total if total else 0.0
-        average = display(energy / 86400.0, "power", system, digits=0).rsplit(" ", 1)[0]
+        average = display(energy / SECONDS_PER_DAY_S, "power", system, digits=0).rsplit(" ", 1)[0]
         rows.append([component, format_number(energy / 3.6e6, 1), average, f"{share:.1f}"])
-    rows.append(["total", format_number(total / 3.6e6, 1), display(total / 86400.0, "power", system, digits=0).rsplit(" ", 1)[0], "100.0"])
+    rows.append(["total", format_number(total / 3.6e6, 1), display(total / SECONDS_PER_DAY_S, "power", system, digits=0).rsplit(" ", 1)[0], "100.0"])
     body = table(["component", "kWh/day", f"average {unit}", "share %"], rows, "lrrr")
     run_h = loads.run_time / 3600.0
     footer = [

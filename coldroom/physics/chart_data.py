@@ -29,6 +29,7 @@ from dataclasses import dataclass
 from functools import lru_cache
 from typing import Sequence
 
+from coldroom.constants import ZERO_CELSIUS_K
 from coldroom.errors import PropertyRangeError
 
 #: Lines of constant quality drawn inside the dome [1].
@@ -383,8 +384,8 @@ def _dew_temperature_floor(fluid, grid: Sequence[_Level], pressure: float) -> fl
     for a, b in zip(grid, grid[1:]):
         if a.pressure <= pressure <= b.pressure:
             f = math.log(pressure / a.pressure) / math.log(b.pressure / a.pressure)
-            ta, tb = a.temperatures[-1] + 273.15, b.temperatures[-1] + 273.15
-            return 1.0 / (1.0 / ta + f * (1.0 / tb - 1.0 / ta)) - 273.15 + 0.05
+            ta, tb = a.temperatures[-1] + ZERO_CELSIUS_K, b.temperatures[-1] + ZERO_CELSIUS_K
+            return 1.0 / (1.0 / ta + f * (1.0 / tb - 1.0 / ta)) - ZERO_CELSIUS_K + 0.05
     return None
 
 

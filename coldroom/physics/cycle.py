@@ -54,7 +54,7 @@ from coldroom.rules import (
     DISCHARGE_LIMIT,
     pressure_ratio_advisory,
 )
-from coldroom.constants import ZERO_CELSIUS_K
+from coldroom.constants import STANDARD_ATMOSPHERE_PA, ZERO_CELSIUS_K
 from coldroom.errors import CalculationError
 from coldroom.results import Note, Term
 from coldroom.physics.refrigerant import Fluid, StatePoint, coolprop_version, get_fluid
@@ -71,7 +71,6 @@ COMPRESSOR_POWER_BASIS = "electrical"
 #: GWP (AR4) from which EU Regulation 517/2014 annex III restricts new
 #: stationary refrigeration equipment (from 2020) [mem; verify].
 GWP_RESTRICTION = 2500.0
-STANDARD_ATMOSPHERE = 101325.0  # Pa, exact
 
 #: R-744 condensing temperatures at or above critical − this margin need the
 #: transcritical (gas cooler) description [K] (common practice, no source).
@@ -688,7 +687,7 @@ def _warnings(
     advisory = pressure_ratio_advisory(pressure_ratio, evaporating_temperature)
     if advisory is not None:
         out.append(advisory)
-    if suction_pressure < STANDARD_ATMOSPHERE:
+    if suction_pressure < STANDARD_ATMOSPHERE_PA:
         out.append(
             Note(
                 "suction pressure ", Term(suction_pressure, "pressure"),

@@ -38,6 +38,7 @@ from dataclasses import dataclass, field
 from functools import cached_property
 from typing import Any, Protocol, Sequence, runtime_checkable
 
+from coldroom.constants import ZERO_CELSIUS_K
 from coldroom.errors import CalculationError, unknown_name
 from coldroom.registry import Registry
 
@@ -328,7 +329,7 @@ def chang_tao_freezing_point(water: float, group: str) -> float:
         kelvin = 287.56 - 49.19 * x + 37.07 * x * x
     else:  # juice
         kelvin = 120.47 + 327.35 * x - 176.49 * x * x
-    return min(kelvin - 273.15, -0.2)
+    return min(kelvin - ZERO_CELSIUS_K, -0.2)
 
 
 _FREEZING_GROUP_NAMES = Registry("freezing-point group", {g: g for g in ("meat", "fruit_vegetable", "juice")})

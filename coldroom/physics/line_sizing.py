@@ -52,6 +52,7 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass, field
 
+from coldroom.constants import STANDARD_GRAVITY_M_S2
 from coldroom.data import tubes as tube_data
 from coldroom.errors import CalculationError
 from coldroom.results import Note
@@ -75,7 +76,6 @@ FITTINGS: dict[str, str] = {
     "check_valve": "Valve, Lift check",
 }
 
-GRAVITY = 9.80665  # m/s², standard (exact)
 LAMINAR_LIMIT = 2300.0  # Re [pub, any pipe-flow text]
 #: J* for the minimum-entrainment criterion [mem] (see module docstring).
 ENTRAINMENT_J_STAR = 0.85
@@ -394,7 +394,7 @@ def line_drop(
         fittings_k=k_sum,
         equivalent_length=equivalent_length,
         pressure_drop=drop,
-        static_pressure_change=density * GRAVITY * spec.rise,
+        static_pressure_change=density * STANDARD_GRAVITY_M_S2 * spec.rise,
         saturation_temperature_drop=saturation_temperature_drop(drop),
     )
 
@@ -418,7 +418,7 @@ def entrainment_velocity(inside_diameter: float, vapour_density: float, oil_dens
     >>> round(entrainment_velocity(0.026, 10.0), 2)   # 28 mm tube, suction vapour
     4.05
     """
-    return ENTRAINMENT_J_STAR * math.sqrt(GRAVITY * inside_diameter * (oil_density - vapour_density) / vapour_density)
+    return ENTRAINMENT_J_STAR * math.sqrt(STANDARD_GRAVITY_M_S2 * inside_diameter * (oil_density - vapour_density) / vapour_density)
 
 
 def size_line(

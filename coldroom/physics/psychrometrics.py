@@ -30,10 +30,10 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass
 
+from coldroom.constants import STANDARD_ATMOSPHERE_PA, ZERO_CELSIUS_K
 from coldroom.errors import CalculationError
 
 __all__ = [
-    "STANDARD_PRESSURE",
     "MoistAirState",
     "saturation_pressure_water",
     "saturation_pressure_ice",
@@ -52,10 +52,6 @@ __all__ = [
     "moist_air_state",
 ]
 
-STANDARD_PRESSURE = 101_325.0
-"""Standard atmospheric pressure at sea level [Pa] (Fundamentals, Psychrometrics, Table 1) [pub]."""
-
-_KELVIN = 273.15
 # Ratio of molar masses water/dry air, 18.015268/28.966 (Fundamentals, Psychrometrics eq. 22) [pub].
 _MOLAR_MASS_RATIO = 0.621945
 # Gas constant of dry air used in eq. 26, kJ/(kg·K) (Fundamentals, Psychrometrics eq. 26) [pub].
@@ -117,7 +113,7 @@ def saturation_pressure_ice(temperature: float) -> float:
     103.3
     """
     _check_range("temperature", temperature, -100.0, 0.01, "°C")
-    t = temperature + _KELVIN
+    t = temperature + ZERO_CELSIUS_K
     c1, c2, c3, c4, c5, c6, c7 = _ICE
     return math.exp(c1 / t + c2 + c3 * t + c4 * t**2 + c5 * t**3 + c6 * t**4 + c7 * math.log(t))
 
@@ -145,7 +141,7 @@ def saturation_pressure_water(temperature: float) -> float:
     2339
     """
     _check_range("temperature", temperature, -50.0, 200.0, "°C")
-    t = temperature + _KELVIN
+    t = temperature + ZERO_CELSIUS_K
     c8, c9, c10, c11, c12, c13 = _WATER
     return math.exp(c8 / t + c9 + c10 * t + c11 * t**2 + c12 * t**3 + c13 * math.log(t))
 
@@ -174,7 +170,7 @@ def saturation_pressure(temperature: float) -> float:
     return saturation_pressure_water(temperature)
 
 
-def humidity_ratio_from_vapour_pressure(vapour_pressure: float, pressure: float = STANDARD_PRESSURE) -> float:
+def humidity_ratio_from_vapour_pressure(vapour_pressure: float, pressure: float = STANDARD_ATMOSPHERE_PA) -> float:
     """Humidity ratio from the partial pressure of water vapour.
 
     W = 0.621945 p_w / (p − p_w), ASHRAE Fundamentals, Psychrometrics eq. 22 [pub].
@@ -200,7 +196,7 @@ def humidity_ratio_from_vapour_pressure(vapour_pressure: float, pressure: float 
     return _MOLAR_MASS_RATIO * vapour_pressure / (pressure - vapour_pressure)
 
 
-def saturation_humidity_ratio(temperature: float, pressure: float = STANDARD_PRESSURE) -> float:
+def saturation_humidity_ratio(temperature: float, pressure: float = STANDARD_ATMOSPHERE_PA) -> float:
     """Humidity ratio at saturation (over ice below 0 °C).
 
     ASHRAE Fundamentals, Psychrometrics eq. 23 [pub].
@@ -225,7 +221,7 @@ def saturation_humidity_ratio(temperature: float, pressure: float = STANDARD_PRE
     return humidity_ratio_from_vapour_pressure(saturation_pressure(temperature), pressure)
 
 
-def humidity_ratio(temperature: float, relative_humidity: float, pressure: float = STANDARD_PRESSURE) -> float:
+def humidity_ratio(temperature: float, relative_humidity: float, pressure: float = STANDARD_ATMOSPHERE_PA) -> float:
     """Humidity ratio from dry-bulb temperature and relative humidity.
 
     p_w = φ·p_ws(t) (Fundamentals, Psychrometrics eq. 24), then eq. 22 [pub].
@@ -253,7 +249,7 @@ def humidity_ratio(temperature: float, relative_humidity: float, pressure: float
     return humidity_ratio_from_vapour_pressure(relative_humidity * saturation_pressure(temperature), pressure)
 
 
-def relative_humidity(temperature: float, humidity_ratio_value: float, pressure: float = STANDARD_PRESSURE) -> float:
+def relative_humidity(temperature: float, humidity_ratio_value: float, pressure: float = STANDARD_ATMOSPHERE_PA) -> float:
     """Relative humidity from dry-bulb temperature and humidity ratio.
 
     Inverse of eq. 22: p_w = p·W/(0.621945 + W), φ = p_w/p_ws (Fundamentals,
@@ -288,7 +284,7 @@ def relative_humidity(temperature: float, humidity_ratio_value: float, pressure:
 
 
 def humidity_ratio_from_wet_bulb(
-    dry_bulb_temperature: float, wet_bulb_temperature: float, pressure: float = STANDARD_PRESSURE
+    dry_bulb_temperature: float, wet_bulb_temperature: float, pressure: float = STANDARD_ATMOSPHERE_PA
 ) -> float:
     """Humidity ratio from dry-bulb and thermodynamic wet-bulb temperatures.
 
@@ -345,7 +341,7 @@ def humidity_ratio_from_wet_bulb(
 
 
 def relative_humidity_from_wet_bulb(
-    dry_bulb_temperature: float, wet_bulb_temperature: float, pressure: float = STANDARD_PRESSURE
+    dry_bulb_temperature: float, wet_bulb_temperature: float, pressure: float = STANDARD_ATMOSPHERE_PA
 ) -> float:
     """Relative humidity from dry-bulb and thermodynamic wet-bulb temperatures.
 
@@ -403,7 +399,7 @@ def enthalpy(temperature: float, humidity_ratio_value: float) -> float:
     return 1000.0 * (1.006 * temperature + humidity_ratio_value * (2501.0 + 1.86 * temperature))
 
 
-def specific_volume(temperature: float, humidity_ratio_value: float, pressure: float = STANDARD_PRESSURE) -> float:
+def specific_volume(temperature: float, humidity_ratio_value: float, pressure: float = STANDARD_ATMOSPHERE_PA) -> float:
     """Specific volume of moist air per kg of dry air.
 
     v = 0.287042 (t + 273.15)(1 + 1.607858 W)/p  [m³/kg dry air; p in kPa],
@@ -431,10 +427,10 @@ def specific_volume(temperature: float, humidity_ratio_value: float, pressure: f
     _check_range("temperature", temperature, -100.0, 200.0, "°C")
     _check_range("pressure", pressure, 10_000.0, 200_000.0, "Pa")
     _check_finite("humidity ratio", humidity_ratio_value)
-    return _DRY_AIR_GAS_CONSTANT * (temperature + _KELVIN) * (1.0 + 1.607858 * humidity_ratio_value) / pressure
+    return _DRY_AIR_GAS_CONSTANT * (temperature + ZERO_CELSIUS_K) * (1.0 + 1.607858 * humidity_ratio_value) / pressure
 
 
-def dry_air_density(temperature: float, humidity_ratio_value: float, pressure: float = STANDARD_PRESSURE) -> float:
+def dry_air_density(temperature: float, humidity_ratio_value: float, pressure: float = STANDARD_ATMOSPHERE_PA) -> float:
     """Mass of dry air per m³ of moist air, 1/v (Fundamentals, Psychrometrics eq. 26) [pub].
 
     Parameters
@@ -459,7 +455,7 @@ def dry_air_density(temperature: float, humidity_ratio_value: float, pressure: f
     return 1.0 / specific_volume(temperature, humidity_ratio_value, pressure)
 
 
-def moist_air_density(temperature: float, humidity_ratio_value: float, pressure: float = STANDARD_PRESSURE) -> float:
+def moist_air_density(temperature: float, humidity_ratio_value: float, pressure: float = STANDARD_ATMOSPHERE_PA) -> float:
     """Mass of moist air (dry air + vapour) per m³, ρ = (1 + W)/v
     (Fundamentals, Psychrometrics eqs. 26 and 11) [pub].
 
@@ -508,7 +504,7 @@ def standard_pressure(altitude: float) -> float:
     89875
     """
     _check_range("altitude", altitude, -500.0, 6000.0, "m")
-    return 1000.0 * 101.325 * (1.0 - 2.25577e-5 * altitude) ** 5.2559
+    return STANDARD_ATMOSPHERE_PA * (1.0 - 2.25577e-5 * altitude) ** 5.2559
 
 
 @dataclass(frozen=True)
@@ -545,7 +541,7 @@ class MoistAirState:
     moist_air_density: float
 
 
-def moist_air_state(temperature: float, relative_humidity: float, pressure: float = STANDARD_PRESSURE) -> MoistAirState:
+def moist_air_state(temperature: float, relative_humidity: float, pressure: float = STANDARD_ATMOSPHERE_PA) -> MoistAirState:
     """All properties of moist air from dry bulb, relative humidity and pressure.
 
     Parameters
