@@ -64,6 +64,16 @@ def install_signal_handlers() -> None:
 
 
 _written: list[str] = []  # outputs finished in this run, for the interruption message
+_read: list[str] = []  # files this run reads besides the project (catalogue, weather): never written over
+
+
+def reading(*paths: object) -> None:
+    """Note files this run reads (a catalogue, the weather files): no output may be written over them."""
+    _read.extend(str(p) for p in paths if p is not None and str(p) not in _read)
+
+
+def _inputs(project: Optional[str]) -> list[str]:
+    return ([project] if project else []) + _read
 
 
 def _silence_stdout(stream=None) -> None:  # type: ignore[no-untyped-def]
@@ -122,6 +132,7 @@ def guarded(func: Callable[[], None]) -> None:
     :func:`coldroom.output.files.write_atomic` has removed its temporary file by then.
     """
     del _written[:]
+    del _read[:]
     try:
         func()
         sys.stdout.flush()
@@ -149,7 +160,7 @@ def check_outputs(*named: tuple[str, Optional[str]], force: bool, project: Optio
     """Check every output of a command before any work (see :func:`coldroom.output.files.check_targets`)."""
     from coldroom.output.files import check_targets
 
-    return check_targets(named, force=force, inputs=[project] if project else [])
+    return check_targets(named, force=force, inputs=_inputs(project))
 
 
 def console_for(*targets) -> object:  # type: ignore[no-untyped-def]
@@ -172,7 +183,7 @@ def write_output(target, data, *, force: bool, project: Optional[str], console) 
 
     if target.kind == "stdout":
         console.flush()
-    write_atomic(target.name, data, force=force, inputs=[project] if project else [])
+    write_atomic(target.name, data, force=force, inputs=_inputs(project))
     if target.kind != "stdout":
         _written.append(target.name)
         say(f"wrote {target.name}", file=console)
@@ -249,7 +260,10 @@ def load_command(
         from coldroom.output.terminal import loads_report
         from coldroom.units import format_terms
 
-        model = open_project(project).model
+        opened = open_project(project)
+        model = opened.model
+        reading(*opened.inputs)
+        (json_target,) = check_outputs(("--json", json_out), force=force, project=project)
         rooms = project_loads(model)
         warnings = [message for _, message in project_warnings(model)]
         payload = {
@@ -364,6 +378,11 @@ def size_command(
 
         opened = open_project(project)
         model = opened.model
+        reading(*opened.inputs)
+        pdf_target, json_target = check_outputs(
+            ("--out", out if out is not None else str(source.with_suffix(".pdf"))), ("--json", json_out),
+            force=force, project=project,
+        )
         from coldroom.output.pdf.sheet import render_sheet  # reportlab, lazily
         from coldroom.design.sizing import size_project  # CoolProp, lazily
         from coldroom.output.terminal import size_summary
@@ -404,6 +423,8 @@ def compare_command(
         pdf_target, json_target = check_outputs(("--out", out), ("--json", json_out), force=force, project=project)
         opened = open_project(project)
         raw, model = opened.content, opened.model
+        reading(*opened.inputs)  # the weather files of the base and of every option
+        pdf_target, json_target = check_outputs(("--out", out), ("--json", json_out), force=force, project=project)
         if model.design.weather is None and model.design.ambient_bins is None:
             raise load_yaml(raw, filename=project).error(
                 "compare needs the year's ambient: design.weather (an EPW file) or design.ambient_bins",
@@ -521,6 +542,16 @@ def cycle_command(
             lookup(refrigerant)
         te = value("--evaporating", evaporating, "temperature", "°C")
         tc = value("--condensing", condensing, "temperature", "°C")
+        for option, text in (("--suction-pressure", suction_pressure), ("--discharge-pressure", discharge_pressure)):
+            try:
+                float((text or "").strip())
+            except ValueError:
+                continue
+            # a gauge reading typed without its unit (45 psig as "45") would be read as 45 kPa absolute
+            raise UsageError(
+                f"{option} {text!r} has no unit: give one, e.g. '{text.strip()} psig' or '{text.strip()} bar(g)' "
+                f"(gauge), '{text.strip()} kPa' or '{text.strip()} bar' (absolute)"
+            )
         p_suction = value("--suction-pressure", suction_pressure, "pressure", "kPa")
         p_discharge = value("--discharge-pressure", discharge_pressure, "pressure", "kPa")
         q = value("--capacity", capacity, "power", "W")
@@ -565,11 +596,27 @@ def cycle_command(
 
         evap = te if te is not None else dew(p_suction, "--suction-pressure")  # type: ignore[arg-type]
         cond, high_side = tc, None
-        if p_discharge is not None:
-            if fluid.info.name == "R-744" and p_discharge >= fluid.critical_pressure:
+        if fluid.info.name == "R-744":
+            from coldroom.physics.cycle import r744_boundary, r744_transcritical
+
+            t_edge, p_edge = r744_boundary()
+            edge = (f"R-744's transcritical boundary ({p_edge / 1e5:.2f} bar absolute, {t_edge:.1f} °C; critical "
+                    f"{fluid.critical_pressure / 1e5:.2f} bar, {fluid.critical_temperature:.1f} °C)")
+            if p_discharge is not None and r744_transcritical(pressure=p_discharge):
+                if p_discharge <= fluid.critical_pressure:
+                    raise CalculationError(f"--discharge-pressure {p_discharge / 1e5:.2f} bar absolute lies between "
+                                           f"{edge} and the critical pressure: neither a condensing nor a "
+                                           "gas-cooler pressure; measure again or give --condensing")
+                if tgc is None:
+                    raise UsageError(f"--discharge-pressure {p_discharge / 1e5:.2f} bar absolute is above {edge}: "
+                                     "the cycle is transcritical; give the gas-cooler outlet temperature with "
+                                     "--gas-cooler-outlet")
                 high_side = p_discharge
-            else:
-                cond = dew(p_discharge, "--discharge-pressure")
+            elif tc is not None and tgc is None and r744_transcritical(tc):
+                raise UsageError(f"--condensing {tc:g} °C is at or above {edge}: the cycle is transcritical; "
+                                 "give the gas-cooler outlet temperature with --gas-cooler-outlet")
+        if p_discharge is not None and high_side is None:
+            cond = dew(p_discharge, "--discharge-pressure")
         with command_line_values():  # a dew point from a measured pressure is checked by the cycle itself
             check_cycle_inputs(te, q, sh, sc, isentropic_efficiency, slsh, clearance=clearance)  # type: ignore[arg-type]
         try:
@@ -625,7 +672,10 @@ def check_command(
 
         from coldroom.inputs.opening import open_project
 
-        model = open_project(project).model
+        opened = open_project(project)
+        model = opened.model
+        reading(*opened.inputs)
+        (json_target,) = check_outputs(("--json", json_out), force=force, project=project)
         from coldroom.design.sizing import existing_unit_checks  # CoolProp, lazily
         from coldroom.output.terminal import check_report
         from coldroom.design.unit_limits import unit_limits
@@ -670,15 +720,15 @@ def select_command(
     """Choose unit coolers and the cheapest condensing unit that holds, per system, from a catalogue."""
 
     def run() -> None:
-        from coldroom.output.files import check_targets
-
-        pdf_target, json_target = check_targets(
-            (("--out", out), ("--json", json_out)), force=force, inputs=[project, catalogue]
-        )
+        reading(catalogue)
+        pdf_target, json_target = check_outputs(("--out", out), ("--json", json_out), force=force, project=project)
         from coldroom.inputs.catalogue import load_catalogue
         from coldroom.inputs.opening import open_project
 
-        model = open_project(project).model
+        opened = open_project(project)
+        model = opened.model
+        reading(*opened.inputs)
+        pdf_target, json_target = check_outputs(("--out", out), ("--json", json_out), force=force, project=project)
         equipment = load_catalogue(catalogue)
         from coldroom.design.selection import select_project  # CoolProp, lazily
         from coldroom.output.terminal import selection_report

@@ -43,7 +43,7 @@ from __future__ import annotations
 
 import bisect
 import math
-from dataclasses import dataclass, field
+from dataclasses import dataclass, field, replace
 from pathlib import Path
 from typing import TYPE_CHECKING, Any, Optional, Sequence
 
@@ -142,6 +142,10 @@ class OptionYear:
     tewi: Optional["Tewi"]
     economics: dict
     warnings: tuple = field(default=())
+    #: Where this option's ambient came from when it differs from the base's (its own weather file or
+    #: bins), else "" (the comparison's ambient_source).
+    ambient_source: str = ""
+    bins: tuple = ()
 
     @property
     def annual_energy(self) -> float:
@@ -194,6 +198,9 @@ class OptionYear:
             ],
             "warnings": list(self.warnings),
         }
+        if self.ambient_source:  # an option with its own climate names it
+            out["ambient_source"] = self.ambient_source
+            out["ambient_bins"] = [{"temperature_c": b.temperature, "hours_h": b.hours} for b in self.bins]
         if base is not None and self is not base:
             bt = base.tewi
             out["difference_to_base"] = {
@@ -215,7 +222,7 @@ def ambient_bins(model: "ProjectModel", cache: Optional[dict] = None) -> tuple[t
         No ``design.weather`` nor ``design.ambient_bins``; or the EPW file is bad (its line named).
     """
     from coldroom.errors import ProjectFileError
-    from coldroom.inputs.weather import bins_from_hours, read_epw
+    from coldroom.inputs.weather import bins_from_hours, read_epw, weather_path
 
     d = model.design
     if d.ambient_bins is not None:
@@ -224,9 +231,8 @@ def ambient_bins(model: "ProjectModel", cache: Optional[dict] = None) -> tuple[t
         raise ProjectFileError(
             "the annual energy needs design.weather (an EPW file) or design.ambient_bins", key="design"
         )
-    path = Path(d.weather)
-    if not path.is_absolute():
-        path = Path(model._folder or ".") / path
+    path = weather_path(model)
+    assert path is not None
     key = str(path.resolve())
     if cache is not None and key in cache:
         return cache[key]
@@ -361,11 +367,34 @@ def system_year(
         xs = _grid(min(values), max(values), CYCLE_GRID_STEP, exact)
         xs = [x for x in xs if min(values) - CYCLE_GRID_STEP < x < max(values) + CYCLE_GRID_STEP] or [exact]
         pairs = []
+        failed = []
         for x in xs:
             try:
                 pairs.append((x, solved(x, transcritical)))
             except CalculationError:
-                continue
+                failed.append(x)
+        if failed:
+            # a grid point with no cycle: a bin beside it is solved at its own point, never
+            # extrapolated across the gap; a bin with no cycle at all is named (exit 1)
+            lost: dict[float, str] = {}
+            for value in sorted(set(values)):
+                if any(abs(value - x) < CYCLE_GRID_STEP for x in failed):
+                    try:
+                        pairs.append((value, solved(value, transcritical)))
+                    except CalculationError as exc:
+                        lost[value] = str(exc)
+            if lost:
+                ambients = sorted(t for t, point in zip(temps, points)
+                                  if (point[1] if transcritical else point[0]) in lost)
+                what = "gas-cooler outlet" if transcritical else "condensing"
+                first = min(lost)
+                raise CalculationError(
+                    f"system {name!r}: no cycle at the ambient bin{'s' if len(ambients) > 1 else ''} "
+                    f"{', '.join(f'{t:g}' for t in ambients)} °C ({what} {first:g} °C and above: {lost[first]}); "
+                    "the year cannot be counted (lower the condenser temperature difference, or give bins the "
+                    "unit can run at)"
+                )
+            pairs.sort(key=lambda pair: pair[0])
         if not pairs:
             raise CalculationError(f"system {name!r}: no cycle solves over the year's ambients")
         tables[transcritical] = ([p[0] for p in pairs], [p[1][0] for p in pairs], [p[1][1] for p in pairs])
@@ -545,13 +574,16 @@ def compare(model: "ProjectModel") -> Comparison:
     bins, source = ambient_bins(model, ctx.weather)
     results = [option_year(model, "base", "the project as written", ctx, bins)]
     for name, note, option_model in model._option_models:
-        own_bins = bins
+        own_bins, own_source = bins, ""
         if (option_model.design.weather, option_model.design.ambient_bins) != (
             model.design.weather, model.design.ambient_bins
         ):
-            own_bins = ambient_bins(option_model, ctx.weather)[0]
+            own_bins, own_source = ambient_bins(option_model, ctx.weather)
         try:
-            results.append(option_year(option_model, name, note, ctx, own_bins))
+            year = option_year(option_model, name, note, ctx, own_bins)
         except CalculationError as exc:
             raise type(exc)(f"option {name!r}: {exc}") from None
+        if own_source:
+            year = replace(year, ambient_source=own_source, bins=tuple(own_bins))
+        results.append(year)
     return Comparison(model.project.name, source, tuple(bins), tuple(results))

@@ -323,6 +323,15 @@ def catalogue_from_rows(rows: Sequence[Sequence[Any]], filename: str, *, letters
     data: dict[str, Any] = {group: [] for group in KINDS.values()}
     currency: Optional[tuple[str, int]] = None
     for r, values in enumerate(rows[1:], start=2):
+        for i, value in enumerate(values):
+            if (i >= len(header) or not header[i]) and _cell("", value) is not None:
+                # an unquoted "1,490" splits into two cells: the extra one is never dropped in silence
+                raise ProjectFileError(
+                    f"{value!r} stands in a column with no name in the first row (the row has {len(values)} "
+                    f"cells, the first row names {sum(1 for h in header if h)} columns): a number written with a "
+                    "thousands comma (1,490)? write 1490, or quote the cell, or name the column",
+                    file=filename, line=r, column=_column_label(i, letters),
+                )
         cells = {h: _cell(h, v) for h, v in zip(header, values) if h}
         if all(v is None for v in cells.values()):
             continue

@@ -42,6 +42,19 @@ class OpenProject:
     content: bytes
     model: "ProjectModel"
 
+    @property
+    def inputs(self) -> tuple[str, ...]:
+        """Every file a run on this project reads: the project file and the weather files of the base and
+        of each option (no output may be written over any of them)."""
+        from coldroom.inputs.weather import weather_path
+
+        files = [self.path]
+        for model in (self.model, *(option for _name, _note, option in self.model._option_models)):
+            path = weather_path(model)
+            if path is not None and str(path) not in files:
+                files.append(str(path))
+        return tuple(files)
+
 
 def open_project_data(data: object, filename: str = "<input>", loaded: object = None) -> "ProjectModel":
     """Validate and check already-loaded YAML data (*loaded*, when given, supplies file positions).

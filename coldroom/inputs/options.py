@@ -173,5 +173,19 @@ def validate_options(model: "ProjectModel", data: Mapping[str, Any], filename: s
                     path = here + (key,)
                     break
             raise located(f"{where}: {exc.message}" if where else exc.message, path) from None
+        for keys, label, base_value, value, why in (
+            (("project", "units"), "project.units", model.project.units, result.project.units,
+             "the base's bare numbers are written in its own units and would be read in the other system; "
+             "give the option's values with their units instead"),
+            (("economics", "currency"), "the currency", model.economics.currency, result.economics.currency,
+             "money in two currencies cannot be compared or subtracted; give the option's prices in the "
+             "base's currency"),
+        ):
+            if value != base_value:
+                change = next((key for key, path in reached.items()
+                               if tuple(path[: len(keys)]) == keys[: len(path)]), None)
+                shown = lambda v: repr(v) if v is not None else "not given"  # noqa: E731
+                raise located(f"an option cannot change {label} ({shown(base_value)} in the base, "
+                              f"{shown(value)} here): {why}", here + ((change,) if change else ()))
         results.append((option.name, option.note, result))
     model._option_models = results

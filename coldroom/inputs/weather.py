@@ -26,7 +26,7 @@ import csv
 import math
 from dataclasses import dataclass
 from pathlib import Path
-from typing import Iterable, Sequence
+from typing import Any, Iterable, Optional, Sequence
 
 from coldroom.errors import ProjectFileError
 
@@ -74,6 +74,22 @@ class Weather:
 
     location: str
     dry_bulb: tuple[float, ...]
+
+
+def weather_path(model: Any) -> Optional[Path]:
+    """The EPW file a project (or one option) reads, relative names resolved against its folder; None if none.
+
+    Examples
+    --------
+    >>> from types import SimpleNamespace as NS
+    >>> weather_path(NS(design=NS(weather="w.epw"), _folder="/jobs")).as_posix()
+    '/jobs/w.epw'
+    """
+    name = getattr(model.design, "weather", None)
+    if name is None:
+        return None
+    path = Path(name)
+    return path if path.is_absolute() else Path(getattr(model, "_folder", "") or ".") / path
 
 
 def read_epw(path: str | Path) -> Weather:

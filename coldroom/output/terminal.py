@@ -233,6 +233,8 @@ def compare_text(comparison: Any, system: str) -> str:
         f"{comparison.project_name}: options compared over a year",
         f"ambient: {comparison.ambient_source}, {len(comparison.bins)} bins, "
         f"{sum(b.hours for b in comparison.bins):,.0f} h",
+        *(f"ambient of option {o.name}: {o.ambient_source}, {len(o.bins)} bins, {sum(b.hours for b in o.bins):,.0f} h"
+          for o in comparison.options if o.ambient_source),
         "economics: "
         + ", ".join([
             m("electricity_price", f"{econ['electricity_price']:g} {econ['currency']}/kWh"),

@@ -46,6 +46,7 @@ Examples
 from __future__ import annotations
 
 import math
+from functools import lru_cache
 from dataclasses import dataclass, replace
 
 from coldroom.rules import (
@@ -73,23 +74,46 @@ COMPRESSOR_POWER_BASIS = "electrical"
 GWP_RESTRICTION = 2500.0
 
 #: R-744 condensing temperatures at or above critical − this margin need the
-#: transcritical (gas cooler) description [K] (common practice, no source).
-R744_SUBCRITICAL_MARGIN = 1.0
+#: transcritical (gas cooler) description [K] (common practice, no source). Half a kelvin:
+#: the subcooled liquid below it still solves (up to about critical − 0.2 K with this
+#: property model), and a measured discharge pressure of 72.5 bar (dew 30.2 °C) is read as
+#: condensing, as a technician reading a subcritical gauge expects.
+R744_SUBCRITICAL_MARGIN = 0.5
 
 
-def r744_transcritical(condensing_temperature: float) -> bool:
-    """Whether an R-744 cycle condensing at this dew temperature [°C] must be sized transcritical.
+@lru_cache(maxsize=1)
+def r744_boundary() -> tuple[float, float]:
+    """The R-744 transcritical boundary: (dew temperature [°C], pressure [Pa]).
 
-    The one place that draws the boundary: at or above the critical temperature
-    less :data:`R744_SUBCRITICAL_MARGIN` the heat is rejected in a gas cooler
-    (:func:`solve_cycle` refuses a condensing temperature there).
+    Critical temperature less :data:`R744_SUBCRITICAL_MARGIN`, and the dew
+    pressure there.
+    """
+    fluid = get_fluid("R-744")
+    temperature = fluid.critical_temperature - R744_SUBCRITICAL_MARGIN
+    return temperature, fluid.dew_pressure(temperature)
+
+
+def r744_transcritical(condensing_temperature: float | None = None, *, pressure: float | None = None) -> bool:
+    """Whether an R-744 cycle condensing at this dew temperature [°C] (or with this high-side
+    pressure [Pa]) must be sized transcritical.
+
+    The one place that draws the boundary (:func:`r744_boundary`), for the sizing, the
+    cycle and the command line's measured discharge pressure alike: at or above it the heat
+    is rejected in a gas cooler (:func:`solve_cycle` refuses a condensing temperature there).
 
     Examples
     --------
-    >>> r744_transcritical(25.0), r744_transcritical(30.0)
+    >>> r744_transcritical(25.0), r744_transcritical(30.0), r744_transcritical(30.5)
+    (False, False, True)
+    >>> r744_transcritical(pressure=72.5e5), r744_transcritical(pressure=74e5)
     (False, True)
     """
-    return condensing_temperature >= get_fluid("R-744").critical_temperature - R744_SUBCRITICAL_MARGIN
+    temperature, boundary_pressure = r744_boundary()
+    if pressure is not None:
+        return pressure >= boundary_pressure
+    if condensing_temperature is None:
+        raise ValueError("give a condensing temperature or a pressure")
+    return condensing_temperature >= temperature
 
 
 @dataclass(frozen=True)
@@ -455,9 +479,13 @@ def solve_cycle(
         limit = fluid.critical_temperature - R744_SUBCRITICAL_MARGIN
         if gas_cooler_outlet_temperature is not None:
             transcritical = True
-        elif condensing_temperature is None or r744_transcritical(condensing_temperature):
+        elif condensing_temperature is None:
             raise CalculationError(
-                f"R-744 condensing at {condensing_temperature} °C is at or above {limit:.1f} °C "
+                "R-744 without a condensing temperature is a transcritical cycle: give the gas-cooler outlet temperature"
+            )
+        elif r744_transcritical(condensing_temperature):
+            raise CalculationError(
+                f"R-744 condensing at {condensing_temperature:.2f} °C is at or above {limit:.1f} °C "
                 f"(critical {fluid.critical_temperature:.1f} °C): the cycle is transcritical; "
                 "give the gas-cooler outlet temperature"
             )

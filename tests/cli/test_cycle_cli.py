@@ -132,7 +132,7 @@ def test_table_output():
           "--isentropic-efficiency", "0"], 2, "isentropic efficiency"),
         (["-r", "R134a", "--evaporating", "-10", "--condensing", "40", "--capacity", "5 furlongs"], 2, "unit"),
         (["-r", "R134a", "--evaporating", "50", "--condensing", "40", "--capacity", "5 kW"], 1, "condensing"),
-        (["-r", "R744", "--evaporating", "-10", "--condensing", "40", "--capacity", "5 kW"], 1, "transcritical"),
+        (["-r", "R744", "--evaporating", "-10", "--condensing", "40", "--capacity", "5 kW"], 2, "--gas-cooler-outlet"),
         (["-r", "R134a", "--evaporating", "-10", "--capacity", "5 kW"], 2, "condensing"),
         (["-r", "R134a", "--evaporating", "-10", "--condensing", "40"], 2, "capacity"),
     ],

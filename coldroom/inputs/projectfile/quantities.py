@@ -9,11 +9,12 @@ range is refused naming the value and the range in the file's units.
 from __future__ import annotations
 
 import re
+import types as _types
 from contextvars import ContextVar
 from functools import partial
-from typing import Annotated, Any, Union
+from typing import Annotated, Any, Union, get_args, get_origin
 
-from pydantic import AfterValidator, BaseModel, BeforeValidator, ConfigDict, ValidationInfo
+from pydantic import AfterValidator, BaseModel, BeforeValidator, ConfigDict, ValidationInfo, field_validator
 from pydantic_core import PydanticCustomError
 
 from coldroom import units as _units
@@ -150,7 +151,33 @@ Rating = Q("power", ge=10.0, le=1e6)
 Mass = Q("mass", ge=0.0, le=1e7)
 
 
+def _takes_numbers(annotation: Any) -> bool:
+    """Whether a field of this annotation holds a number (float or int, maybe optional), not a yes/no."""
+    if annotation in (float, int):
+        return True
+    args = get_args(annotation)
+    if get_origin(annotation) in (Union, _types.UnionType) and bool not in args:
+        return any(arg in (float, int) for arg in args)
+    return False
+
+
 class Strict(BaseModel):
-    """Base for every model: unknown keys forbidden, no NaN/inf, frozen."""
+    """Base for every model: unknown keys forbidden, no NaN/inf, frozen; no true/false where a number goes."""
 
     model_config = ConfigDict(extra="forbid", allow_inf_nan=False, frozen=True, str_strip_whitespace=True)
+
+    @field_validator("*", mode="before")
+    @classmethod
+    def _no_yes_no_numbers(cls, value: Any, info: ValidationInfo) -> Any:
+        # pydantic reads true/false as 1/0 in a float field (an isentropic efficiency of
+        # `true` becomes an ideal compressor): the one place every number field refuses them,
+        # the quantity fields of Q() included
+        if isinstance(value, bool) and info.field_name is not None:
+            field = cls.model_fields.get(info.field_name)
+            if field is not None and _takes_numbers(field.annotation):
+                raise PydanticCustomError(
+                    "coldroom_boolean",
+                    "{value} is a yes/no value where a number is expected; write the number",
+                    {"value": "true" if value else "false"},
+                )
+        return value

@@ -53,6 +53,8 @@ def _basis_rows(comparison: Any, system: str = "SI") -> list[list[str]]:
         ["Ambient", f"{comparison.ambient_source}: {len(comparison.bins)} bins, "
                     f"{hours:,.0f} h, {temperature(low, system)} to {temperature(high, system)} "
                     "(an EPW file's hours are binned at 1 K)"],
+        *([f"Ambient of {o.name}", f"{o.ambient_source}: {len(o.bins)} bins, {sum(b.hours for b in o.bins):,.0f} h"]
+          for o in comparison.options if o.ambient_source),
         ["Electricity price", m("electricity_price", f"{econ['electricity_price']:g} {econ['currency']} per kWh")],
         ["Grid emission factor", m("emission_factor", f"{econ['emission_factor']:g} kg CO2e per kWh")],
         ["Service life", m("service_life", f"{econ['service_life']:g} years")],
