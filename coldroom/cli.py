@@ -764,6 +764,69 @@ def select_command(
     guarded(run)
 
 
+@app.command("quote")
+def quote_command(
+    project: str = typer.Argument(..., help="Project file (YAML), with a quote: block."),
+    catalogue: str = typer.Option(..., "--catalogue", help="Catalogue with prices (.yaml, .csv or .xlsx).",
+                                  metavar="FILE"),
+    out: Optional[str] = typer.Option(None, "--out", help="Write the proposal for the customer (PDF).",
+                                      metavar="FILE.pdf"),
+    costing: Optional[str] = typer.Option(None, "--costing", help="Write the costing workbook (XLSX).",
+                                          metavar="FILE.xlsx"),
+    json_out: Optional[str] = typer.Option(
+        None, "--json", help="Also write the quote as JSON to FILE ('-' for stdout).", metavar="FILE"
+    ),
+    force: bool = typer.Option(False, "--force", help="Overwrite existing output files."),
+) -> None:
+    """Select the equipment, then price the whole job: bill of quantities, valves, electrical schedule."""
+
+    def run() -> None:
+        from coldroom.output.files import check_targets
+
+        pdf_target, xlsx_target, json_target = check_targets(
+            (("--out", out), ("--costing", costing), ("--json", json_out)), force=force, inputs=[project, catalogue]
+        )
+        from pathlib import Path
+
+        from coldroom.inputs.catalogue import load_catalogue
+        from coldroom.inputs.opening import open_project
+
+        model = open_project(project).model
+        equipment = load_catalogue(catalogue)
+        from coldroom.design.quote import build_quote
+        from coldroom.design.selection import NothingFitsError, select_project
+        from coldroom.design.sizing import size_project
+        from coldroom.output.quote_text import quote_report
+        from coldroom.units import format_terms
+
+        try:
+            selections = select_project(model, equipment)
+        except NothingFitsError as exc:
+            raise NothingFitsError(format_terms(exc.args[0], model.project.units)) from None
+        result = size_project(model, project, Path(project).read_bytes())
+        quote = build_quote(model, equipment, result, selections)
+        console = console_for(pdf_target, xlsx_target, json_target)
+        say(quote_report(quote), file=console)
+        if pdf_target is not None:
+            from coldroom.output.pdf.proposal import render_proposal  # reportlab, lazily
+
+            write_output(pdf_target, render_proposal(quote, result, model), force=force, project=project,
+                         console=console)
+        if xlsx_target is not None:
+            from coldroom.output.costing import costing_workbook  # openpyxl, lazily
+
+            write_output(xlsx_target, costing_workbook(quote, model), force=force, project=project, console=console)
+        if json_target is not None:
+            data = {
+                "project": {"name": model.project.name, "unit_system": model.project.units, "input_file": project},
+                "catalogue": catalogue,
+                "quote": quote.to_json(),
+            }
+            emit_json(data, json_target, force=force, project=project, console=console)
+
+    guarded(run)
+
+
 def main() -> None:
     """Console-script entry point.
 

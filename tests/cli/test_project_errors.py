@@ -111,7 +111,8 @@ def test_schema_is_json_schema_with_our_keys() -> None:
     assert result.returncode == 0
     schema = json.loads(result.stdout)
     assert schema["title"] == "coldroom project file"
-    assert set(schema["properties"]) == {"project", "design", "constructions", "rooms", "systems", "economics", "options"}
+    assert set(schema["properties"]) == {"project", "design", "constructions", "rooms", "systems", "economics", "quote",
+                                         "options"}
     assert schema["additionalProperties"] is False
 
 

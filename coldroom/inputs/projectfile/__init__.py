@@ -19,6 +19,7 @@ Layout of a project file (all keys are ours; see ``coldroom new``)::
     rooms:        [room, ...]
     systems:      [{name, rooms: [room names], refrigerant, condenser settings, diversity}, ...]
     economics:    electricity_price, currency, emission_factor, service_life, leakage_rate, recovery_factor
+    quote:        margin, tax_rate, labour_rate, validity, exclusions, terms, electrical_code (coldroom quote)
     options:      [{name, note, changes: {dotted.path: value}}, ...]  (see coldroom.inputs.options)
 
 One module per part of the file; this package re-exports the names callers use:
@@ -31,6 +32,7 @@ One module per part of the file; this package re-exports the names callers use:
 - ``schedule``: the design day hour by hour and the pull-down options;
 - ``room``: one room and its derived geometry;
 - ``model``: the whole project (``ProjectModel``), economics, options, system groups;
+- ``quote``: the ``quote:`` block (``QuoteSettings``);
 - ``parsing``: validation with located errors, the JSON Schema.
 
 Examples
@@ -119,6 +121,7 @@ from coldroom.inputs.projectfile.refrigeration import (
 from coldroom.inputs.projectfile.schedule import Delivery, DoorWindow, HourOfDay, Pulldown, Schedule, Window
 from coldroom.inputs.projectfile.room import Room
 from coldroom.inputs.projectfile.model import Economics, Option, ProjectModel
+from coldroom.inputs.projectfile.quote import QuoteSettings
 from coldroom.inputs.projectfile.parsing import error_at, json_schema, parse_project_data, parse_project_text
 
 __all__ = [
@@ -166,6 +169,7 @@ __all__ = [
     "ProjectModel",
     "Pulldown",
     "Q",
+    "QuoteSettings",
     "ROOM_LEVEL_KEYS",
     "RatedPoint",
     "RatingTable",

@@ -8,6 +8,7 @@ from pydantic import Field, PrivateAttr, field_validator, model_validator
 
 from coldroom.inputs.projectfile.envelope import SIDES, Construction
 from coldroom.inputs.projectfile.quantities import Q, Strict
+from coldroom.inputs.projectfile.quote import QuoteSettings
 from coldroom.inputs.projectfile.refrigeration import ROOM_LEVEL_KEYS, CondensingSettings, Refrigeration, System
 from coldroom.inputs.projectfile.room import Room
 from coldroom.inputs.projectfile.site import DesignConditions, ProjectInfo
@@ -60,6 +61,7 @@ class ProjectModel(Strict):
         description="Rooms sharing a compressor; a room in none forms a system of its own named after the room.",
     )
     economics: Economics = Economics()
+    quote: Optional[QuoteSettings] = None
     options: list[Option] = Field(default_factory=list, max_length=20)
     #: The validated projects of ``options`` (name, note, model), filled by :func:`parse_project_data`.
     _option_models: list[tuple[str, str, "ProjectModel"]] = PrivateAttr(default_factory=list)

@@ -42,11 +42,13 @@ VALVES = [  # model, refrigerant, rated capacity [W] at −10 °C / 38 °C, 1 K 
     ("TXV-A35", "R-448A", 10500.0, 139), ("TXV-P05", "R-290", 1800.0, 112), ("TXV-P10", "R-290", 3600.0, 124),
 ]
 ACCESSORIES = [  # model, role, connection [mm], price
-    ("FD-052", "filter_drier", 6.0, 18), ("FD-053", "filter_drier", 10.0, 21), ("FD-084", "filter_drier", 12.0, 27),
-    ("FD-165", "filter_drier", 15.0, 34), ("SG-06", "sight_glass", 6.0, 22), ("SG-10", "sight_glass", 10.0, 24),
+    ("FD-052", "filter_drier", 6.0, 18), ("FD-032", "filter_drier", 8.0, 19), ("FD-053", "filter_drier", 10.0, 21), ("FD-084", "filter_drier", 12.0, 27),
+    ("FD-165", "filter_drier", 15.0, 34), ("SG-06", "sight_glass", 6.0, 22), ("SG-08", "sight_glass", 8.0, 23), ("SG-10", "sight_glass", 10.0, 24),
     ("SG-12", "sight_glass", 12.0, 28), ("SG-15", "sight_glass", 15.0, 33), ("SV-06", "solenoid_valve", 6.0, 58),
+    ("SV-08", "solenoid_valve", 8.0, 61),
     ("SV-10", "solenoid_valve", 10.0, 64), ("SV-12", "solenoid_valve", 12.0, 72), ("SV-15", "solenoid_valve", 15.0, 85),
     ("EPR-12", "pressure_regulator", 12.0, 145), ("EPR-15", "pressure_regulator", 15.0, 168),
+    ("EPR-18", "pressure_regulator", 18.0, 184),
     ("EPR-22", "pressure_regulator", 22.0, 205),
 ]
 ISOLATORS = [("ISO-4", 4000.0, 24), ("ISO-7", 7500.0, 31), ("ISO-15", 15000.0, 46)]  # AC-23A rating [W]

@@ -1,0 +1,44 @@
+"""The terminal summary of ``coldroom quote``: the bill of quantities by section, the totals, what is missing."""
+
+from __future__ import annotations
+
+from typing import TYPE_CHECKING
+
+if TYPE_CHECKING:  # pragma: no cover
+    from coldroom.design.quote import Quote
+
+
+def money(value: float, currency: str) -> str:
+    """A price with a thin thousands separator and two decimals: ``12 345.60 EUR``."""
+    return f"{value:,.2f}".replace(",", " ") + f" {currency}"
+
+
+def quantity_text(value: float, unit: str) -> str:
+    return f"{value:g} {unit}" if unit in ("item",) else f"{value:.2f} {unit}"
+
+
+def quote_report(quote: "Quote") -> str:
+    """Plain text: one row per line, totals, missing prices and warnings."""
+    c = quote.currency
+    rows = []
+    section = None
+    for line in quote.lines:
+        if line.section != section:
+            section = line.section
+            rows.append(f"{section.upper()}")
+        price = money(line.total_price, c) if line.total_price is not None else "PRICE NEEDED"
+        model = f" [{line.model}]" if line.model else ""
+        rows.append(f"  {line.item}{model}: {quantity_text(line.quantity, line.unit)}  {price}")
+    rows += [
+        "",
+        f"subtotal          {money(quote.subtotal_price, c)}",
+        f"margin {quote.margin * 100:5.1f} %    {money(quote.margin_price, c)}",
+        f"tax {quote.tax_rate * 100:5.1f} %       {money(quote.tax_price, c)}",
+        f"total             {money(quote.total_price, c)}",
+    ]
+    if not quote.complete:
+        rows.append(f"INCOMPLETE: {len(quote.missing_prices)} line(s) need a price: " + "; ".join(quote.missing_prices))
+    for schedule in quote.electrical:
+        rows.append(f"electrical, {schedule.system}: total running current {schedule.total_running_current:.1f} A")
+    rows += [f"  WARNING: {w}" for w in quote.warnings]
+    return "\n".join(rows)
