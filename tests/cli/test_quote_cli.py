@@ -102,3 +102,55 @@ def test_a_missing_price_leaves_the_quote_incomplete(tmp_path: Path) -> None:
     assert missing["item"] == "insulated panel 150 mm" and missing["total_price"] is None
     assert quote["missing_prices"] == ["panels: insulated panel 150 mm"]
     assert quote["subtotal_price"] == pytest.approx(sum(x["total_price"] for x in quote["lines"] if x["total_price"]))
+
+
+def _evaluate(sheet, formula: str) -> float:  # type: ignore[no-untyped-def]
+    """The few formula shapes the costing workbook writes, evaluated from their input cells."""
+    import re
+
+    def value(ref: str) -> float:
+        v = sheet[ref].value
+        return _evaluate(sheet, v) if isinstance(v, str) and v.startswith("=") else v
+
+    if m := re.fullmatch(r'=IF\((F\d+)="","",(D\d+)\*(F\d+)\)', formula):
+        return 0.0 if sheet[m[1]].value is None else value(m[2]) * value(m[3])
+    if m := re.fullmatch(r"=SUM\(G(\d+):G(\d+)\)", formula):
+        return sum(value(f"G{r}") for r in range(int(m[1]), int(m[2]) + 1))
+    if m := re.fullmatch(r"=(G\d+)\*(F\d+)", formula):
+        return value(m[1]) * value(m[2])
+    if m := re.fullmatch(r"=\((G\d+)\+(G\d+)\)\*(F\d+)", formula):
+        return (value(m[1]) + value(m[2])) * value(m[3])
+    if m := re.fullmatch(r"=(G\d+)\+(G\d+)\+(G\d+)", formula):
+        return value(m[1]) + value(m[2]) + value(m[3])
+    raise AssertionError(f"unexpected formula {formula}")
+
+
+@pytest.mark.parametrize("drop_150", [False, True])
+def test_costing_workbook_totals_equal_the_json(tmp_path: Path, drop_150: bool) -> None:
+    """The workbook's line totals, subtotal, margin, tax and total are formulas; evaluated from their
+    input cells they equal the JSON; a line without a price is highlighted and adds nothing."""
+    import openpyxl
+
+    catalogue = CATALOGUE
+    if drop_150:
+        data = yaml.safe_load(CATALOGUE.read_text(encoding="utf-8"))
+        data["panels"] = [p for p in data["panels"] if p["thickness"] != "150 mm"]
+        catalogue = tmp_path / "cat.yaml"
+        catalogue.write_text(yaml.safe_dump(data, allow_unicode=True), encoding="utf-8")
+    xlsx = tmp_path / "costing.xlsx"
+    done = invoke("quote", str(DEMO), "--catalogue", str(catalogue), "--json", "-", "--costing", str(xlsx))
+    assert done.returncode == 0, done.stderr
+    quote = json.loads(done.stdout)["quote"]
+    sheet = openpyxl.load_workbook(xlsx)["Costing"]
+    labels = {sheet.cell(row=r, column=5).value: r for r in range(1, sheet.max_row + 1)}
+    for key, label in (("subtotal_price", "Subtotal"), ("margin_price", "Margin"), ("tax_price", "Tax"),
+                       ("total_price", "Total")):
+        formula = sheet.cell(row=labels[label], column=7).value
+        assert formula.startswith("=")
+        assert _evaluate(sheet, formula) == pytest.approx(quote[key], rel=1e-12), label
+    rows = [r for r in range(6, labels["Subtotal"]) if sheet.cell(row=r, column=2).value]
+    assert len(rows) == len(quote["lines"])
+    for r, line in zip(rows, quote["lines"]):
+        assert sheet.cell(row=r, column=2).value == line["item"]
+        highlighted = sheet.cell(row=r, column=2).fill.fgColor.rgb.endswith("FFF2B0")
+        assert highlighted == line["price_needed"]
