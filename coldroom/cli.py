@@ -769,6 +769,8 @@ def quote_command(
     project: str = typer.Argument(..., help="Project file (YAML), with a quote: block."),
     catalogue: str = typer.Option(..., "--catalogue", help="Catalogue with prices (.yaml, .csv or .xlsx).",
                                   metavar="FILE"),
+    out: Optional[str] = typer.Option(None, "--out", help="Write the proposal for the customer (PDF).",
+                                      metavar="FILE.pdf"),
     costing: Optional[str] = typer.Option(None, "--costing", help="Write the costing workbook (XLSX).",
                                           metavar="FILE.xlsx"),
     json_out: Optional[str] = typer.Option(
@@ -781,8 +783,8 @@ def quote_command(
     def run() -> None:
         from coldroom.output.files import check_targets
 
-        xlsx_target, json_target = check_targets(
-            (("--costing", costing), ("--json", json_out)), force=force, inputs=[project, catalogue]
+        pdf_target, xlsx_target, json_target = check_targets(
+            (("--out", out), ("--costing", costing), ("--json", json_out)), force=force, inputs=[project, catalogue]
         )
         from pathlib import Path
 
@@ -803,8 +805,13 @@ def quote_command(
             raise NothingFitsError(format_terms(exc.args[0], model.project.units)) from None
         result = size_project(model, project, Path(project).read_bytes())
         quote = build_quote(model, equipment, result, selections)
-        console = console_for(xlsx_target, json_target)
+        console = console_for(pdf_target, xlsx_target, json_target)
         say(quote_report(quote), file=console)
+        if pdf_target is not None:
+            from coldroom.output.pdf.proposal import render_proposal  # reportlab, lazily
+
+            write_output(pdf_target, render_proposal(quote, result, model), force=force, project=project,
+                         console=console)
         if xlsx_target is not None:
             from coldroom.output.costing import costing_workbook  # openpyxl, lazily
 

@@ -154,3 +154,32 @@ def test_costing_workbook_totals_equal_the_json(tmp_path: Path, drop_150: bool) 
         assert sheet.cell(row=r, column=2).value == line["item"]
         highlighted = sheet.cell(row=r, column=2).fill.fgColor.rgb.endswith("FFF2B0")
         assert highlighted == line["price_needed"]
+
+
+def test_proposal_for_the_customer(tmp_path: Path) -> None:
+    """The proposal names the scope, equipment, price, terms and codes; it shows no unit price, cost or
+    margin; an incomplete quote prints as a draft that says so."""
+    from pypdf import PdfReader
+
+    pdf = tmp_path / "proposal.pdf"
+    done = invoke("quote", str(DEMO), "--catalogue", str(CATALOGUE), "--json", "-", "--out", str(pdf))
+    assert done.returncode == 0, done.stderr
+    quote = json.loads(done.stdout)["quote"]
+    text = "\n".join(page.extract_text() for page in PdfReader(pdf).pages)
+    for words in ("Scope", "Equipment, duties and balance point", "What is included", "What is not included",
+                  "Electrical supply", "Validity and terms", "Safety", "EN 378", "ISO 5149", "ASHRAE 15",
+                  "IEC 60335-2-89", "valid for 30 days", "DX-L16"):
+        assert words in text, words
+    total = f"{quote['total_price']:,.2f}".replace(",", " ")
+    assert total in text
+    assert "margin" not in text.lower() and "subtotal" not in text.lower() and "DRAFT" not in text
+    for line in quote["lines"]:
+        assert f"{line['unit_price']:,.2f}".replace(",", " ") + " EUR" not in text, line["item"]
+    data = yaml.safe_load(CATALOGUE.read_text(encoding="utf-8"))
+    data["doors"] = []
+    catalogue = tmp_path / "cat.yaml"
+    catalogue.write_text(yaml.safe_dump(data, allow_unicode=True), encoding="utf-8")
+    draft = tmp_path / "draft.pdf"
+    done = invoke("quote", str(DEMO), "--catalogue", str(catalogue), "--out", str(draft))
+    assert done.returncode == 0, done.stderr
+    assert "DRAFT" in PdfReader(draft).pages[0].extract_text()
