@@ -214,7 +214,7 @@ def test_every_plain_surprise_is_rejected_or_read_as_its_yaml12_value(word):
 
 def _both(source):
     """(fast path result or None, pure-Python result or the ProjectFileError)."""
-    import coldroom.inputs.safeyaml as sy
+    import coldroom.inputs.safeyaml.loader as sy
 
     if sy._CLoader is None:  # PyYAML built without libyaml: there is no fast path to check
         return None, None
