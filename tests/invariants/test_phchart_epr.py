@@ -72,7 +72,8 @@ def _boxes(drawing, x0, y0, x1, y1):
 def test_chart_draws_the_warmer_coil_and_its_throttle(system_cycle):
     from reportlab.graphics.shapes import Circle, Line, PolyLine
 
-    from coldroom.output.pdf.phchart import CYCLE_SOFT, EPR_COIL, EPR_SOFT, ph_chart, state_rows
+    from coldroom.output.pdf.phchart import CYCLE_SOFT, EPR_COIL, EPR_SOFT, ph_chart
+    from coldroom.output.pdf.ph_states import state_rows
 
     name, cycle = system_cycle
     CP, state = _coolprop(name)

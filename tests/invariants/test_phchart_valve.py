@@ -60,7 +60,8 @@ def _cycle_path(drawing):
                          ids=["R-134a friction", "R-448A friction", "R-134a static gain"])
 def test_valve_inlet_is_its_own_state_on_the_chart(name, drop):
     from coldroom.physics.cycle import solve_cycle
-    from coldroom.output.pdf.phchart import ph_chart, state_rows, valve_inlet_state
+    from coldroom.output.pdf.phchart import ph_chart
+    from coldroom.output.pdf.ph_states import state_rows, valve_inlet_state
 
     cycle = solve_cycle(name, -10.0, 40.0, 5000.0, subcooling=5.0, suction_line_superheat=5.0)
     s3, s4 = cycle.states[2], cycle.states[3]
@@ -107,7 +108,8 @@ def test_valve_inlet_is_its_own_state_on_the_chart(name, drop):
 def test_flashed_liquid_is_drawn_inside_the_dome_with_its_quality():
     from coldroom.physics.cycle import solve_cycle
     from coldroom.physics.refrigerant import get_fluid
-    from coldroom.output.pdf.phchart import ph_chart, state_rows, valve_inlet_state
+    from coldroom.output.pdf.phchart import ph_chart
+    from coldroom.output.pdf.ph_states import state_rows, valve_inlet_state
 
     cycle = solve_cycle("R-134a", -10.0, 40.0, 5000.0, subcooling=1.0)
     s3 = cycle.states[2]
@@ -127,7 +129,7 @@ def test_flashed_liquid_is_drawn_inside_the_dome_with_its_quality():
 
 def test_no_valve_point_without_a_pressure_change():
     from coldroom.physics.cycle import solve_cycle
-    from coldroom.output.pdf.phchart import cycle_states, valve_inlet_state
+    from coldroom.output.pdf.ph_states import cycle_states, valve_inlet_state
 
     cycle = solve_cycle("R-134a", -10.0, 40.0, 5000.0)
     assert valve_inlet_state(cycle, None) is None

@@ -19,20 +19,9 @@ from reportlab.lib.units import mm
 from reportlab.platypus import CondPageBreak, Spacer
 
 from coldroom.output.pdf.charts import BarChart
-from coldroom.output.pdf.layout import document
-from coldroom.output.pdf.sheet import (
-    CELL_SMALL,
-    H1,
-    H3,
-    SMALL,
-    TINY,
-    _canvas_maker,
-    grid,
-    heading,
-    note,
-    people_cautions,
-    refrigerant_cautions,
-)
+from coldroom.output.pdf.cautions_section import people_cautions, refrigerant_cautions
+from coldroom.output.pdf.layout import CELL_SMALL, H1, SMALL, TINY, document, grid, heading, note
+from coldroom.output.pdf.page_frame import canvas_maker
 from coldroom.output.pdf.text import clean, temperature
 from coldroom.output.terminal import charge_notes, compare_rows
 
@@ -152,5 +141,5 @@ def render_compare(comparison: Any, system: str, meta: dict) -> bytes:
         project_name=comparison.project_name, date=meta["date"], versions=meta["versions"],
         input_file=meta["input_file"], input_sha256=meta["input_sha256"],
     )
-    doc.build(story, canvasmaker=_canvas_maker(header, pagesize[0], margin, kind="Options compared"))
+    doc.build(story, canvasmaker=canvas_maker(header, pagesize[0], margin, kind="Options compared"))
     return buffer.getvalue()

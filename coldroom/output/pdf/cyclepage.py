@@ -20,8 +20,9 @@ from reportlab.lib.pagesizes import A4, LETTER
 from reportlab.lib.units import mm
 
 from coldroom.output.pdf.charts import INK, MUTED, RULE
-from coldroom.output.pdf.phchart import ph_chart, state_rows
-from coldroom.output.pdf.sheet import _is_date
+from coldroom.output.pdf.page_frame import is_date
+from coldroom.output.pdf.ph_states import state_rows
+from coldroom.output.pdf.phchart import ph_chart
 from coldroom.output.pdf.text import capacity, clean, temperature
 
 ACCENT = "#4F6D8A"  # the sheet's accent (header rule, table header rule)
@@ -170,7 +171,7 @@ def render_cycle_page(cycle: Any, system: str, fmt: str, date: str, arguments: S
     from reportlab.graphics import renderPDF
     from reportlab.pdfgen.canvas import Canvas
 
-    y, m, dd = (int(x) for x in date.split("-")[:3]) if _is_date(date) else (2000, 1, 1)
+    y, m, dd = (int(x) for x in date.split("-")[:3]) if is_date(date) else (2000, 1, 1)
     buffer = io.BytesIO()
     canvas = Canvas(buffer, pagesize=(drawing.width, drawing.height), invariant=1)
     canvas.setDateFormatter(lambda *_: f"D:{y:04d}{m:02d}{dd:02d}000000+00'00'")

@@ -4,7 +4,7 @@ Every section of the sheet (:mod:`coldroom.output.pdf.sheet`,
 :mod:`coldroom.output.pdf.check_section`, and any new one) builds its flowables
 from these, so all sections look alike and no section module imports another.
 A block that needs the page takes ``ctx`` (a
-:class:`coldroom.output.pdf.sheet.SheetContext`: ``ctx.width`` [pt], ``ctx.system``).
+:class:`coldroom.output.pdf.context.SheetContext`: ``ctx.width`` [pt], ``ctx.system``).
 """
 
 from __future__ import annotations

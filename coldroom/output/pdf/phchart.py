@@ -25,6 +25,10 @@ stay), and clipped to the plot by geometry (the SVG renderer has no clip
 paths). Labels go where an occupancy grid of everything drawn says the space is
 free; a label that finds no free place is left out.
 
+What the chart shows is chosen in :mod:`coldroom.output.pdf.ph_window`, the
+states and their labels come from :mod:`coldroom.output.pdf.ph_states`, the
+smoothing, clipping and label grid from :mod:`coldroom.output.pdf.ph_geometry`.
+
 A ``Drawing`` is a flowable (the sizing sheet places it like a table) and
 renders to PDF and to SVG (:mod:`reportlab.graphics.renderSVG`), which gives
 the stand-alone page of ``coldroom cycle --out``.
@@ -45,7 +49,11 @@ from reportlab.pdfbase.pdfmetrics import stringWidth
 
 from coldroom import units as _units
 from coldroom.output.pdf.charts import INK, MUTED, RULE
+from coldroom.output.pdf.ph_geometry import Occupancy, catmull_rom, clip
+from coldroom.output.pdf.ph_states import cycle_states, short_name, valve_inlet_state, warm_coils
+from coldroom.output.pdf.ph_window import Window, choose_window, linear_ticks, log_ticks
 from coldroom.output.pdf.text import clean
+
 
 # --- our palette and line styles -------------------------------------------------------------
 PLOT_BG = colors.HexColor("#FBFBF8")
@@ -67,387 +75,6 @@ EPR_TEXT = colors.HexColor("#7F5406")
 
 FONT = "Helvetica"
 FONT_BOLD = "Helvetica-Bold"
-
-
-# --- ticks ------------------------------------------------------------------------------------
-
-
-def log_ticks(low: float, high: float) -> tuple[list[float], list[float]]:
-    """Labelled and minor ticks of a logarithmic axis from *low* to *high* (both > 0).
-
-    Labels fall on 1–2–5 × 10ⁿ (on 1 and 3 × 10ⁿ, then on 10ⁿ alone, for wider
-    ranges); minor ticks on every integer multiple of 10ⁿ.
-
-    Examples
-    --------
-    >>> log_ticks(70, 5000)[0]
-    [100, 200, 500, 1000, 2000, 5000]
-    >>> log_ticks(8, 30)
-    ([10, 20], [8, 9, 30])
-    """
-    decades = math.log10(high / low)
-    steps = (1, 2, 5) if decades <= 2.3 else (1, 3) if decades <= 3.5 else (1,)
-    major: list[float] = []
-    minor: list[float] = []
-    decade = 10.0 ** math.floor(math.log10(low))
-    while decade <= high * 1.0000001:
-        for m in range(1, 10):
-            v = m * decade
-            v = int(round(v)) if v >= 1 else round(v, 9)
-            if low * 0.9999999 <= v <= high * 1.0000001:
-                (major if m in steps else minor).append(v)
-        decade *= 10.0
-    return major, minor
-
-
-def linear_ticks(low: float, high: float, count: int = 7) -> list[float]:
-    """Round ticks (1, 2, 2.5, 5 × 10ⁿ steps) between *low* and *high*.
-
-    Examples
-    --------
-    >>> linear_ticks(180, 470)
-    [200, 250, 300, 350, 400, 450]
-    """
-    raw = (high - low) / max(count, 1)
-    power = 10 ** math.floor(math.log10(raw))
-    step = next(m * power for m in (1, 2, 2.5, 5, 10) if m * power >= raw)
-    v = math.ceil(low / step) * step
-    out = []
-    while v <= high + 1e-9:
-        out.append(int(round(v)) if float(step).is_integer() else round(v, 6))
-        v += step
-    return out
-
-
-def _round_step(span: float, candidates: Sequence[float], most: int) -> float:
-    return next((c for c in candidates if span / c <= most), candidates[-1])
-
-
-def _nice_down(value: float) -> float:
-    """The largest of 1, 1.5, 2, 3, 5, 7 × 10ⁿ not above *value*."""
-    decade = 10 ** math.floor(math.log10(value))
-    return max(m * decade for m in (1, 1.5, 2, 3, 5, 7) if m * decade <= value * (1 + 1e-12))
-
-
-def _nice_up(value: float) -> float:
-    """The smallest of 1, 1.5, 2, 3, 5, 7, 10 × 10ⁿ not below *value*."""
-    decade = 10 ** math.floor(math.log10(value))
-    return min(m * decade for m in (1, 1.5, 2, 3, 5, 7, 10) if m * decade >= value * (1 - 1e-12))
-
-
-# --- the window and the lines' values ----------------------------------------------------------
-
-
-@dataclass(frozen=True)
-class Window:
-    """What a chart shows, SI: pressures [Pa], enthalpies [J/kg]; the lines' values."""
-
-    pressure_low: float
-    pressure_high: float
-    enthalpy_low: float
-    enthalpy_high: float
-    isotherms: tuple[float, ...]  # °C
-    isentropes: tuple[float, ...]  # J/(kg·K)
-
-
-def valve_inlet_state(cycle: Any, pressure: float | None) -> Any:
-    """The state at the expansion-valve inlet, or ``None``.
-
-    The liquid line is adiabatic: the condenser-outlet enthalpy at *pressure*
-    [Pa] (condenser-outlet pressure less the line's friction drop and static
-    rise, :func:`coldroom.design.pipework.valve_inlet_pressure`), through
-    :meth:`coldroom.physics.refrigerant.Fluid.state_ph`. A pressure below the bubble
-    pressure at that enthalpy gives a two-phase state (flash gas). ``None``
-    when *pressure* is ``None`` or state 3's own pressure (no change to draw).
-    """
-    if pressure is None:
-        return None
-    s3 = cycle.states[2]
-    if abs(pressure - s3.p) <= 1e-6 * s3.p:
-        return None
-    from dataclasses import replace
-
-    from coldroom.physics.refrigerant import get_fluid
-
-    state = get_fluid(cycle.refrigerant).state_ph(pressure, s3.h)
-    return replace(state, h=s3.h)
-
-
-def cycle_states(cycle: Any, valve_inlet: Any = None) -> list[tuple[str, Any]]:
-    """The states the calculation used, in flow order, with their chart labels.
-
-    ``4`` evaporator inlet, ``1e`` evaporator outlet (only when it differs from
-    the compressor suction), ``1`` suction, ``2`` discharge, ``3`` condenser or
-    gas-cooler outlet, ``3v`` expansion-valve inlet (only when given: the state
-    after the liquid line, :func:`valve_inlet_state`).
-    """
-    s1, s2, s3, s4 = cycle.states
-    out = [("4", s4)]
-    e = cycle.evaporator_outlet
-    if abs(e.h - s1.h) > 1e-6 * max(abs(s1.h), 1.0) or abs(e.p - s1.p) > 1e-6 * s1.p:
-        out.append(("1e", e))
-    out += [("1", s1), ("2", s2), ("3", s3)]
-    if valve_inlet is not None:
-        out.append(("3v", valve_inlet))
-    return out
-
-
-def warm_coils(cycle: Any, coil_names: Sequence[str] | None = None) -> list[tuple[str, str, Any]]:
-    """The coils that evaporate above the compressor's evaporating pressure, behind EPRs.
-
-    (mark, name, outlet state) for each, in the order of ``cycle.coil_outlets``,
-    marked ``1a``, ``1b`` …; *coil_names* name the coils in that order (the
-    rooms on the sheet), else ``coil 1``, ``coil 2`` … Empty for a single coil.
-    """
-    outlets = getattr(cycle, "coil_outlets", ()) or ()
-    out: list[tuple[str, str, Any]] = []
-    for i, state in enumerate(outlets):
-        if state.p > cycle.evaporating_pressure * (1.0 + 1e-6) and len(out) < 26:
-            name = coil_names[i] if coil_names is not None and i < len(coil_names) else f"coil {i + 1}"
-            out.append((f"1{chr(ord('a') + len(out))}", name, state))
-    return out
-
-
-def _short(name: str, most: int = 18) -> str:
-    name = clean(" ".join(str(name).split()))
-    return name if len(name) <= most else name[: most - 1] + "…"
-
-
-def state_rows(cycle: Any, system: str, valve_inlet: Any = None,
-               coil_names: Sequence[str] | None = None) -> list[list[str]]:
-    """The state table (header row first) in *system* units: 1, 2, 3, 4, and 3v and 1e when
-    present, then the outlets of the warmer coils behind EPRs (1a, 1b …, :func:`warm_coils`)."""
-    from coldroom.output.pdf.text import q, temperature
-
-    names = {
-        "1": "1  compressor suction",
-        "2": "2  compressor discharge",
-        "3": "3  gas-cooler outlet" if cycle.transcritical else "3  condenser outlet",
-        "3v": "3v expansion-valve inlet",
-        "4": "4  evaporator inlet",
-        "1e": "1e evaporator outlet",
-    }
-    by_name = dict(cycle_states(cycle, valve_inlet))
-    rows = [["State", "Pressure", "Temperature", "Enthalpy", "Entropy", "Quality"]]
-    warm = warm_coils(cycle, coil_names)
-    for mark, name, st in warm:
-        names[mark] = f"{mark} outlet, {_short(name)} (EPR)"
-        by_name[mark] = st
-    for key in ("1", "2", "3", "3v", "4", "1e", *(m for m, _, _ in warm)):
-        st = by_name.get(key)
-        if st is None:
-            continue
-        rows.append(
-            [
-                names[key],
-                q(st.p, "pressure", system),
-                temperature(st.t, system),
-                q(st.h, "specific_energy", system, 1),
-                q(st.s, "specific_heat", system, 4),
-                "–" if st.quality is None else f"{st.quality:.3f}",
-            ]
-        )
-    return rows
-
-
-def choose_window(cycle: Any, system: str, valve_inlet: Any = None) -> Window:
-    """Window and round line values for *cycle* in *system* units (a drawing choice).
-
-    The pressure window runs from about half the evaporating pressure to above
-    the critical pressure (and the discharge), on round values so that rooms
-    with similar cycles share one cached computation.
-    """
-    from coldroom.physics.refrigerant import get_fluid
-
-    fluid = get_fluid(cycle.refrigerant)
-    states = [s for _, s in cycle_states(cycle, valve_inlet)]
-    p_min = min(s.p for s in states)
-    p_max = max(s.p for s in states)
-    p_low = max(_nice_down(p_min / 2.2), fluid.minimum_pressure * 1.01)
-    p_high = _nice_up(max(1.12 * fluid.critical_pressure, 1.3 * p_max))
-    # isotherms: round values in the display unit, from below the evaporating
-    # temperature to well above the discharge
-    t_unit = _units.DISPLAY_UNITS[system]["temperature"]
-
-    def disp(t: float) -> float:
-        return _units.to_unit(t, "temperature", t_unit)
-
-    def back(v: float) -> float:
-        return round(_units.parse_quantity(f"{v!r} {t_unit}", "temperature"), 9)
-
-    try:
-        t_bottom = fluid.dew_temperature(min(max(p_low, fluid.minimum_pressure * 1.02), 0.9 * fluid.critical_pressure))
-    except Exception:  # noqa: BLE001 - any failure: fall back on the cycle's own
-        t_bottom = cycle.evaporating_temperature - 20.0
-    t_top = max(cycle.states[1].t, fluid.critical_temperature) + 40.0
-    lo, hi = disp(t_bottom), disp(t_top)
-    step = _round_step(hi - lo, (10.0, 20.0, 25.0, 50.0) if system == "SI" else (20.0, 25.0, 50.0, 100.0), 11)
-    v = math.ceil(lo / step) * step
-    temps = []
-    while v <= hi:
-        temps.append(back(v))
-        v += step
-    # isentropes: round values around the compression (the display unit's steps)
-    s_unit = _units.DISPLAY_UNITS[system]["specific_heat"]
-    s1 = _units.to_unit(cycle.states[0].s, "specific_heat", s_unit)
-    s2 = _units.to_unit(cycle.states[1].s, "specific_heat", s_unit)
-    s_step = (0.05 if s2 - s1 < 0.2 else 0.1) if system == "SI" else (0.01 if s2 - s1 < 0.05 else 0.025)
-    first = math.floor(s1 / s_step) * s_step
-    entropies = []
-    v = first - s_step
-    while v <= s2 + 1.01 * s_step and len(entropies) < 6:
-        entropies.append(round(_units.parse_quantity(f"{round(v, 6)!r} {s_unit}", "specific_heat"), 6))
-        v += s_step
-    # enthalpy window: the bubble line at the bottom of the window to right of the discharge
-    h_states = [s.h for s in states]
-    span = max(h_states) - min(h_states)
-    try:
-        h_liquid_low = fluid.saturated_liquid(pressure=max(p_low, fluid.minimum_pressure * 1.02)).h
-    except Exception:  # noqa: BLE001
-        h_liquid_low = min(h_states) - 0.3 * span
-    h_low = min(h_liquid_low, min(h_states)) - 0.06 * span
-    h_high = max(h_states) + 0.22 * span
-    return Window(p_low, p_high, h_low, h_high, tuple(temps), tuple(entropies))
-
-
-# --- geometry helpers ----------------------------------------------------------------------------
-
-
-def _catmull_rom(points: Sequence[tuple[float, float]], per_segment: int = 8) -> list[tuple[float, float]]:
-    """Centripetal Catmull–Rom spline through *points* (screen coordinates), densified.
-
-    Centripetal parametrisation (α = 0.5) does not overshoot or form loops
-    between unevenly spaced points [ref:yuksel-2011] [mem].
-    """
-    pts = [p for i, p in enumerate(points) if i == 0 or math.dist(p, points[i - 1]) > 1e-6]
-    if len(pts) < 3:
-        return list(pts)
-    ext = [(2 * pts[0][0] - pts[1][0], 2 * pts[0][1] - pts[1][1])] + pts + [
-        (2 * pts[-1][0] - pts[-2][0], 2 * pts[-1][1] - pts[-2][1])
-    ]
-    out = [pts[0]]
-    for i in range(1, len(ext) - 2):
-        p0, p1, p2, p3 = ext[i - 1], ext[i], ext[i + 1], ext[i + 2]
-        t0 = 0.0
-        t1 = t0 + max(math.dist(p0, p1), 1e-9) ** 0.5
-        t2 = t1 + max(math.dist(p1, p2), 1e-9) ** 0.5
-        t3 = t2 + max(math.dist(p2, p3), 1e-9) ** 0.5
-        steps = max(1, min(per_segment, math.ceil(math.dist(p1, p2) / 2.5)))  # about every 2.5 pt
-        for k in range(1, steps + 1):
-            t = t1 + (t2 - t1) * k / steps
-            a1 = _lerp(p0, p1, t0, t1, t)
-            a2 = _lerp(p1, p2, t1, t2, t)
-            a3 = _lerp(p2, p3, t2, t3, t)
-            b1 = _lerp(a1, a2, t0, t2, t)
-            b2 = _lerp(a2, a3, t1, t3, t)
-            out.append(_lerp(b1, b2, t1, t2, t))
-    return out
-
-
-def _lerp(a: tuple[float, float], b: tuple[float, float], ta: float, tb: float, t: float) -> tuple[float, float]:
-    wa, wb = (tb - t) / (tb - ta), (t - ta) / (tb - ta)
-    return (wa * a[0] + wb * b[0], wa * a[1] + wb * b[1])
-
-
-def _clip(points: Sequence[tuple[float, float]], box: tuple[float, float, float, float]) -> list[list[tuple[float, float]]]:
-    """Pieces of the polyline *points* inside *box* = (x0, y0, x1, y1) (Liang–Barsky per segment)."""
-    x0, y0, x1, y1 = box
-    pieces: list[list[tuple[float, float]]] = []
-    current: list[tuple[float, float]] = []
-    for a, b in zip(points, points[1:]):
-        dx, dy = b[0] - a[0], b[1] - a[1]
-        t_in, t_out = 0.0, 1.0
-        ok = True
-        for p, q in ((-dx, a[0] - x0), (dx, x1 - a[0]), (-dy, a[1] - y0), (dy, y1 - a[1])):
-            if p == 0:
-                if q < 0:
-                    ok = False
-                    break
-            else:
-                r = q / p
-                if p < 0:
-                    t_in = max(t_in, r)
-                else:
-                    t_out = min(t_out, r)
-        if not ok or t_in > t_out:
-            if current:
-                pieces.append(current)
-                current = []
-            continue
-        start = (a[0] + t_in * dx, a[1] + t_in * dy)
-        end = (a[0] + t_out * dx, a[1] + t_out * dy)
-        if not current or math.dist(current[-1], start) > 1e-6:
-            if current:
-                pieces.append(current)
-            current = [start]
-        current.append(end)
-        if t_out < 1.0:
-            pieces.append(current)
-            current = []
-    if current:
-        pieces.append(current)
-    return [p for p in pieces if len(p) >= 2]
-
-
-class _Occupancy:
-    """Which cells (2 pt square) of the drawing something already covers.
-
-    One integer per row of cells, bit i set when cell i of that row is covered
-    (cells left of the drawing's origin are shifted by :attr:`SHIFT` bits), so a
-    label's box is marked and tested a row at a time. Lines may run past the
-    drawing's left edge; labels never do (they stay inside the plot), so the cells
-    more than SHIFT columns to the left may share bit 0: nothing asks about them,
-    and the rows stay short integers (quick to combine).
-    """
-
-    CELL = 2.0
-    SHIFT = 64  # bit position of cell column 0; columns left of -SHIFT share bit 0
-
-    def __init__(self, rows: dict[int, int] | None = None) -> None:
-        self.rows: dict[int, int] = dict(rows) if rows else {}
-
-    def line(self, points: Sequence[tuple[float, float]], pad: float = 0.6) -> None:
-        """Mark the cells under a polyline, widened by *pad* [pt] across it (sampled every 1.6 pt)."""
-        c = self.CELL
-        rows = self.rows
-        shift = self.SHIFT
-
-        def mark(x: float, y: float) -> None:
-            j = int(y // c)
-            rows[j] = rows.get(j, 0) | (1 << max(int(x // c) + shift, 0))
-
-        for a, b in zip(points, points[1:]):
-            length = math.dist(a, b)
-            n = max(1, int(length / 1.6))
-            dx, dy = (b[0] - a[0]) / n, (b[1] - a[1]) / n
-            # the offset across the segment that widens it by pad
-            ox, oy = (-dy * pad / (length / n), dx * pad / (length / n)) if length > 0 else (pad, pad)
-            for k in range(n + 1):
-                x, y = a[0] + dx * k, a[1] + dy * k
-                mark(x, y)
-                mark(x + ox, y + oy)
-                mark(x - ox, y - oy)
-
-    def _bits(self, x0: float, x1: float) -> int:
-        c, shift = self.CELL, self.SHIFT
-        i0, i1 = max(int(x0 // c) + shift, 0), max(int(x1 // c) + shift, 0)
-        return ((1 << (i1 - i0 + 1)) - 1) << i0
-
-    def box(self, x0: float, y0: float, x1: float, y1: float) -> None:
-        c = self.CELL
-        bits = self._bits(x0, x1)
-        rows = self.rows
-        for j in range(int(y0 // c), int(y1 // c) + 1):
-            rows[j] = rows.get(j, 0) | bits
-
-    def free(self, x0: float, y0: float, x1: float, y1: float) -> bool:
-        c = self.CELL
-        bits = self._bits(x0, x1)
-        rows = self.rows
-        for j in range(int(y0 // c), int(y1 // c) + 1):
-            if rows.get(j, 0) & bits:
-                return False
-        return True
 
 
 # --- the chart -------------------------------------------------------------------------------------
@@ -554,7 +181,7 @@ class _Background:
     """The part of a chart that depends on the refrigerant and the window only (cached)."""
 
     shapes: list[Any]  # frame, grid, ticks, axis titles, lines, dome, critical point, in drawing order
-    occupied: dict[int, int]  # cells covered by anything (rows of _Occupancy; never changed)
+    occupied: dict[int, int]  # cells covered by anything (rows of Occupancy; never changed)
     strong: dict[int, int]  # cells covered by the dome and the critical point
     quality_pieces: list[tuple[float, list[list[tuple[float, float]]]]]
     isentrope_pieces: list[tuple[float, list[list[tuple[float, float]]]]]
@@ -610,8 +237,8 @@ def _build_background(refrigerant: str, window: Window, system: str, plot: _Plot
     h_lo, h_hi, lp_lo, lp_hi = plot.h_lo, plot.h_hi, plot.lp_lo, plot.lp_hi
     box = (x0, y0, x1, y1)
     drawing = Drawing(1, 1)  # a container: its contents are the shapes
-    occupied = _Occupancy()
-    strong = _Occupancy()
+    occupied = Occupancy()
+    strong = Occupancy()
     X, Y = plot.x, plot.y
 
     def xy(points: Iterable[tuple[float, float]]) -> list[tuple[float, float]]:
@@ -647,8 +274,8 @@ def _build_background(refrigerant: str, window: Window, system: str, plot: _Plot
 
     def add_line(points: Sequence[tuple[float, float]], color: Any, width_pt: float, dash: Any = None,
                  smooth: bool = True, mark: bool = True) -> list[list[tuple[float, float]]]:
-        screen = _catmull_rom(points) if smooth else list(points)
-        pieces = _clip(screen, box)
+        screen = catmull_rom(points) if smooth else list(points)
+        pieces = clip(screen, box)
         for piece in pieces:
             drawing.add(PolyLine(piece, strokeColor=color, strokeWidth=width_pt, strokeDashArray=dash,
                                  strokeLineJoin=1, strokeLineCap=1))
@@ -682,9 +309,9 @@ def _build_background(refrigerant: str, window: Window, system: str, plot: _Plot
         isotherm_pieces.append((line.value, pieces))
     # --- the dome up to the critical point ----------------------------------------------
     # smooth each branch apart (the critical point is where they meet with a common tangent)
-    bubble_pts = _catmull_rom(xy(data.bubble) + [crit])
-    dew_pts = _catmull_rom([crit] + list(reversed(xy(data.dew))))
-    for piece in _clip(bubble_pts[:-1] + dew_pts, box):
+    bubble_pts = catmull_rom(xy(data.bubble) + [crit])
+    dew_pts = catmull_rom([crit] + list(reversed(xy(data.dew))))
+    for piece in clip(bubble_pts[:-1] + dew_pts, box):
         drawing.add(PolyLine(piece, strokeColor=DOME, strokeWidth=1.4, strokeLineJoin=1, strokeLineCap=1))
         occupied.line(piece, pad=1.0)
         strong.line(piece, pad=1.0)
@@ -718,8 +345,8 @@ def _draw(cycle: Any, window: Window, system: str, width: float, height: float, 
     start = len(drawing.contents)
     drawing.contents.extend(bg.shapes)
     drawing._shared_background = (start, len(drawing.contents), bg.name)  # for SharedBackgroundChart
-    occupied = _Occupancy(bg.occupied)  # everything drawn (a copy of the background's)
-    strong = _Occupancy(bg.strong)  # the dome, the cycle, markers and labels: never covered
+    occupied = Occupancy(bg.occupied)  # everything drawn (a copy of the background's)
+    strong = Occupancy(bg.strong)  # the dome, the cycle, markers and labels: never covered
     data, crit = bg.data, bg.crit
     quality_pieces, isentrope_pieces, isotherm_pieces = bg.quality_pieces, bg.isentrope_pieces, bg.isotherm_pieces
 
@@ -745,7 +372,7 @@ def _draw(cycle: Any, window: Window, system: str, width: float, height: float, 
         fluid = get_fluid(cycle.refrigerant)
         for mark, name, st in warm:
             t_dew = fluid.dew_temperature(st.p)
-            warm_isobars.append((st.p, f"{_short(name)} coil {_temperature_text(t_dew, system)} dew (EPR)",
+            warm_isobars.append((st.p, f"{short_name(name)} coil {_temperature_text(t_dew, system)} dew (EPR)",
                                  f"{mark} {_temperature_text(t_dew, system)} dew (EPR)"))
     for p, *_ in warm_isobars:
         y = Y(p)
@@ -757,7 +384,7 @@ def _draw(cycle: Any, window: Window, system: str, width: float, height: float, 
     ring = [(X(s.h), Y(s.p)) for _, s in states]
     # the compression is drawn as a straight line between its end states
     path = ring + [ring[0]]
-    for piece in _clip(path, box):
+    for piece in clip(path, box):
         drawing.add(PolyLine(piece, strokeColor=CYCLE, strokeWidth=1.8, strokeLineJoin=1, strokeLineCap=1))
         occupied.line(piece, pad=1.2)
         strong.line(piece, pad=1.2)
@@ -781,7 +408,7 @@ def _draw(cycle: Any, window: Window, system: str, width: float, height: float, 
     for mark, name, st in warm:
         xo, yo = X(st.h), Y(st.p)
         for pts, dash, lw in (([(X(s3.h), yo), (xo, yo)], None, 1.1), ([(xo, yo), (xo, y_mix)], (3, 1.6), 0.9)):
-            for piece in _clip(pts, box):
+            for piece in clip(pts, box):
                 drawing.add(PolyLine(piece, strokeColor=EPR_COIL, strokeWidth=lw, strokeDashArray=dash,
                                      strokeLineJoin=1, strokeLineCap=1))
                 occupied.line(piece, pad=1.0)

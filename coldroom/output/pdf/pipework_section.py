@@ -1,7 +1,7 @@
 """The sheet's "pipework and charge" part of a system: line sizes, charge, charge limits.
 
 Presents a :class:`coldroom.design.pipework.Pipework`; computes nothing new. The
-sheet's building blocks are imported from :mod:`coldroom.output.pdf.sheet` inside
+sheet's building blocks are imported from :mod:`coldroom.output.pdf.layout` inside
 the function, so the sheet can import this module without a cycle.
 """
 
@@ -32,7 +32,7 @@ def pipework_flowables(ctx: Any, pipework: Any, system_name: str) -> list:
 
     Parameters
     ----------
-    ctx : coldroom.output.pdf.sheet.SheetContext
+    ctx : coldroom.output.pdf.context.SheetContext
     pipework : coldroom.design.pipework.Pipework
     system_name : str
     """

@@ -219,7 +219,7 @@ def _safety(quote: "Quote", result: "ProjectResult", ctx: _Ctx) -> list:
 
 def render_proposal(quote: "Quote", result: "ProjectResult", model: "ProjectModel") -> bytes:
     """The proposal's PDF bytes (module notes)."""
-    from coldroom.output.pdf.sheet import _canvas_maker
+    from coldroom.output.pdf.page_frame import canvas_maker
 
     buffer = io.BytesIO()
     doc = document(buffer, A4, MARGIN, title=f"Proposal: {result.project_name}", author=result.prepared_by,
@@ -233,5 +233,5 @@ def render_proposal(quote: "Quote", result: "ProjectResult", model: "ProjectMode
     story += [Spacer(1, 8)] + _included(quote, ctx)
     story += [Spacer(1, 8)] + _electrical(quote, ctx)
     story += [Spacer(1, 8), KeepTogether(_safety(quote, result, ctx))]
-    doc.build(story, canvasmaker=_canvas_maker(result, A4[0], MARGIN, kind="Proposal"))
+    doc.build(story, canvasmaker=canvas_maker(result, A4[0], MARGIN, kind="Proposal"))
     return buffer.getvalue()

@@ -16,20 +16,23 @@ show, e.g. ``ctx.result.rooms[index].check is None``), and insert it into
 :func:`~coldroom.output.pdf.layout.grid`, :func:`~coldroom.output.pdf.layout.note`,
 figure and warning boxes) so the section looks like the others.
 
-Determinism: the canvas runs with ``invariant=1`` and a fixed creation date
-(the sheet's date at 00:00 UTC), so the same input gives the same bytes.
+The room's cycle and chart are in :mod:`coldroom.output.pdf.cycle_section`, the
+safety cautions in :mod:`coldroom.output.pdf.cautions_section`, what every
+section reads in :mod:`coldroom.output.pdf.context`.
+
+Determinism: the canvas (:mod:`coldroom.output.pdf.page_frame`) runs with
+``invariant=1`` and a fixed creation date (the sheet's date at 00:00 UTC), so
+the same input gives the same bytes.
 """
 
 from __future__ import annotations
 
 import io
-from dataclasses import dataclass, field
-from typing import Any, Callable, Optional
+from typing import Any, Callable
 
 from reportlab.lib.pagesizes import A4, LETTER
 from reportlab.lib.styles import ParagraphStyle
 from reportlab.lib.units import mm
-from reportlab.pdfgen.canvas import Canvas
 from reportlab.platypus import (
     CondPageBreak,
     KeepTogether,
@@ -39,8 +42,12 @@ from reportlab.platypus import (
     TableStyle,
 )
 
-from coldroom.output.pdf.charts import INK, MUTED, RULE, BarChart
+from coldroom.constants import SECONDS_PER_DAY_S
+from coldroom.output.pdf.cautions_section import cautions_section
+from coldroom.output.pdf.charts import MUTED, RULE, BarChart
 from coldroom.output.pdf.check_section import existing_unit_section
+from coldroom.output.pdf.context import SheetContext, electrical_label, room_conditions, room_cycle, room_system
+from coldroom.output.pdf.cycle_section import compressor_figures, cycle_section, duties_and_cycle
 from coldroom.output.pdf.layout import (
     document,
     ACCENT,
@@ -49,7 +56,6 @@ from coldroom.output.pdf.layout import (
     H1,
     H2,
     H3,
-    LABEL,
     SMALL,
     TINY,
     Paragraph,
@@ -60,12 +66,14 @@ from coldroom.output.pdf.layout import (
     note,
     warning_box,
 )
+from coldroom.output.pdf.page_frame import canvas_maker
 from coldroom.output.pdf.pipework_section import system_pipework_section
 from coldroom.output.pdf.selection_section import selected_equipment_section, selection_summary_section
 from coldroom.output.pdf.text import capacity, clean, esc, q, temperature
 from coldroom.output.pdf.timecharts import design_day_section, pulldown_section
 from coldroom.output.pdf.verdict_section import verdict_section
 from coldroom.units import format_terms
+
 
 COMPONENT_LABELS = {
     "transmission": "Transmission (walls, ceiling, floor)",
@@ -74,53 +82,6 @@ COMPONENT_LABELS = {
     "internal": "Internal (people, lights, trucks)",
     "equipment": "Equipment (fans, heaters, defrost)",
 }
-
-
-@dataclass
-class SheetContext:
-    """What every section reads.
-
-    Attributes
-    ----------
-    result : ProjectResult
-    model : ProjectModel or None
-        The project (for echoing inputs: room temperature and RH).
-    system : str
-        ``"SI"`` or ``"IP"``.
-    width : float
-        Usable frame width [pt].
-    cache : dict
-        Per-render scratch space (diagram data).
-    """
-
-    result: Any
-    model: Any
-    system: str
-    width: float
-    cache: dict = field(default_factory=dict)
-    selection: Any = None  # tuple of coldroom.design.selection.SystemSelection (``coldroom select --out``)
-
-    def room_input(self, index: int) -> Any:
-        if self.model is None:
-            return None
-        return self.model.rooms[index]
-
-
-def _room_cycle(ctx: SheetContext, index: int) -> Optional[dict]:
-    room = ctx.result.rooms[index]
-    if room.cycle is None:
-        return None
-    key = ("cycle", index)
-    if key not in ctx.cache:
-        ctx.cache[key] = room.cycle.to_json()
-    return ctx.cache[key]
-
-
-def _room_conditions(ctx: SheetContext, index: int) -> str:
-    room = ctx.room_input(index)
-    if room is None:
-        return ""
-    return f"{temperature(room.temperature, ctx.system)}, {room.rh:.0%} RH"
 
 
 # --- project sections ------------------------------------------------------------------------
@@ -166,19 +127,6 @@ def title_section(ctx: SheetContext) -> list:
     ]
 
 
-def _room_system(ctx: SheetContext, index: int) -> Any:
-    """The system result serving room *index* (None for results without systems)."""
-    name = ctx.result.rooms[index].system
-    return next((system for system in getattr(ctx.result, "systems", ()) if system.name == name), None)
-
-
-def _electrical(watts: float) -> str:
-    """Electrical power: W below 1 kW, else kW, in both unit systems (electricians work in kW)."""
-    from coldroom.output.terminal import electrical_text
-
-    return clean(electrical_text(watts))
-
-
 def systems_overview_section(ctx: SheetContext) -> list:
     """The whole job: one row per system (compressor / condensing unit) and a total row."""
     systems = getattr(ctx.result, "systems", ())
@@ -197,7 +145,7 @@ def systems_overview_section(ctx: SheetContext) -> list:
                 system.refrigerant,
                 f"{temperature(system.suction_temperature, s)} / {temperature(system.condensing_temperature, s)}",
                 capacity(system.design_capacity, s),
-                _electrical(system.electrical.compressor_input_power),
+                electrical_label(system.electrical.compressor_input_power),
                 capacity(system.heat_of_rejection, s),
             ]
         )
@@ -208,7 +156,7 @@ def systems_overview_section(ctx: SheetContext) -> list:
             "",
             "",
             capacity(sum(x.design_capacity for x in systems), s),
-            _electrical(sum(x.electrical.compressor_input_power for x in systems)),
+            electrical_label(sum(x.electrical.compressor_input_power for x in systems)),
             capacity(sum(x.heat_of_rejection for x in systems), s),
         ]
     )
@@ -234,13 +182,13 @@ def summary_section(ctx: SheetContext) -> list:
         ["Room", "Conditions", "Design capacity", "Refrigerant", "SST / SCT (dew)", "Compressor input", "Heat of rejection"]
     ]
     for i, room in enumerate(ctx.result.rooms):
-        cyc = _room_cycle(ctx, i) or {}
-        system = _room_system(ctx, i)
+        cyc = room_cycle(ctx, i) or {}
+        system = room_system(ctx, i)
         shared = f"on {system.name}" if system is not None and not cyc else "–"
         rows.append(
             [
                 room.name,
-                _room_conditions(ctx, i) or "–",
+                room_conditions(ctx, i) or "–",
                 capacity(room.loads.design_capacity, s),
                 str(cyc.get("refrigerant", system.refrigerant if system is not None else "–")),
                 f"{temperature(room.evaporating_temperature, s)} / {temperature(room.condensing_temperature, s)}",
@@ -297,17 +245,17 @@ def system_details_section(ctx: SheetContext) -> list:
         e = [x.electrical for x in chunk]
         rows = [
             ["Electrical", *(x.name for x in chunk)],
-            ["Compressor electrical input", *(_electrical(x.compressor_input_power) for x in e)],
-            ["Evaporator fans", *(_electrical(x.evaporator_fan_power) for x in e)],
-            ["Condenser fans", *(_electrical(x.condenser_fan_power) + ("" if x.condenser_fan_basis.startswith("given")
+            ["Compressor electrical input", *(electrical_label(x.compressor_input_power) for x in e)],
+            ["Evaporator fans", *(electrical_label(x.evaporator_fan_power) for x in e)],
+            ["Condenser fans", *(electrical_label(x.condenser_fan_power) + ("" if x.condenser_fan_basis.startswith("given")
                                   else " (est.)") for x in e)],
-            ["Door-frame, drain-line and other heaters", *(_electrical(x.other_heater_power) for x in e)],
-            ["Electric defrost heaters", *(_electrical(x.defrost_heater_power) for x in e)],
-            ["Draw while refrigerating (compressor, fans, heaters)", *(_electrical(x.refrigerating_load) for x in e)],
-            ["Draw while a coil defrosts (largest case)", *(_electrical(x.defrost_load) for x in e)],
+            ["Door-frame, drain-line and other heaters", *(electrical_label(x.other_heater_power) for x in e)],
+            ["Electric defrost heaters", *(electrical_label(x.defrost_heater_power) for x in e)],
+            ["Draw while refrigerating (compressor, fans, heaters)", *(electrical_label(x.refrigerating_load) for x in e)],
+            ["Draw while a coil defrosts (largest case)", *(electrical_label(x.defrost_load) for x in e)],
             ["Compressor run time at design capacity", *(f"{x.compressor_run_time / 3600:.1f} h/day" for x in e)],
             ["Electricity per day", *(f"{x.daily_energy / 3.6e6:.1f} kWh" for x in e)],
-            ["Connected load (the larger draw)", *(f"{_electrical(x.connected_load)} ({x.connected_load_case})" for x in e)],
+            ["Connected load (the larger draw)", *(f"{electrical_label(x.connected_load)} ({x.connected_load_case})" for x in e)],
         ]
         out += [grid(rows, [0.36 * w] + [col] * len(chunk), align_right=tuple(range(1, len(chunk) + 1)),
                      total_rows=(len(rows) - 1,)), Spacer(1, 3)]
@@ -346,11 +294,11 @@ def system_cycles_section(ctx: SheetContext) -> list:
             ("SST / SCT (dew)", f"{temperature(system.suction_temperature, s)} / "
              f"{temperature(system.condensing_temperature, s)}",
              f"condenser air {temperature(system.condenser_air_temperature, s)}"),
-            ("Electrical input", _electrical(system.electrical.compressor_input_power), f"COP {cyc['cop']:.2f}"),
+            ("Electrical input", electrical_label(system.electrical.compressor_input_power), f"COP {cyc['cop']:.2f}"),
             ("Heat of rejection", capacity(system.heat_of_rejection, s), "condenser duty"),
         ]
         out += [figure_boxes(ctx, boxes), Spacer(1, 4)]
-        out += _duties_and_cycle(ctx, system.cycle, cyc,
+        out += duties_and_cycle(ctx, system.cycle, cyc,
                                  "State 1 is the warmer coils' vapour (through their EPRs) mixed with the "
                                  "coldest coil's, then the suction-line superheat and drop.", system)
         if system.warnings:
@@ -372,10 +320,10 @@ def room_title_section(ctx: SheetContext, index: int) -> list:
     """Room heading and its four key figures."""
     room = ctx.result.rooms[index]
     s = ctx.system
-    cyc = _room_cycle(ctx, index)
+    cyc = room_cycle(ctx, index)
     n = len(ctx.result.rooms)
     title = f"Room {index + 1} of {n}: {room.name}"
-    cond = _room_conditions(ctx, index)
+    cond = room_conditions(ctx, index)
     boxes = [
         ("Design capacity", capacity(room.loads.design_capacity, s), f"set by the {room.loads.governed_by}"),
         (
@@ -384,7 +332,7 @@ def room_title_section(ctx: SheetContext, index: int) -> list:
             f"room air {cond}" if cond else "",
         ),
     ]
-    system = _room_system(ctx, index)
+    system = room_system(ctx, index)
     if not cyc and system is not None:
         boxes += [("Condensing unit", system.name, f"shared with {len(system.members) - 1} other room(s)")]
     if cyc:
@@ -462,9 +410,9 @@ def loads_section(ctx: SheetContext, index: int) -> list:
     for component, label in COMPONENT_LABELS.items():
         e = loads.component_energy(component)
         share = e / total if total else 0.0
-        rows.append([label, energy(e), power(e / 86400.0), f"{share:.1%}"])
-        bars.append((label.split(" (")[0], e, f"{power(e / 86400.0)} {power_unit}  ({share:.0%})"))
-    rows.append(["Total heat gain", energy(total), power(total / 86400.0), "100.0%"])
+        rows.append([label, energy(e), power(e / SECONDS_PER_DAY_S), f"{share:.1%}"])
+        bars.append((label.split(" (")[0], e, f"{power(e / SECONDS_PER_DAY_S)} {power_unit}  ({share:.0%})"))
+    rows.append(["Total heat gain", energy(total), power(total / SECONDS_PER_DAY_S), "100.0%"])
     totals = [
         ["Safety factor", f"{loads.safety_factor:.0%}"],
         ["Compressor run time", f"{loads.run_time / 3600:g} h/day ({loads.run_time_basis})"],
@@ -517,7 +465,7 @@ def load_lines_section(ctx: SheetContext, index: int) -> list:
 def duties_section(ctx: SheetContext, index: int) -> list:
     """Required evaporator, condensing-unit and condenser duties with their rating conditions."""
     room = ctx.result.rooms[index]
-    cyc = _room_cycle(ctx, index)
+    cyc = room_cycle(ctx, index)
     s = ctx.system
     cap = capacity(room.loads.design_capacity, s)
     te = temperature(room.evaporating_temperature, s)
@@ -525,7 +473,7 @@ def duties_section(ctx: SheetContext, index: int) -> list:
     air = temperature(room.condenser_air_temperature, s)
     room_in = ctx.room_input(index)
     room_air = temperature(room_in.temperature, s) if room_in is not None else "the room air"
-    system = _room_system(ctx, index)
+    system = room_system(ctx, index)
     rows = [
         ["Equipment", "Required duty", "At"],
         ["Evaporator (unit cooler)", cap, f"evaporating {te} (dew), air on {room_air}"],
@@ -548,114 +496,8 @@ def duties_section(ctx: SheetContext, index: int) -> list:
     w = ctx.width
     out = [heading("Required equipment duties"), grid(rows, [0.3 * w, 0.22 * w, 0.48 * w], align_right=(1,))]
     if cyc:
-        out += [Spacer(1, 4), _compressor_figures(ctx, cyc)]
+        out += [Spacer(1, 4), compressor_figures(ctx, cyc)]
     return [KeepTogether(out)]
-
-
-def _compressor_figures(ctx: SheetContext, cyc: dict) -> Any:
-    """Mass flow, volume flows, electrical input, discharge temperature, pressure ratio and COP."""
-    s = ctx.system
-    w = ctx.width
-    perf = [
-        ["Compressor figures", "Value"],
-        ["Refrigerant", str(cyc.get("refrigerant", "–"))],
-        ["Mass flow", q(cyc["mass_flow_kg_s"], "mass_flow", s)],
-        ["Suction volume flow (state 1)", q(cyc["suction_volume_flow_m3_h"] / 3600.0, "volume_flow", s)],
-        ["Compressor displacement (swept volume)", q(cyc["displacement_m3_h"] / 3600.0, "volume_flow", s)],
-        ["Compressor electrical input (overall isentropic efficiency)", capacity(cyc["compressor_power_w"], s)],
-        ["Discharge temperature", temperature(cyc["discharge_temperature_c"], s)],
-        ["Pressure ratio", f"{cyc['pressure_ratio']:.2f}"],
-        ["COP (cooling / compressor power)", f"{cyc['cop']:.2f}"],
-    ]
-    return grid(perf, [0.52 * w, 0.48 * w], align_right=(1,))
-
-
-def _duties_and_cycle(ctx: SheetContext, cycle: Any, cyc: dict, remark: str, system: Any = None) -> list:
-    """A system's compressor figures, state table and p–h chart."""
-    return [*_cycle_flowables(ctx, cycle, remark, system),
-            KeepTogether([heading("Compressor"), _compressor_figures(ctx, cyc)])]
-
-
-def cycle_section(ctx: SheetContext, index: int) -> list:
-    """The cycle's states and the pressure–enthalpy chart (on a page of their own when needed)."""
-    cycle = ctx.result.rooms[index].cycle
-    if cycle is None:
-        return []
-    return _cycle_flowables(ctx, cycle, system=_room_system(ctx, index))
-
-
-def _valve_inlet(cycle: Any, system: Any) -> tuple[Any, Optional[float]]:
-    """The expansion-valve inlet state and pressure of *cycle* when *system*'s liquid line
-    changes the liquid's pressure, else ``(None, None)``."""
-    from coldroom.errors import ColdroomError
-    from coldroom.output.pdf.phchart import valve_inlet_state
-
-    works = getattr(system, "pipework", None)
-    pressure = getattr(works, "valve_inlet_pressure", None)
-    if pressure is None or system.cycle is not cycle:
-        return None, None
-    try:
-        return valve_inlet_state(cycle, pressure), pressure
-    except ColdroomError:
-        return None, None
-
-
-def _cycle_flowables(ctx: SheetContext, cycle: Any, remark: str = "", system: Any = None) -> list:
-    """State table and p–h chart of a solved cycle (a room's, or a system's of several rooms)."""
-    from coldroom.output.pdf.phchart import state_rows, warm_coils
-
-    w = ctx.width
-    valve, valve_pressure = _valve_inlet(cycle, system)
-    if valve is not None:
-        remark = (remark + " " if remark else "") + (
-            "State 3v is the liquid at the expansion valve: the condenser-outlet enthalpy at the pressure "
-            "the liquid line's friction and height change leave."
-        )
-    # the coils in the order of cycle.coil_outlets: the system's members (rooms)
-    coil_names = [member.room for member in system.members] if system is not None and system.cycle is cycle else None
-    marks = [mark for mark, _, _ in warm_coils(cycle, coil_names)]
-    if marks:
-        remark = (remark + " " if remark else "") + (
-            f"State {marks[0]} is the warmer coil's outlet at its own evaporating pressure, before its EPR "
-            "throttles the vapour at constant enthalpy to the coldest coil's pressure."
-            if len(marks) == 1 else
-            f"States {', '.join(marks)} are the warmer coils' outlets at their own evaporating pressures, before "
-            "their EPRs throttle the vapour at constant enthalpy to the coldest coil's pressure."
-        )
-    rows = state_rows(cycle, ctx.system, valve, coil_names)
-    table = grid(rows, [0.25 * w, 0.15 * w, 0.14 * w, 0.16 * w, 0.18 * w, 0.12 * w], align_right=(1, 2, 3, 4, 5))
-    chart = _ph_chart(ctx, cycle, valve_pressure if valve is not None else None, coil_names)
-    return [
-        CondPageBreak(ctx.width * 0.95),
-        KeepTogether(
-            [
-                heading("Refrigerant cycle"),
-                note(
-                    "Pressures absolute. Enthalpy and entropy in the default reference state of the property "
-                    "library (IIR for halocarbons); quality shown only inside the two-phase region."
-                    + (f" {remark}" if remark else ""),
-                    TINY,
-                ),
-                Spacer(1, 2),
-                table,
-                Spacer(1, 8),
-                chart,
-            ]
-        ),
-    ]
-
-
-def _ph_chart(ctx: SheetContext, cycle: Any, valve_inlet_pressure: Optional[float] = None,
-              coil_names: Optional[list] = None) -> Any:
-    from coldroom.errors import ColdroomError
-    from coldroom.output.pdf.phchart import SharedBackgroundChart, ph_chart
-
-    try:
-        return SharedBackgroundChart(ph_chart(cycle, ctx.system, ctx.width, ctx.width * 0.78,
-                                              title=f"Pressure–enthalpy chart, {cycle.refrigerant}",
-                                              valve_inlet_pressure=valve_inlet_pressure, coil_names=coil_names))
-    except ColdroomError:
-        return note("The pressure–enthalpy chart could not be drawn for this refrigerant.", SMALL)
 
 
 def room_warnings_section(ctx: SheetContext, index: int) -> list:
@@ -665,98 +507,6 @@ def room_warnings_section(ctx: SheetContext, index: int) -> list:
     if not messages:
         return []
     return [KeepTogether([heading("Warnings"), *warning_box(ctx, messages)])]
-
-
-def safety_cautions(ctx: SheetContext, index: int) -> list[str]:
-    """The safety cautions that fit this room and its refrigerant (text only)."""
-    room = ctx.result.rooms[index]
-    cyc = _room_cycle(ctx, index) or {}
-    system = _room_system(ctx, index)
-    refrigerant = cyc.get("refrigerant") or (system.refrigerant if system is not None else None)
-    cautions: list[str] = refrigerant_cautions(refrigerant) if refrigerant else []
-    cautions += people_cautions()
-    room_in = ctx.room_input(index)
-    cold = room_in is not None and room_in.temperature < 0.0
-    if room_in is None and room.evaporating_temperature is not None:
-        cold = room.evaporating_temperature < -10.0
-    if cold:
-        cautions.append(
-            "Below 0 °C the ground under the room freezes unless the slab is heated or ventilated: frost heave "
-            "lifts floors and walls. Check that slab heating is designed, installed and monitored."
-        )
-    cautions.append(
-        "Electrical work (supplies, heaters, controls, earthing) must be done by qualified persons to the "
-        "local electrical code."
-    )
-    return cautions
-
-
-def people_cautions() -> list[str]:
-    """The caution about people shut in a cold room."""
-    return [
-        "People can be shut in a cold room. Fit an inside door release that works without a key, "
-        "lighting on an independent supply, and an alarm button inside that is heard where people are."
-    ]
-
-
-def refrigerant_cautions(refrigerant: str) -> list[str]:
-    """The cautions that go with a refrigerant's safety class, pressures and GWP (text only)."""
-    from coldroom.data import refrigerants
-
-    cautions: list[str] = []
-    try:
-        info = refrigerants.lookup(refrigerant)
-    except Exception:  # noqa: BLE001 - an unknown name only drops the refrigerant cautions
-        info = None
-    if info is not None:
-        cls = info.safety_class
-        if cls.endswith("2L") and cls.startswith("A"):
-            cautions.append(
-                f"{info.name} is class A2L (lower flammability). The charge allowed in an occupied space is "
-                "limited by its lower flammability limit and the room volume (EN 378-1, ISO 5149-1, "
-                "IEC 60335-2-89): check the system charge against them, keep ignition sources away from "
-                "possible leak points, use A2L-rated components and leak detection where required."
-            )
-        if cls.endswith("3"):
-            cautions.append(
-                f"{info.name} is class A3 (highly flammable). Charge limits are strict (EN 378-1, ISO 5149-1; "
-                "IEC 60335-2-89 for self-contained appliances): check the charge per circuit, keep all ignition "
-                "sources out of the refrigerant's reach, ventilate, and use only equipment rated for A3."
-            )
-        if cls.startswith("B"):
-            cautions.append(
-                f"{info.name} is class {cls} (higher toxicity"
-                + (", lower flammability" if cls.endswith("2L") else "")
-                + "). A leak endangers people: gas detection, alarms, ventilation and machinery-room rules "
-                "apply (EN 378, ISO 5149, ASHRAE 15)."
-            )
-        if info.name == "R-744":
-            cautions.append(
-                "R-744 (CO2) works at high pressure: standstill and operating pressures far above those of "
-                "other refrigerants. Every component and relief valve must be rated for them; only trained "
-                "persons may work on the system."
-            )
-        if info.note and "GWP" in info.note:
-            cautions.append(f"{info.name}: {info.note}. Check the F-gas or other regulations that apply to new equipment.")
-    return cautions
-
-
-def cautions_section(ctx: SheetContext, index: int) -> list:
-    """Safety cautions, deferring to codes and licensed practice."""
-    # The codes deferred to: [ref:en-378] [ref:iso-5149] [ref:ashrae-15] [ref:iec-60335-2-89].
-    items = safety_cautions(ctx, index)
-    flow: list = [heading("Safety cautions")]
-    for text in items:
-        flow.append(Paragraph("\u2022 " + esc(text), ParagraphStyle("bul", parent=SMALL, leftIndent=8, firstLineIndent=-8, spaceAfter=2)))
-    flow.append(
-        note(
-            "This sheet sizes equipment; it does not replace the design rules of EN 378, ISO 5149, ASHRAE 15, "
-            "IEC 60335-2-89 and the local building and electrical codes. Installation, charging and "
-            "commissioning by licensed persons only.",
-            TINY,
-        )
-    )
-    return [KeepTogether(flow)]
 
 
 #: Project-wide sections, printed first.
@@ -787,77 +537,6 @@ ROOM_SECTIONS: list[Callable[[SheetContext, int], list]] = [
     cautions_section,
     load_lines_section,
 ]
-
-
-# --- the page frame -----------------------------------------------------------------------------
-
-
-def _footer_text(result: Any) -> str:
-    v = result.versions or {}
-    return clean(
-        f"coldroom {v.get('coldroom', '?')}  ·  CoolProp {v.get('CoolProp', '?')}  ·  "
-        f"input {result.input_file}, sha256 {result.input_sha256[:12]}"
-    )
-
-
-def _canvas_maker(result: Any, page_width: float, margin: float, kind: str = "Sizing sheet") -> type:
-    footer = _footer_text(result)
-    header_left = clean(f"{result.project_name}")
-    header_right = clean(f"{kind}  ·  {result.date}")
-    y, m, d = (int(x) for x in (result.date + "-01-01").split("-")[:3]) if _is_date(result.date) else (2000, 1, 1)
-
-    class NumberedCanvas(Canvas):
-        """Defers each page until the end to print "page x of y" (and the header and footer)."""
-
-        def __init__(self, *args: Any, **kwargs: Any) -> None:
-            kwargs["invariant"] = 1
-            super().__init__(*args, **kwargs)
-            self.setDateFormatter(lambda *_: f"D:{y:04d}{m:02d}{d:02d}000000+00'00'")
-            self._pages: list[dict] = []
-
-        def showPage(self) -> None:  # noqa: N802 - reportlab API
-            self._pages.append(dict(self.__dict__))
-            self._startPage()
-
-        def save(self) -> None:
-            total = len(self._pages)
-            for number, state in enumerate(self._pages, start=1):
-                self.__dict__.update(state)
-                self._frame(number, total)
-                Canvas.showPage(self)
-            Canvas.save(self)
-
-        def _frame(self, number: int, total: int) -> None:
-            w, h = self._pagesize
-            self.saveState()
-            self.setStrokeColor(ACCENT)
-            self.setLineWidth(1.2)
-            self.line(margin, h - margin + 12, w - margin, h - margin + 12)
-            self.setFont("Helvetica-Bold", 7.5)
-            self.setFillColor(INK)
-            self.drawString(margin, h - margin + 16, header_left[:90])
-            self.setFont("Helvetica", 7.5)
-            self.drawRightString(w - margin, h - margin + 16, header_right)
-            self.setStrokeColor(RULE)
-            self.setLineWidth(0.5)
-            self.line(margin, margin - 14, w - margin, margin - 14)
-            self.setFont("Helvetica", 6.8)
-            self.setFillColor(MUTED)
-            self.drawString(margin, margin - 24, footer)
-            self.drawRightString(w - margin, margin - 24, f"Page {number} of {total}")
-            self.restoreState()
-
-    return NumberedCanvas
-
-
-def _is_date(text: str) -> bool:
-    import datetime as _dt
-
-    try:
-        _dt.date.fromisoformat(text)
-        return True
-    except (TypeError, ValueError):
-        return False
 
 
 def build_story(ctx: SheetContext) -> list:
@@ -905,5 +584,5 @@ def render_sheet(result: Any, model: Any = None, selection: Any = None) -> bytes
     )
     ctx = SheetContext(result=result, model=model, system=system, width=doc.width, selection=selection)
     story = build_story(ctx)
-    doc.build(story, canvasmaker=_canvas_maker(result, pagesize[0], margin))
+    doc.build(story, canvasmaker=canvas_maker(result, pagesize[0], margin))
     return buffer.getvalue()
