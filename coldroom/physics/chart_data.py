@@ -9,9 +9,10 @@ state, computed through :mod:`coldroom.physics.refrigerant` (the tests put each 
 back into CoolProp). The drawing, in the project's units, is
 :mod:`coldroom.output.pdf.phchart`'s job.
 
-Results are cached per process: the key is the refrigerant, the rounded
-pressure window and the rounded line values, so rooms with similar cycles
-share one computation (issue 15: compute once, use often).
+Results are cached per process and on disk (:mod:`coldroom.physics.disk_cache`):
+the key is the refrigerant, the rounded pressure window and the rounded line
+values (with the coldroom and CoolProp versions on disk), so rooms with similar
+cycles share one computation (issue 15) and later runs read it back (issue 27).
 
 Examples
 --------
@@ -440,7 +441,8 @@ def chart_data(
 ) -> ChartData:
     """The chart's lines for *refrigerant* in the window [*pressure_low*, *pressure_high*] [Pa].
 
-    Cached per process on all arguments: pass rounded values (see
+    Cached per process on all arguments, and on disk (:mod:`coldroom.physics.disk_cache`,
+    the value read back is equal to the one computed): pass rounded values (see
     :func:`coldroom.output.pdf.phchart.chart_for_cycle`).
 
     Parameters
@@ -458,6 +460,80 @@ def chart_data(
     -------
     ChartData
     """
+    from coldroom.physics import disk_cache
+
+    key = {
+        "refrigerant": refrigerant,
+        "pressure_low": pressure_low,
+        "pressure_high": pressure_high,
+        "isotherms": list(isotherm_temperatures),
+        "isentropes": list(isentrope_entropies),
+    }
+    kept = disk_cache.load("chart", key)
+    if kept is not None:
+        try:
+            return _from_json(kept)
+        except (KeyError, TypeError, ValueError):
+            pass  # a damaged entry: computed again and rewritten
+    data = _compute(refrigerant, pressure_low, pressure_high, isotherm_temperatures, isentrope_entropies)
+    disk_cache.store("chart", key, _to_json(data))
+    return data
+
+
+def _line_to_json(line: ChartLine) -> list:
+    return [line.kind, line.value, [[list(point) for point in segment] for segment in line.segments], list(line.phases)]
+
+
+def _line_from_json(item: Sequence) -> ChartLine:
+    kind, value, segments, phases = item
+    return ChartLine(
+        str(kind), float(value), tuple(tuple((float(h), float(p)) for h, p in segment) for segment in segments),
+        tuple(str(phase) for phase in phases),
+    )
+
+
+def _to_json(data: ChartData) -> dict:
+    """*data* as JSON-able lists and numbers (floats kept exactly: JSON carries their round-trip text)."""
+    return {
+        "refrigerant": data.refrigerant,
+        "pressure_low": data.pressure_low,
+        "pressure_high": data.pressure_high,
+        "bubble": [list(point) for point in data.bubble],
+        "dew": [list(point) for point in data.dew],
+        "critical_pressure": data.critical_pressure,
+        "critical_enthalpy": data.critical_enthalpy,
+        "critical_temperature": data.critical_temperature,
+        "isotherms": [_line_to_json(line) for line in data.isotherms],
+        "isentropes": [_line_to_json(line) for line in data.isentropes],
+        "qualities": [_line_to_json(line) for line in data.qualities],
+    }
+
+
+def _from_json(item: dict) -> ChartData:
+    """The :class:`ChartData` that :func:`_to_json` wrote (equal to it, tested)."""
+    return ChartData(
+        refrigerant=str(item["refrigerant"]),
+        pressure_low=float(item["pressure_low"]),
+        pressure_high=float(item["pressure_high"]),
+        bubble=tuple((float(h), float(p)) for h, p in item["bubble"]),
+        dew=tuple((float(h), float(p)) for h, p in item["dew"]),
+        critical_pressure=float(item["critical_pressure"]),
+        critical_enthalpy=float(item["critical_enthalpy"]),
+        critical_temperature=float(item["critical_temperature"]),
+        isotherms=tuple(_line_from_json(line) for line in item["isotherms"]),
+        isentropes=tuple(_line_from_json(line) for line in item["isentropes"]),
+        qualities=tuple(_line_from_json(line) for line in item["qualities"]),
+    )
+
+
+def _compute(
+    refrigerant: str,
+    pressure_low: float,
+    pressure_high: float,
+    isotherm_temperatures: tuple[float, ...],
+    isentrope_entropies: tuple[float, ...],
+) -> ChartData:
+    """:func:`chart_data` computed (no cache)."""
     from coldroom.physics.refrigerant import critical_enthalpy, get_fluid
 
     fluid = get_fluid(refrigerant)
