@@ -348,9 +348,11 @@ def system_year(
         """(capacity ratio, input ratio) to design at a condensing (or gas-cooler outlet) temperature."""
         key = design_key + (transcritical, round(level, 6))
         if key not in ctx.cycles:
-            c = d.cycle_at(None, level) if transcritical else d.cycle_at(level, None)
-            ratio = cyc.displacement / c.displacement
-            ctx.cycles[key] = (ratio, c.compressor_power * ratio / cyc.compressor_power)
+            # displacement and power only (the grid needs no other figure of the cycle)
+            displacement, power = (d.cycle_at(None, level, performance_only=True) if transcritical
+                                   else d.cycle_at(level, None, performance_only=True))
+            ratio = cyc.displacement / displacement
+            ctx.cycles[key] = (ratio, power * ratio / cyc.compressor_power)
         return ctx.cycles[key]
 
     levels = {False: [], True: []}  # type: dict

@@ -365,15 +365,19 @@ class SystemDesign:
         gas_cooler: Optional[float],
         suction_drop: Optional[float] = None,
         discharge_drop: Optional[float] = None,
+        performance_only: bool = False,
     ) -> Any:
         """The same coils and compressor settings at another condensing (or gas-cooler outlet) temperature.
 
         The line drops default to the design's (the suction-line drop given, or the sized lines' fed back).
+        *performance_only*: only (displacement [m³/s], compressor power [W]), exactly the full
+        cycle's (:func:`coldroom.physics.system_cycle.compressor_performance`).
         """
-        from coldroom.physics.system_cycle import solve_system_cycle
+        from coldroom.physics.system_cycle import compressor_performance, solve_system_cycle
 
         r = self.settings[0]
-        return solve_system_cycle(
+        solve = compressor_performance if performance_only else solve_system_cycle
+        return solve(
             self.info.name,
             list(self.coils),
             condensing,

@@ -398,6 +398,7 @@ def solve_cycle(
     discharge_pressure_drop: float = 0.0,
     _warmer: tuple[tuple[float, float, float], ...] = (),
     _displacement_only: bool = False,
+    _performance_only: bool = False,
 ) -> CycleResult:
     """Solve a single-stage vapour-compression cycle for a refrigerating capacity.
 
@@ -606,9 +607,11 @@ def solve_cycle(
     displacement = volume_flow / eta_v
     if _displacement_only:
         return displacement  # type: ignore[return-value]  # see compressor_displacement
+    assert state2 is not None
+    if _performance_only:  # see system_cycle.compressor_performance: the same arithmetic as `power` below
+        return displacement, mass_flow * (state2.h - state1.h)  # type: ignore[return-value]
 
     # --- expansion outlet and performance -------------------------------
-    assert state2 is not None
     state4 = replace(fluid.state_ph(p_evap, state3.h), h=state3.h)
     glide_evap = te - fluid.bubble_temperature(p_evap) if info.is_blend else 0.0
     work = state2.h - state1.h

@@ -26,6 +26,49 @@ from coldroom.errors import CalculationError
 from coldroom.physics.cycle import CycleResult, _check, solve_cycle
 
 
+def _coldest_first(
+    evaporators: "list[tuple[float, float, float]] | tuple[tuple[float, float, float], ...]",
+) -> tuple[list[tuple[float, ...]], int]:
+    """The coils checked, and the index of the coldest (the compressor's suction)."""
+    coils = [tuple(float(x) for x in coil) for coil in evaporators]
+    if not coils:
+        raise CalculationError("a system needs at least one evaporator")
+    for t, sh, q in coils:
+        _check("evaporator duty", q, 0.0, 1e9, "W", low_open=True)
+        _check("evaporating temperature", t, -100.0, 60.0, "°C")
+        _check("superheat", sh, 0.0, 60.0, "K")
+    return coils, min(range(len(coils)), key=lambda i: coils[i][0])
+
+
+def compressor_performance(
+    refrigerant: str,
+    evaporators: "list[tuple[float, float, float]] | tuple[tuple[float, float, float], ...]",
+    condensing_temperature: float | None,
+    **options: float | None,
+) -> tuple[float, float]:
+    """(displacement [m³/s], compressor power [W]): exactly ``solve_system_cycle(...).displacement``
+    and ``.compressor_power`` for the same arguments (one coil: :func:`solve_cycle`'s), without
+    the expansion outlet, the glide, the warnings and the result record. For the part-load
+    grid of the annual energy (as :func:`coldroom.physics.cycle.compressor_displacement` for
+    capacity curves).
+
+    Examples
+    --------
+    >>> coils = [(-10.0, 5.0, 3000.0), (-2.0, 5.0, 2000.0)]
+    >>> full = solve_system_cycle("R134a", coils, 40.0)
+    >>> compressor_performance("R134a", coils, 40.0) == (full.displacement, full.compressor_power)
+    True
+    """
+    coils, coldest = _coldest_first(evaporators)
+    others = tuple(coils[i] for i in range(len(coils)) if i != coldest)
+    te, superheat, _q = coils[coldest]
+    total = sum(q for _t, _sh, q in coils)
+    return solve_cycle(  # type: ignore[return-value]
+        refrigerant, te, condensing_temperature, total, superheat=superheat, _warmer=others,  # type: ignore[arg-type]
+        _performance_only=True, **options,  # type: ignore[arg-type]
+    )
+
+
 def solve_system_cycle(
     refrigerant: str,
     evaporators: "list[tuple[float, float, float]] | tuple[tuple[float, float, float], ...]",
@@ -64,14 +107,7 @@ def solve_system_cycle(
     >>> abs(sum(r.evaporator_flows) - r.mass_flow) < 1e-12
     True
     """
-    coils = [tuple(float(x) for x in coil) for coil in evaporators]
-    if not coils:
-        raise CalculationError("a system needs at least one evaporator")
-    for t, sh, q in coils:
-        _check("evaporator duty", q, 0.0, 1e9, "W", low_open=True)
-        _check("evaporating temperature", t, -100.0, 60.0, "°C")
-        _check("superheat", sh, 0.0, 60.0, "K")
-    coldest = min(range(len(coils)), key=lambda i: coils[i][0])
+    coils, coldest = _coldest_first(evaporators)
     others = tuple(coils[i] for i in range(len(coils)) if i != coldest)
     te, superheat, _q = coils[coldest]
     total = sum(q for _t, _sh, q in coils)

@@ -151,3 +151,22 @@ def test_compressor_displacement_is_the_full_cycles(name, te, tc, options):
 
     full = solve_cycle(name, te, tc, 4000.0, **options)
     assert compressor_displacement(name, te, tc, 4000.0, **options) == full.displacement
+
+
+@pytest.mark.parametrize(
+    "name, coils, tc, options",
+    [
+        ("R-134a", [(-10.0, 5.0, 4000.0)], 40.0, {}),
+        ("R-448A", [(-28.0, 6.0, 3000.0), (-8.0, 5.0, 2500.0)], 45.0,
+         {"suction_line_superheat": 8.0, "suction_pressure_drop": 1.0, "discharge_pressure_drop": 0.8}),
+        ("R-290", [(2.0, 0.0, 4000.0)], 35.0, {"subcooling": 0.0, "clearance": 0.0}),
+        ("R-744", [(-10.0, 5.0, 4000.0)], None, {"gas_cooler_outlet_temperature": 35.0}),
+    ],
+)
+def test_compressor_performance_is_the_full_cycles(name, coils, tc, options):
+    # The annual grid's shortcut skips the expansion outlet, glide, warnings and record: its
+    # displacement and power must be the full system cycle's to the last bit.
+    from coldroom.physics.system_cycle import compressor_performance, solve_system_cycle
+
+    full = solve_system_cycle(name, coils, tc, **options)
+    assert compressor_performance(name, coils, tc, **options) == (full.displacement, full.compressor_power)
