@@ -18,8 +18,8 @@ it is written to a temporary file in the folder and moved into place
 (``os.replace``), so a reader sees the old file or the new one, never a part. A file
 that cannot be read, does not parse or holds another key is treated as missing: the
 value is computed again and the file rewritten. A folder that cannot be written is
-no error (the run goes on without the cache). Floats go through JSON as their
-shortest round-trip text, so a value read back is the value stored, bit for bit: a
+no error (the run goes on without the cache). The JSON is strict (a value holding a
+NaN or an infinity is not kept); floats go through it as their shortest round-trip text, so a value read back is the value stored, bit for bit: a
 run's outputs are byte-identical with the cache cold, warm or off (tested).
 
 Examples
@@ -74,8 +74,12 @@ def _full_key(kind: str, key: Mapping[str, Any]) -> dict[str, Any]:
     return {"kind": kind, "coldroom": __version__, "CoolProp": str(CoolProp.__version__), **key}
 
 
+#: Strict JSON (RFC 8259): a NaN or an infinity is refused (ValueError), not written as a bare word.
+_ENCODER = json.JSONEncoder(allow_nan=False, separators=(",", ":"), sort_keys=True)
+
+
 def _path(where: Path, kind: str, full_key: Mapping[str, Any]) -> Path:
-    digest = hashlib.sha256(json.dumps(full_key, sort_keys=True).encode("utf-8")).hexdigest()[:32]
+    digest = hashlib.sha256(_ENCODER.encode(full_key).encode("utf-8")).hexdigest()[:32]
     return where / f"{kind}-{digest}.json"
 
 
@@ -96,7 +100,7 @@ def load(kind: str, key: Mapping[str, Any]) -> Any:
     try:
         with open(_path(where, kind, full), "rb") as stream:
             entry = json.loads(stream.read())
-        if entry["key"] != json.loads(json.dumps(full)):
+        if entry["key"] != json.loads(_ENCODER.encode(full)):
             return None
         return entry["value"]
     except (OSError, ValueError, KeyError, TypeError):
@@ -110,13 +114,17 @@ def store(kind: str, key: Mapping[str, Any], value: Any) -> None:
     if where is None:
         return
     full = _full_key(kind, key)
+    try:
+        text = _ENCODER.encode({"key": full, "value": value})
+    except ValueError:  # a NaN or an infinity: not kept (strict JSON only)
+        return
     target = _path(where, kind, full)
     try:
         where.mkdir(parents=True, exist_ok=True)
         handle, temporary = tempfile.mkstemp(prefix=f".{target.stem}-", suffix=".tmp", dir=where)
         try:
             with os.fdopen(handle, "wb") as stream:
-                stream.write(json.dumps({"key": full, "value": value}, separators=(",", ":")).encode("utf-8"))
+                stream.write(text.encode("utf-8"))
             os.replace(temporary, target)
         except BaseException:
             try:

@@ -1,6 +1,6 @@
 """Benchmark: the balance-point search for an R-448A unit, in process (target < 1 s).
 
-Run by hand: ``/work/venv/bin/python tests/benchmarks/bench_check.py``. Prints the
+Run by hand: ``.venv/bin/python tests/benchmarks/bench_check.py``. Prints the
 time of one cold balance-point search (fresh states, nothing cached for these
 temperatures), a warm-started one, and the full check of the demo project
 (balance, 11-point chart, maximum-ambient search). CoolProp's import and the
@@ -19,7 +19,7 @@ REPO = Path(__file__).resolve().parents[2]
 def main() -> None:
     t0 = time.perf_counter()
     from coldroom import equipment as E
-from coldroom.design import existing
+    from coldroom.design import existing
     from coldroom.physics.refrigerant import get_fluid
 
     get_fluid("R-448A").dew_pressure(0.0)

@@ -2,7 +2,7 @@
 
 Run by hand (not collected by pytest)::
 
-    /work/venv/bin/python tests/benchmarks/bench_compare.py [--repeat N]
+    .venv/bin/python tests/benchmarks/bench_compare.py [--repeat N]
 
 The demo ``project_files/farm_shop_options.yaml`` is copied with its ambient bins replaced by
 an invented EPW year (8760 hourly rows written here). Both commands are timed as whole

@@ -1,4 +1,4 @@
-"""Speed of the cycle (run by hand: /work/venv/bin/python tests/benchmarks/bench_cycle.py).
+"""Speed of the cycle (run by hand: .venv/bin/python tests/benchmarks/bench_cycle.py).
 
 Prints, from one run:
 1. a full R-448A cycle by the fast path (solve_cycle, memoised saturation

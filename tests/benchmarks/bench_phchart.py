@@ -2,7 +2,7 @@
 
 Run by hand (not collected by pytest)::
 
-    /work/venv/bin/python tests/benchmarks/bench_phchart.py
+    .venv/bin/python tests/benchmarks/bench_phchart.py
 
 Baseline: ``python -c "import CoolProp"`` as a whole process (median of 3).
 For a pure fluid (R-134a) and a mixture (R-448A), in this process: the

@@ -2,7 +2,7 @@
 
 Run by hand (not collected by pytest)::
 
-    /work/venv/bin/python tests/benchmarks/bench_piping.py [PROJECT.yaml] [--repeat N]
+    .venv/bin/python tests/benchmarks/bench_piping.py [PROJECT.yaml] [--repeat N]
 
 Times two whole ``coldroom size PROJECT --out TMP.pdf --json TMP.json --force``
 processes, interleaved (median of N, default 5): the project as given (with

@@ -2,7 +2,7 @@
 
 Run by hand (not collected by pytest)::
 
-    /work/venv/bin/python tests/benchmarks/bench_pulldown.py [PROJECT.yaml] [--repeat N]
+    .venv/bin/python tests/benchmarks/bench_pulldown.py [PROJECT.yaml] [--repeat N]
 
 Two whole processes are timed in the same run, interleaved (median of N, default 5): `coldroom
 size PROJECT` as it is, and the same with ``coldroom.loads.pulldown.room_pulldown`` replaced by a stub

@@ -3,7 +3,7 @@ distinct room temperatures against one of its rooms alone.
 
 Run by hand (not collected by pytest)::
 
-    /work/venv/bin/python tests/benchmarks/bench_scale.py [--rooms 50] [--repeat 3]
+    .venv/bin/python tests/benchmarks/bench_scale.py [--rooms 50] [--repeat 3]
 
 The project is the produce-cooler demo with its room copied N times, each at
 its own temperature (0.5 °C upwards in 0.23 K steps, products' final

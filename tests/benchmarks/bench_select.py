@@ -1,6 +1,6 @@
 """Benchmark: `coldroom select` over a 200-model catalogue vs a `coldroom check` of one unit (target ≤ 3×).
 
-Run by hand: ``/work/venv/bin/python tests/benchmarks/bench_select.py``. Both sides run in
+Run by hand: ``.venv/bin/python tests/benchmarks/bench_select.py``. Both sides run in
 one process on the same project (the R-448A freezer demo), after CoolProp and the
 R-448A tables are set up, so what is compared is the work each command does:
 

@@ -2,7 +2,7 @@
 
 Run by hand (not collected by pytest)::
 
-    /work/venv/bin/python tests/benchmarks/bench_size.py [PROJECT.yaml] [--repeat N]
+    .venv/bin/python tests/benchmarks/bench_size.py [PROJECT.yaml] [--repeat N]
 
 Both are timed as whole processes in the same run (median of N, default 5):
 ``python -c "import CoolProp"`` and ``coldroom size PROJECT --out TMP.pdf

@@ -2,7 +2,7 @@
 
 Run by hand (not collected by pytest)::
 
-    /work/venv/bin/python tests/benchmarks/bench_startup.py [--repeat 7]
+    .venv/bin/python tests/benchmarks/bench_startup.py [--repeat 7]
 
 Whole processes, interleaved so load on the machine hits all alike, median of
 N: ``python -c "import typer"`` (the floor of any typer program),

@@ -41,6 +41,10 @@ def test_no_module_writes_json_by_itself() -> None:
     for module in (REPO / "coldroom").rglob("*.py"):
         if module.name == "files.py" and module.parent.name == "output":
             continue
+        if module.name == "disk_cache.py" and module.parent.name == "physics":
+            # the cache below the output stage writes its own entries, strict too
+            assert "allow_nan=False" in module.read_text(encoding="utf-8")
+            continue
         text = module.read_text(encoding="utf-8")
         assert not re.search(r"\bjson\.dumps?\(", text), f"{module} writes JSON itself; use output.json_text"
 

@@ -100,3 +100,11 @@ def test_floats_come_back_bit_for_bit(tmp_path, monkeypatch) -> None:
     back = disk_cache.load("test", {"n": 1})
     assert [v.hex() for v in back] == [v.hex() for v in values]
     assert disk_cache.load("test", {"n": 2}) is None
+
+
+def test_a_value_with_nan_is_not_kept(tmp_path, monkeypatch) -> None:
+    """The entries are strict JSON (RFC 8259 has no NaN): such a value is simply not kept."""
+    monkeypatch.setenv("COLDROOM_CACHE_DIR", str(tmp_path))
+    disk_cache.store("test", {"n": 1}, [float("nan")])
+    assert disk_cache.load("test", {"n": 1}) is None
+    assert list(tmp_path.iterdir()) == []
