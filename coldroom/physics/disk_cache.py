@@ -67,11 +67,10 @@ def folder(environ: Optional[Mapping[str, str]] = None) -> Optional[Path]:
 
 
 def _full_key(kind: str, key: Mapping[str, Any]) -> dict[str, Any]:
-    import CoolProp
-
     from coldroom import __version__
+    from coldroom.physics.refrigerant import coolprop_version
 
-    return {"kind": kind, "coldroom": __version__, "CoolProp": str(CoolProp.__version__), **key}
+    return {"kind": kind, "coldroom": __version__, "CoolProp": coolprop_version(), **key}
 
 
 #: Strict JSON (RFC 8259): a NaN or an infinity is refused (ValueError), not written as a bare word.
