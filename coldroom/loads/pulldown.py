@@ -93,9 +93,6 @@ class ThermalMass:
         [°C].
     enthalpy : callable, optional
         Specific enthalpy h(T) [J/kg] of T [°C], increasing; default c·T.
-    enthalpies : callable, optional
-        The same enthalpy for a sequence of temperatures at once (a vectorised
-        form of *enthalpy*, used for the inversion tables when given).
     specific_heat : float
         [J/(kg·K)] when no *enthalpy* is given.
     final_temperature : float, optional
@@ -112,7 +109,6 @@ class ThermalMass:
     specific_heat: float = 0.0
     final_temperature: Optional[float] = None
     asked_time: Optional[float] = None
-    enthalpies: Optional[Callable[[Sequence[float]], Sequence[float]]] = None  # h at many T at once (optional)
 
     def h(self, temperature: float) -> float:
         """Specific enthalpy [J/kg]."""
@@ -235,11 +231,39 @@ def thermostat(air_temperature: float, set_point: float, band: float = THERMOSTA
     return min(1.0, max(0.0, (air_temperature - (set_point - band / 2.0)) / band))
 
 
+#: Temperature step of the h(T) tables the pull-down inverts [K]. The nodes sit on whole
+#: multiples of it, so the rooms of a job share them: each node's enthalpy is computed once per
+#: product model and process (:data:`_NODE_ENTHALPIES`), in plain Python (no numpy import).
+TABLE_STEP = 0.125
+_NODE_ENTHALPIES: dict[Any, dict[int, float]] = {}
+
+
 def _inverse_table(mass: ThermalMass, low: float, high: float) -> tuple[list[float], list[float]]:
-    """(enthalpies, temperatures) on a grid dense enough to invert h(T) by interpolation."""
-    n = 400
-    temps = [low + (high - low) * i / (n - 1) for i in range(n)]
-    enth = list(mass.enthalpies(temps)) if mass.enthalpies is not None else [mass.h(t) for t in temps]
+    """(enthalpies, temperatures) on the :data:`TABLE_STEP` nodes that cover [*low*, *high*]
+    (dense enough to invert h(T) by linear interpolation)."""
+    nodes = range(math.floor(low / TABLE_STEP), math.ceil(high / TABLE_STEP) + 1)
+    temps = [k * TABLE_STEP for k in nodes]
+    known: Optional[dict[int, float]] = None
+    if mass.enthalpy is not None:
+        # the model behind a bound method, compared by value (a frozen dataclass), not by identity
+        key = (getattr(mass.enthalpy, "__func__", mass.enthalpy), getattr(mass.enthalpy, "__self__", None))
+        try:
+            known = _NODE_ENTHALPIES.get(key)
+            if known is None:
+                if len(_NODE_ENTHALPIES) >= 256:
+                    _NODE_ENTHALPIES.clear()
+                known = _NODE_ENTHALPIES[key] = {}
+        except TypeError:  # an unhashable model: no sharing
+            known = None
+    if known is None:
+        enth = [mass.h(t) for t in temps]
+    else:
+        enth = []
+        for k, t in zip(nodes, temps):
+            h = known.get(k)
+            if h is None:
+                h = known[k] = mass.h(t)
+            enth.append(h)
     for a, b in zip(enth, enth[1:]):
         if not b > a:
             raise CalculationError(f"the enthalpy of {mass.name} does not rise with temperature")
@@ -554,7 +578,6 @@ def room_masses(room: "Room", half_cooling_time: float = DEFAULT_HALF_COOLING_TI
                     half_cooling_conductance(m, c, half_cooling_time),
                     item.entering_temperature,
                     enthalpy=properties.enthalpy,
-                    enthalpies=getattr(properties, "enthalpies", None),
                     final_temperature=item.final_temperature,
                     asked_time=item.pulldown_time,
                 )
@@ -583,7 +606,6 @@ def room_masses(room: "Room", half_cooling_time: float = DEFAULT_HALF_COOLING_TI
                     half_cooling_conductance(item.stored_mass, c, half_cooling_time),
                     room.temperature,
                     enthalpy=properties.enthalpy,
-                    enthalpies=getattr(properties, "enthalpies", None),
                 )
             )
     if room.pulldown.panel_skin:

@@ -36,7 +36,7 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass, field
 from functools import cached_property
-from typing import Any, Protocol, Sequence, runtime_checkable
+from typing import Any, Protocol, runtime_checkable
 
 from coldroom.constants import ZERO_CELSIUS_K
 from coldroom.errors import CalculationError, unknown_name
@@ -473,24 +473,6 @@ class CompositionModel:
     @cached_property
     def _reference_enthalpy(self) -> float:
         return self._absolute_enthalpy(REFERENCE_TEMPERATURE)
-
-    def enthalpies(self, temperatures: Sequence[float]) -> list[float]:
-        """:meth:`enthalpy` at each of *temperatures* [°C], in one vectorised pass [J/kg].
-
-        The same terms as :meth:`enthalpy` (agreement to rounding is tested), for the
-        pull-down's tables of hundreds of temperatures.
-        """
-        import numpy as np
-
-        t = np.asarray(temperatures, dtype=float)
-        # the ice fraction of :meth:`ice_fraction`, element by element
-        t_f = self.freezing_point
-        freezable = self._fractions["water"] - self.bound_water
-        with np.errstate(divide="ignore", invalid="ignore"):
-            frozen = np.minimum(np.maximum(freezable * (1.0 - t_f / t), 0.0), freezable)
-        ice = np.where(t >= t_f, 0.0, frozen)
-        h = self._enthalpy_terms(t, ice)
-        return (h - self._reference_enthalpy).tolist()
 
     def sensible_specific_heat(self, temperature: float) -> float:
         """Specific heat without latent release: Σ x_i·c_i with the water split

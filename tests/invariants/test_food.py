@@ -306,23 +306,3 @@ def test_mix_warnings():
     assert any("temperature ranges do not overlap" in w for w in temps)
     eth = mix_warnings([get_product("carnations"), get_product("apples"), get_product("tomatoes")])
     assert any("ethylene" in w and "Apples" in w and "Tomatoes" in w for w in eth)
-
-
-@pytest.mark.parametrize("name", ["beef_frozen", "strawberries", "ice_cream", "fish_frozen", "apples"])
-def test_vectorised_enthalpies_agree_with_the_scalar_enthalpy(name):
-    """The pull-down's one-pass table (CompositionModel.enthalpies) gives the scalar enthalpy at
-    every temperature, above, at and below the initial freezing point (to rounding)."""
-    from coldroom.physics.products import get_product
-
-    try:
-        model = get_product(name).properties()
-    except Exception:  # noqa: BLE001 - a product name not in the table
-        pytest.skip(f"no product {name}")
-    if not hasattr(model, "enthalpies"):
-        pytest.skip("not a composition model")
-    t_f = model.freezing_point
-    temps = [-40.0 + 0.173 * i for i in range(460)] + [t_f, t_f - 1e-9, t_f + 1e-9, 0.0, -0.0]
-    got = model.enthalpies(temps)
-    for t, h in zip(temps, got):
-        want = model.enthalpy(t)
-        assert h == pytest.approx(want, rel=1e-12, abs=1e-6), t
