@@ -9,6 +9,7 @@ from dataclasses import dataclass, field, replace
 from typing import Any, Optional
 
 from coldroom.constants import SECONDS_PER_DAY_S
+from coldroom.rules import required_capacity, with_safety_factor
 from coldroom.units import format_terms
 
 #: The load components, in the order of the ASHRAE Handbook—Refrigeration
@@ -205,13 +206,14 @@ class RoomLoads:
 
     @property
     def required_capacity(self) -> float:
-        """Required refrigeration capacity [W] = (1 + SF) × daily energy / run time."""
-        return (1.0 + self.safety_factor) * self.daily_energy / self.run_time
+        """Required refrigeration capacity [W] = (1 + SF) × daily energy / run time
+        (:func:`coldroom.rules.required_capacity`)."""
+        return required_capacity(self.daily_energy, self.run_time, self.safety_factor)
 
     @property
     def peak_capacity(self) -> float:
         """Peak-hour load with the safety factor [W]."""
-        return (1.0 + self.safety_factor) * self.peak_load
+        return with_safety_factor(self.peak_load, self.safety_factor)
 
     @property
     def design_capacity(self) -> float:

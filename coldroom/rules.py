@@ -15,6 +15,9 @@ it without an import circle.
   :data:`DISCHARGE_LIMIT`) [trade].
 * The condenser-air range searched by the existing-unit check
   (:data:`AMBIENT_SWEEP`).
+* The capacity that removes a daily heat gain: the safety factor
+  (:data:`DEFAULT_SAFETY_FACTOR`, :func:`with_safety_factor`) and
+  (1 + SF)·E/t_run (:func:`required_capacity`), the one place each is computed.
 
 Temperatures in °C (the trade states TDs against °C room temperatures),
 differences in K.
@@ -306,3 +309,46 @@ DISCHARGE_LIMIT = 135.0
 #: highest ambient at which a unit holds (common practice, no source: covers
 #: temperate to hot-climate condenser air).
 AMBIENT_SWEEP = (10.0, 55.0)
+
+# --------------------------------------------------------------------------- capacity
+
+#: Safety factor on the calculated load [-]: 10 % (ASHRAE Handbook—Refrigeration,
+#: "Refrigerated-Facility Loads", safety factor) [mem] [ref:ashrae-refrig-loads]. The default
+#: of a room's ``safety_factor``.
+DEFAULT_SAFETY_FACTOR = 0.10
+
+
+def with_safety_factor(quantity: float, safety_factor: float) -> float:
+    """A daily heat gain [J] or a load [W] with the safety factor added: (1 + SF)·quantity.
+
+    Examples
+    --------
+    >>> with_safety_factor(1000.0, 0.10)
+    1100.0
+    """
+    return (1.0 + safety_factor) * quantity
+
+
+def required_capacity(daily_energy: float, run_time: float, safety_factor: float) -> float:
+    """Refrigeration capacity that removes a daily heat gain in the compressor's run time [W].
+
+    Q = (1 + SF)·E / t_run (ASHRAE Handbook—Refrigeration, "Refrigerated-Facility
+    Loads", safety factor and operating time) [mem] [ref:ashrae-refrig-loads]. The
+    inputs are checked where they are read (the project file: run time 1–24 h,
+    safety factor 0–1).
+
+    Parameters
+    ----------
+    daily_energy : float
+        Heat gain over 24 h, before the safety factor [J].
+    run_time : float
+        Compressor run time per day [s], > 0.
+    safety_factor : float
+        Fraction added to the daily energy [-].
+
+    Examples
+    --------
+    >>> round(required_capacity(86_400_000.0, 16 * 3600.0, 0.10), 6)   # 1 kW average, 16 h, +10 %
+    1650.0
+    """
+    return with_safety_factor(daily_energy, safety_factor) / run_time

@@ -52,6 +52,7 @@ from dataclasses import dataclass, field
 from typing import TYPE_CHECKING, Any, Optional, Sequence
 
 from coldroom.errors import CalculationError
+from coldroom.rules import required_capacity, with_safety_factor
 
 if TYPE_CHECKING:  # pragma: no cover
     from coldroom.inputs.catalogue import Catalogue, CondensingUnitEntry, UnitCoolerEntry
@@ -387,8 +388,8 @@ class Duty:
 
     @property
     def required(self) -> float:
-        """(1 + SF)·E / run time [W]."""
-        return (1.0 + self.safety_factor) * self.daily_energy / self.run_time
+        """(1 + SF)·E / run time [W] (:func:`coldroom.rules.required_capacity`)."""
+        return required_capacity(self.daily_energy, self.run_time, self.safety_factor)
 
 
 def _condenser(entry: "CondensingUnitEntry", duty: Duty) -> "HeatExchanger":
@@ -611,7 +612,7 @@ def select_system(
         for room, x, t in zip(rooms, loads, temps)
     )
     ambient, suction, drop = job.air, job.suction, job.suction_drop
-    energy = sum((1.0 + x.safety_factor) * x.daily_energy for x in loads)
+    energy = sum(with_safety_factor(x.daily_energy, x.safety_factor) for x in loads)
     if len(rooms) == 1:
         room, x, c = rooms[0], loads[0], coolers[0]
         evaporator = HeatExchanger.from_rating(

@@ -13,6 +13,7 @@ from dataclasses import dataclass
 from typing import Any, Optional, Sequence
 
 from coldroom.errors import CalculationError
+from coldroom.rules import CYCLE_DEFAULTS
 from coldroom.results import Note, Phrase
 from coldroom.results import inline_term as _n
 
@@ -120,6 +121,8 @@ class Envelope:
 class OperatingConditions:
     """How the unit runs in this project (the refrigeration block of the room).
 
+    The defaults are :data:`coldroom.rules.CYCLE_DEFAULTS`, as for the project's block.
+
     Attributes
     ----------
     superheat : float
@@ -130,9 +133,9 @@ class OperatingConditions:
         Liquid subcooling below the bubble point [K].
     """
 
-    superheat: float = 5.0
-    suction_line_superheat: float = 5.0
-    subcooling: float = 2.0
+    superheat: float = CYCLE_DEFAULTS.superheat
+    suction_line_superheat: float = CYCLE_DEFAULTS.suction_line_superheat
+    subcooling: float = CYCLE_DEFAULTS.subcooling
 
     @property
     def total_superheat(self) -> float:
@@ -279,8 +282,8 @@ class RatedPointCompressor:
         subcooling: float = 0.0,
         power: Optional[float] = None,
         swept_volume: Optional[float] = None,
-        clearance: float = 0.04,
-        isentropic_efficiency: float = 0.65,
+        clearance: float = CYCLE_DEFAULTS.clearance,
+        isentropic_efficiency: float = CYCLE_DEFAULTS.isentropic_efficiency,
         operating: OperatingConditions = OperatingConditions(),
     ) -> "RatedPointCompressor":
         """Infer the compressor from one rated point.
@@ -302,9 +305,10 @@ class RatedPointCompressor:
         swept_volume : float, optional
             Swept volume [m³/s]; gives the clearance ratio instead.
         clearance : float
-            Clearance ratio used when the swept volume is not given [-].
+            Clearance ratio used when the swept volume is not given [-]
+            (default :data:`coldroom.rules.CYCLE_DEFAULTS`).
         isentropic_efficiency : float
-            Used when the power is not given [-].
+            Used when the power is not given [-] (default as *clearance*).
         operating : OperatingConditions
             The project's superheats and subcooling.
 

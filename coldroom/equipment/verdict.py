@@ -13,7 +13,13 @@ from __future__ import annotations
 from dataclasses import dataclass
 from typing import Any, Callable, Optional, Sequence
 
-from coldroom.rules import DISCHARGE_ADVISORY, DISCHARGE_LIMIT, pressure_ratio_advisory
+from coldroom.rules import (
+    DISCHARGE_ADVISORY,
+    DISCHARGE_LIMIT,
+    pressure_ratio_advisory,
+    required_capacity,
+    with_safety_factor,
+)
 from coldroom.equipment.balance import BalancePoint, HeatExchanger, balance_point, highest_holding_ambient
 from coldroom.equipment.compressors import Compressor, CompressorPoint
 from coldroom.errors import CalculationError, PropertyRangeError
@@ -265,7 +271,7 @@ def check_unit(
         Handbook—Refrigeration, "Refrigerated-Facility Loads": required
         capacity = (1 + SF)·E/run hours, solved for the hours [pub]).
     """
-    required = (1.0 + safety_factor) * daily_energy / run_time
+    required = required_capacity(daily_energy, run_time, safety_factor)
     load = load_at_ambient or (lambda _t: required)
     warnings: list[str] = []
     evap_basis = evaporator.basis
@@ -316,7 +322,7 @@ def check_unit(
     run_hours_needed = margin = None
     holds = False
     if capacity is not None:
-        run_hours_needed = (1.0 + safety_factor) * daily_energy / capacity / 3600.0
+        run_hours_needed = with_safety_factor(daily_energy, safety_factor) / capacity / 3600.0
         margin = (capacity / required - 1.0) * 100.0
         holds = capacity >= required
         if run_hours_needed > 24.0:

@@ -8,8 +8,10 @@ and checks that they now agree.
 
 from __future__ import annotations
 
+import ast
 import json
 from importlib.resources import files
+from pathlib import Path
 
 import pytest
 
@@ -120,6 +122,20 @@ def test_project_block_and_solve_cycle_defaults_are_the_table() -> None:
         assert parameters[name].default == getattr(design.CYCLE_DEFAULTS, name), name
 
 
+def test_existing_unit_compressor_defaults_are_the_table() -> None:
+    """The rated-point compressor and its operating conditions default to the same table."""
+    import inspect
+
+    from coldroom.equipment.compressors import OperatingConditions, RatedPointCompressor
+
+    operating = OperatingConditions()
+    for name in ("superheat", "suction_line_superheat", "subcooling"):
+        assert getattr(operating, name) == getattr(design.CYCLE_DEFAULTS, name), name
+    parameters = inspect.signature(RatedPointCompressor.from_rating).parameters
+    for name in ("clearance", "isentropic_efficiency"):
+        assert parameters[name].default == getattr(design.CYCLE_DEFAULTS, name), name
+
+
 def test_cycle_command_with_defaults_matches_the_project_sizing_for_the_same_duty() -> None:
     """The route a contractor takes by hand (`coldroom cycle`) and the project's own sizing agree."""
     from typer.testing import CliRunner
@@ -143,3 +159,47 @@ def test_cycle_command_with_defaults_matches_the_project_sizing_for_the_same_dut
     for key in ("mass_flow_kg_s", "displacement_m3_h", "compressor_power_w", "condenser_duty_w", "cop",
                 "discharge_temperature_c", "suction_line_superheat_k", "isentropic_efficiency"):
         assert by_hand[key] == pytest.approx(project[key], rel=1e-12), key
+
+
+# --- (e) (1 + SF)·E / t_run computed in one place ------------------------------------------------
+
+PACKAGE = Path(__file__).resolve().parents[2] / "coldroom"
+
+
+def _safety_factor_products(source: str) -> list[int]:
+    """Lines of every ``(1 + <something naming a safety factor>) * x`` (either order) in *source*."""
+    found = []
+    for node in ast.walk(ast.parse(source)):
+        if not (isinstance(node, ast.BinOp) and isinstance(node.op, ast.Mult)):
+            continue
+        for side in (node.left, node.right):
+            if (
+                isinstance(side, ast.BinOp)
+                and isinstance(side.op, ast.Add)
+                and any(isinstance(x, ast.Constant) and x.value == 1 for x in (side.left, side.right))
+                and "safety" in ast.unparse(side).lower()
+            ):
+                found.append(node.lineno)
+    return sorted(found)
+
+
+def test_the_safety_factor_scanner_finds_a_planted_formula() -> None:
+    planted = "def f(e, sf, t):\n    return (1.0 + sf) * e / t\n\ndef g(load, safety_factor):\n    return load * (1 + safety_factor)\n"
+    assert _safety_factor_products(planted) == [5]  # "sf" does not name the safety factor in words
+    assert _safety_factor_products(planted.replace("sf", "safety")) == [2, 5]
+
+
+def test_required_capacity_is_computed_in_one_place() -> None:
+    """(1 + SF)·E is written once (rules.with_safety_factor) and E/t_run over it once
+    (rules.required_capacity); the results, selection and the existing-unit verdict call them."""
+    where = {}
+    for path in sorted(PACKAGE.rglob("*.py")):
+        lines = _safety_factor_products(path.read_text(encoding="utf-8"))
+        if lines:
+            where[str(path.relative_to(PACKAGE))] = lines
+    assert list(where) == ["rules.py"] and len(where["rules.py"]) == 1, where
+    for module in ("results.py", "design/selection.py", "equipment/verdict.py"):
+        tree = ast.parse((PACKAGE / module).read_text(encoding="utf-8"))
+        called = {n.func.id for n in ast.walk(tree) if isinstance(n, ast.Call) and isinstance(n.func, ast.Name)}
+        assert "required_capacity" in called, module
+    assert design.required_capacity(3.6e8, 18 * 3600.0, 0.10) == pytest.approx(1.1 * 3.6e8 / 64_800.0)

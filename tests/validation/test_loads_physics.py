@@ -21,6 +21,7 @@ from CoolProp.HumidAirProp import HAPropsSI
 
 from coldroom.data import materials
 from coldroom.errors import CalculationError, LookupNameError
+from coldroom import rules
 from coldroom.loads import infiltration, internal, totals, transmission
 from coldroom.physics import psychrometrics as psy
 
@@ -380,8 +381,6 @@ def test_lighting_heaters_defrost_and_totals():
     assert totals.run_hours_for_defrost("off-cycle") == 16.0
     assert totals.run_hours_for_defrost("electric") == 18.0
     assert totals.run_hours_for_defrost("hot gas") == 20.0
-    assert totals.DEFAULT_SAFETY_FACTOR == 0.10
+    assert rules.DEFAULT_SAFETY_FACTOR == 0.10
     # 100 kWh/day over 18 h with 10 %: 1.1 × 3.6e8 J / 64 800 s = 6111.1 W.
-    assert totals.required_capacity(100 * 3.6e6, 18.0) == pytest.approx(6111.11, rel=1e-5)
-    with pytest.raises(CalculationError, match="run hours"):
-        totals.required_capacity(1e6, 0.0)
+    assert rules.required_capacity(100 * 3.6e6, 18 * 3600.0, rules.DEFAULT_SAFETY_FACTOR) == pytest.approx(6111.11, rel=1e-5)

@@ -7,6 +7,7 @@ from typing import Optional
 from pydantic import Field, PrivateAttr, model_validator
 
 from coldroom.constants import SECONDS_PER_DAY_S
+from coldroom.rules import DEFAULT_SAFETY_FACTOR
 from coldroom.inputs.projectfile.contents import Appliance, Defrost, Fans, Lighting, People, Product
 from coldroom.inputs.projectfile.envelope import SIDES, Dimensions, Door, Envelope, Infiltration
 from coldroom.inputs.projectfile.quantities import Name, Q, RelativeHumidity, RoomTemperature, Strict
@@ -31,7 +32,7 @@ class Room(Strict):
     fans: Optional[Fans] = None
     appliances: list[Appliance] = Field(default_factory=list, max_length=50)
     defrost: Defrost = Defrost()
-    safety_factor: Q("fraction", ge=0.0, le=1.0) = 0.10  # type: ignore[valid-type]
+    safety_factor: Q("fraction", ge=0.0, le=1.0) = DEFAULT_SAFETY_FACTOR  # type: ignore[valid-type]
     run_hours: Optional[Q("time", si="h", ip="h", ge=3600.0, le=SECONDS_PER_DAY_S)] = None  # type: ignore[valid-type]
     refrigeration: Refrigeration = Refrigeration()
     existing_unit: Optional[ExistingUnit] = Field(
