@@ -806,7 +806,7 @@ def quote_command(
         result = size_project(model, project, Path(project).read_bytes())
         quote = build_quote(model, equipment, result, selections)
         console = console_for(pdf_target, xlsx_target, json_target)
-        say(quote_report(quote), file=console)
+        say(quote_report(quote, model.project.units), file=console)
         if pdf_target is not None:
             from coldroom.output.pdf.proposal import render_proposal  # reportlab, lazily
 

@@ -95,7 +95,9 @@ def nec_circuit(loads: Sequence[Load]) -> tuple[float, int, str]:
     mop_raw = 2.25 * largest + others
     mop = round_down_standard(mop_raw)
     how = f"2.25 × {largest:.1f} A + {others:.1f} A = {mop_raw:.1f} A, rounded down to {mop} A"
-    if mop < mca:
+    if mop_raw < STANDARD_RATINGS[0]:
+        how = f"2.25 × {largest:.1f} A + {others:.1f} A = {mop_raw:.1f} A, below the smallest standard rating: {mop} A"
+    elif mop < mca:
         mop = round_up_standard(mca)
         how += f"; below the MCA, so the standard rating covering it: {mop} A"
     return mca, mop, how
@@ -153,9 +155,11 @@ class SystemSchedule:
             "total_running_current_a": self.total_running_current,
             "notes": list(self.notes),
         }
-        if self.code == "NEC":
-            out["minimum_circuit_ampacity_a"] = sum(i.minimum_circuit_ampacity or 0.0 for i in self.items)
-            out["maximum_overcurrent_protection_a"] = sum(i.maximum_overcurrent_protection or 0 for i in self.items)
+        if self.code == "NEC":  # the whole system as one circuit: every unit's loads together
+            mca, mop, how = nec_circuit([load for item in self.items for load in item.loads])
+            out["minimum_circuit_ampacity_a"] = mca
+            out["maximum_overcurrent_protection_a"] = mop
+            out["overcurrent_basis"] = "the system's units on one circuit: " + how
         return out
 
 

@@ -153,7 +153,7 @@ class Quote:
             "missing_prices": self.missing_prices,
             "valves": [v.to_json() for v in self.valves],
             "electrical": [e.to_json() for e in self.electrical],
-            "warnings": list(self.warnings),
+            "warnings": [str(w) for w in self.warnings],
         }
 
 
@@ -214,6 +214,9 @@ def _pick(entries: Sequence[Any], key: Any, fits: Any) -> Optional[Any]:
 
 
 def _panel_lines(model: "ProjectModel", catalogue: "Catalogue") -> tuple[list[QuoteLine], tuple[PanelSurface, ...]]:
+    from coldroom.units import display
+
+    system = model.project.units
     surfaces = panel_surfaces(model)
     by_thickness: dict[float, list[PanelSurface]] = {}
     for s in surfaces:
@@ -226,7 +229,7 @@ def _panel_lines(model: "ProjectModel", catalogue: "Catalogue") -> tuple[list[Qu
         parts = ", ".join(f"{s.room} {s.side} {s.net_area:.2f}" + (f" (door {s.door_area:.2f} off)" if s.door_area else "")
                           for s in group)
         lines.append(QuoteLine(
-            "panels", f"insulated panel {thickness * 1e3:.0f} mm", panel.model if panel else None, area, "m²",
+            "panels", f"insulated panel {display(thickness, 'thickness', system)}", panel.model if panel else None, area, "m²",
             panel.price if panel else None,
             f"outside faces, m²: {parts}" + ("" if panel else f"; no {thickness * 1e3:.0f} mm panel in the catalogue"),
         ))
@@ -234,13 +237,17 @@ def _panel_lines(model: "ProjectModel", catalogue: "Catalogue") -> tuple[list[Qu
 
 
 def _door_lines(model: "ProjectModel", catalogue: "Catalogue") -> list[QuoteLine]:
+    from coldroom.units import display
+
+    system = model.project.units
     lines = []
     for room in model.rooms:
         for door in room.doors:
             entry = _pick(catalogue.doors, lambda d: (d.width * d.height, d.price),
                           lambda d: d.width >= door.width - 1e-9 and d.height >= door.height - 1e-9)
             lines.append(QuoteLine(
-                "doors", f"door {door.width:.2f} × {door.height:.2f} m, {room.name}: {door.name}",
+                "doors", f"door {display(door.width, 'length', system, 2)} × {display(door.height, 'length', system, 2)}"
+                f", {room.name}: {door.name}",
                 entry.model if entry else None, 1, "item", entry.price if entry else None,
                 f"{room.name}, door '{door.name}': smallest catalogue door covering the opening"
                 if entry else f"{room.name}, door '{door.name}': no catalogue door covers the opening",

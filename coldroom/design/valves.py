@@ -162,17 +162,22 @@ def choose_valve(
         if capacity >= duty:
             warning = None
             if capacity > OVERSIZE_WARNING * duty:
-                warning = (
-                    f"{room}: the smallest valve that covers {duty:.0f} W, {valve.model}, gives {capacity:.0f} W at "
-                    f"the coil's conditions ({capacity / duty * 100:.0f} % of the duty, above "
-                    f"{OVERSIZE_WARNING * 100:.0f} %): it may hunt at part load; check the valve's orifice range"
+                from coldroom.results import Note
+
+                warning = Note.fill(
+                    f"{room}: the smallest valve that covers {{d}}, {valve.model}, gives {{c}} at the coil's "
+                    f"conditions ({capacity / duty * 100:.0f} % of the duty, above {OVERSIZE_WARNING * 100:.0f} %): "
+                    "it may hunt at part load; check the valve's orifice range",
+                    d=(duty, "power"), c=(capacity, "power"),
                 )
             return ValveChoice(room, valve.model, valve.price, duty, capacity, job.pressure_drop,
                                conditions.subcooling, f"smallest {name} valve covering the coil's duty {where}", warning)
     best = rated[-1][0] if rated else 0.0
+    from coldroom.results import Note
+
     return ValveChoice(
         room, None, None, duty, best, job.pressure_drop, conditions.subcooling,
         f"no {name} valve in the catalogue covers {duty:.0f} W {where}",
-        f"{room}: no {name} expansion valve in the catalogue covers the coil's {duty:.0f} W at its conditions "
-        f"(largest {best:.0f} W): price one by hand",
+        Note.fill(f"{room}: no {name} expansion valve in the catalogue covers the coil's {{d}} at its conditions "
+                  "(largest {c}): price one by hand", d=(duty, "power"), c=(best, "power")),
     )

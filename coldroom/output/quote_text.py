@@ -13,11 +13,23 @@ def money(value: float, currency: str) -> str:
     return f"{value:,.2f}".replace(",", " ") + f" {currency}"
 
 
-def quantity_text(value: float, unit: str) -> str:
-    return f"{value:g} {unit}" if unit in ("item",) else f"{value:.2f} {unit}"
+#: The quote's SI units and the quantity kind each is shown as in the project's system.
+KINDS = {"m²": ("area", 1), "m": ("length", 1), "kg": ("mass", 2)}
 
 
-def quote_report(quote: "Quote") -> str:
+def quantity_text(value: float, unit: str, system: str = "SI") -> str:
+    """A line's quantity in the project's unit system (items as counts, hours as hours)."""
+    if unit == "item":
+        return f"{value:g}"
+    if unit in KINDS:
+        from coldroom.units import display
+
+        kind, digits = KINDS[unit]
+        return display(value, kind, system, digits)
+    return f"{value:.1f} {unit}"
+
+
+def quote_report(quote: "Quote", system: str = "SI") -> str:
     """Plain text: one row per line, totals, missing prices and warnings."""
     c = quote.currency
     rows = []
@@ -28,7 +40,7 @@ def quote_report(quote: "Quote") -> str:
             rows.append(f"{section.upper()}")
         price = money(line.total_price, c) if line.total_price is not None else "PRICE NEEDED"
         model = f" [{line.model}]" if line.model else ""
-        rows.append(f"  {line.item}{model}: {quantity_text(line.quantity, line.unit)}  {price}")
+        rows.append(f"  {line.item}{model}: {quantity_text(line.quantity, line.unit, system)}  {price}")
     rows += [
         "",
         f"subtotal          {money(quote.subtotal_price, c)}",
@@ -40,5 +52,7 @@ def quote_report(quote: "Quote") -> str:
         rows.append(f"INCOMPLETE: {len(quote.missing_prices)} line(s) need a price: " + "; ".join(quote.missing_prices))
     for schedule in quote.electrical:
         rows.append(f"electrical, {schedule.system}: total running current {schedule.total_running_current:.1f} A")
-    rows += [f"  WARNING: {w}" for w in quote.warnings]
+    from coldroom.units import format_terms
+
+    rows += [f"  WARNING: {format_terms(w, system) if hasattr(w, 'phrase') else w}" for w in quote.warnings]
     return "\n".join(rows)

@@ -72,3 +72,19 @@ def test_nec_figures_of_a_catalogue_unit() -> None:
     assert item.minimum_circuit_ampacity == pytest.approx(1.25 * rla + fans)
     assert item.maximum_overcurrent_protection == 35  # 2.25 × 17.0 + 0.2 = 38.4 -> 35 A
     assert item.running_current == 17.2 and item.locked_rotor_current == 80.0 and not item.estimated
+
+
+def test_nec_system_on_one_circuit_by_hand() -> None:
+    """Two invented units on one circuit: compressor RLA 12.0 A with fans 0.8 A, and a coil with a
+    fan of 0.5 A and a 6.0 A heater. NEC 440.33 / 440.22(A) (from memory): MCA = 1.25 × 12.0 + 0.8 +
+    0.5 + 6.0 = 22.3 A; MOP = 2.25 × 12.0 + 7.3 = 34.3 A -> 30 A, not below the MCA."""
+    from coldroom.design.electrical_schedule import ElectricalItem, SystemSchedule
+
+    unit = ElectricalItem("condensing unit", "A", "400 V 3~ 50 Hz", 12.8, 60.0, False, "",
+                          (Load("compressor", 12.0, True), Load("fans", 0.8, True)))
+    coil = ElectricalItem("unit coolers", "B", "230 V 1~ 50 Hz", 6.5, None, False, "",
+                          (Load("fan", 0.5, True), Load("heater", 6.0, False)))
+    data = SystemSchedule("S", (unit, coil), "NEC").to_json()
+    assert data["minimum_circuit_ampacity_a"] == pytest.approx(22.3)
+    assert data["maximum_overcurrent_protection_a"] == 30
+    assert data["total_running_current_a"] == pytest.approx(19.3)

@@ -23,6 +23,7 @@ from coldroom.output.pdf.layout import (
     BODY, H1, H2, SMALL, WARN, Paragraph, document, grid, heading, note, warning_box,
 )
 from coldroom.output.pdf.text import capacity, clean, esc, q, temperature
+from coldroom.output.quote_text import quantity_text
 
 if TYPE_CHECKING:  # pragma: no cover
     from coldroom.design.quote import Quote
@@ -127,7 +128,7 @@ def _included(quote: "Quote", ctx: _Ctx) -> list:
             bands.append(len(rows))
             rows.append([labels[section], ""])
         text = line.item + (f" ({line.model})" if line.model and line.section != "pipework" else "")
-        qty = f"{line.quantity:g}" if line.unit == "item" else f"{line.quantity:.1f} {line.unit}"
+        qty = clean(quantity_text(line.quantity, line.unit, ctx.system))
         rows.append([text[:1].upper() + text[1:], qty])
     rows.append(["Installation, pipework, wiring from the isolators to the units, evacuation, charging and "
                  "commissioning", "–"])
