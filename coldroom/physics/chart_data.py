@@ -461,8 +461,10 @@ def chart_data(
     ChartData
     """
     from coldroom.physics import disk_cache
+    from coldroom.physics.refrigerant import coolprop_version
 
     key = {
+        "CoolProp": coolprop_version(),
         "refrigerant": refrigerant,
         "pressure_low": pressure_low,
         "pressure_high": pressure_high,

@@ -1,9 +1,11 @@
 """Results kept on disk between runs: computed once per key, read back in later processes.
 
 What is kept: the p–h chart's lines (:mod:`coldroom.physics.chart_data`), which cost
-a few tenths of a second of property calls per refrigerant and pressure window and
-are the same in every run with the same refrigerant, window, coldroom version and
-CoolProp version — the key of every entry holds all four.
+a few tenths of a second of property calls per refrigerant and pressure window, and
+the blends' saturation tables (:mod:`coldroom.physics.refrigerant.blend_table`, eight
+CoolProp flashes per segment); both are the same in every run with the same
+refrigerant, window, coldroom version and CoolProp version — the key of every entry
+holds them.
 
 The folder:
 
@@ -68,9 +70,10 @@ def folder(environ: Optional[Mapping[str, str]] = None) -> Optional[Path]:
 
 def _full_key(kind: str, key: Mapping[str, Any]) -> dict[str, Any]:
     from coldroom import __version__
-    from coldroom.physics.refrigerant import coolprop_version
 
-    return {"kind": kind, "coldroom": __version__, "CoolProp": coolprop_version(), **key}
+    if "CoolProp" not in key:
+        raise ValueError("a disk-cache key names the CoolProp version")
+    return {"kind": kind, "coldroom": __version__, **key}
 
 
 #: Strict JSON (RFC 8259): a NaN or an infinity is refused (ValueError), not written as a bare word.
@@ -90,7 +93,9 @@ def load(kind: str, key: Mapping[str, Any]) -> Any:
     kind : str
         What the value is (a file-name prefix, e.g. ``"chart"``).
     key : mapping
-        JSON-able values that determine the value; the coldroom and CoolProp versions are added.
+        JSON-able values that determine the value, the CoolProp version among them (under
+        ``"CoolProp"``; the caller reads it, this module imports no property library); the
+        coldroom version is added.
     """
     where = folder()
     if where is None:

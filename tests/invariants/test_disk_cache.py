@@ -1,5 +1,5 @@
 """The disk cache (coldroom.physics.disk_cache) changes nothing but the time: the sizing sheet is
-byte-identical with the cache cold, warm or off; a damaged entry is rebuilt; the chart data read
+byte-identical with the cache cold, warm (chart data and blend table read back) or off; a damaged entry is rebuilt; the chart data read
 back equals the data computed; the folder follows COLDROOM_CACHE_DIR and the XDG Base Directory
 rule (XDG Base Directory Specification 0.8, $XDG_CACHE_HOME: unset, empty or relative → ~/.cache)."""
 
@@ -39,8 +39,11 @@ def _forget_in_process() -> None:
     """Drop the per-process caches, so each run below starts like a new process."""
     from coldroom.output.pdf import phchart
     from coldroom.physics.chart_data import chart_data
+    from coldroom.physics.refrigerant import blend_table, fluid
 
+    blend_table.keep_tables()  # what a process does at exit
     chart_data.cache_clear()
+    fluid._fluid_by_name.cache_clear()  # a new fluid reads its blend table back
     phchart._BACKGROUNDS.clear()
 
 
@@ -71,6 +74,7 @@ def test_the_sheet_is_byte_identical_cold_warm_off_and_rebuilt(tmp_path, monkeyp
     monkeypatch.setattr(chart_module, "_compute", lambda *a: computed.append(a) or compute(*a))
     warm = _sheet(tmp_path, "warm")
     assert computed == [], "the warm run reads the chart data back"
+    assert list(cache.glob("blend-table-*.json")), "and the R-448A saturation table"
     assert warm == cold
 
     entries[0].write_bytes(b'{"key": {"kind": "chart"}, "value": [1, 2')  # a torn or damaged entry
@@ -89,22 +93,28 @@ def test_an_unwritable_folder_is_no_error(tmp_path, monkeypatch) -> None:
     blocker = tmp_path / "a-file"
     blocker.write_text("not a folder")
     monkeypatch.setenv("COLDROOM_CACHE_DIR", str(blocker / "cache"))
-    disk_cache.store("chart", {"x": 1}, [1.5])  # nothing raised
-    assert disk_cache.load("chart", {"x": 1}) is None
+    disk_cache.store("chart", {"CoolProp": "any", "x": 1}, [1.5])  # nothing raised
+    assert disk_cache.load("chart", {"CoolProp": "any", "x": 1}) is None
 
 
 def test_floats_come_back_bit_for_bit(tmp_path, monkeypatch) -> None:
     monkeypatch.setenv("COLDROOM_CACHE_DIR", str(tmp_path))
     values = [0.1, 1 / 3, 2.0**-1074, 1.7976931348623157e308, -0.0, 123456.789e-300]
-    disk_cache.store("test", {"n": 1}, values)
-    back = disk_cache.load("test", {"n": 1})
+    disk_cache.store("test", {"CoolProp": "any", "n": 1}, values)
+    back = disk_cache.load("test", {"CoolProp": "any", "n": 1})
     assert [v.hex() for v in back] == [v.hex() for v in values]
-    assert disk_cache.load("test", {"n": 2}) is None
+    assert disk_cache.load("test", {"CoolProp": "any", "n": 2}) is None
 
 
 def test_a_value_with_nan_is_not_kept(tmp_path, monkeypatch) -> None:
     """The entries are strict JSON (RFC 8259 has no NaN): such a value is simply not kept."""
     monkeypatch.setenv("COLDROOM_CACHE_DIR", str(tmp_path))
-    disk_cache.store("test", {"n": 1}, [float("nan")])
-    assert disk_cache.load("test", {"n": 1}) is None
+    disk_cache.store("test", {"CoolProp": "any", "n": 1}, [float("nan")])
+    assert disk_cache.load("test", {"CoolProp": "any", "n": 1}) is None
     assert list(tmp_path.iterdir()) == []
+
+
+def test_a_key_must_name_the_coolprop_version(tmp_path, monkeypatch) -> None:
+    monkeypatch.setenv("COLDROOM_CACHE_DIR", str(tmp_path))
+    with pytest.raises(ValueError):
+        disk_cache.store("test", {"n": 1}, [1.0])

@@ -7,8 +7,10 @@ flash 0.3–0.5 s. So:
   (:class:`MixtureTable`): dew and bubble temperature and the incipient
   phase's composition against ln p, as Chebyshev series on segments 0.25 wide
   in ln p, each segment fitted to eight of CoolProp's own P–Q solutions the
-  first time a pressure in it is asked for. The series reproduce CoolProp's
-  saturation temperatures to about 1e-9 K. The saturated state itself is then
+  first time a pressure in it is asked for (a fit depends on its own nodes
+  only, so the order of fitting changes nothing; the fitted segments are kept
+  on disk between runs, :mod:`coldroom.physics.disk_cache`, and read back bit
+  for bit). The series reproduce CoolProp's saturation temperatures to about 1e-9 K. The saturated state itself is then
   the equation of state evaluated at the table's (p, T) with the phase
   imposed (its density solve started from the table's density), so h, s and
   ρ are the EOS's; pressures outside the table (or a
@@ -29,9 +31,12 @@ Superheated and subcooled states are :class:`~coldroom.physics.refrigerant.fluid
 
 from __future__ import annotations
 
+import atexit
 import math
+import weakref
 from typing import TYPE_CHECKING, NamedTuple
 
+import CoolProp
 import CoolProp.CoolProp as CP
 from CoolProp.CoolProp import AbstractState, PyGuessesStructure
 
@@ -87,6 +92,23 @@ class _Segment(NamedTuple):
         return (2.0 * u - self.a - self.b) / (self.b - self.a)
 
 
+#: The tables alive in this process, written to the disk cache at exit (:meth:`MixtureTable.keep`;
+#: weak references: a table goes with its fluid).
+_TABLES: "weakref.WeakSet[MixtureTable]" = weakref.WeakSet()
+
+
+def keep_tables() -> None:
+    """Write every table's new segments to the disk cache (run at exit)."""
+    for table in list(_TABLES):
+        try:
+            table.keep()
+        except Exception:  # noqa: BLE001 - a cache must never fail a run at exit
+            pass
+
+
+atexit.register(keep_tables)
+
+
 class MixtureTable:
     """Saturation table and two-phase flash of one predefined mixture.
 
@@ -117,6 +139,43 @@ class MixtureTable:
         self.last = max(0, math.ceil((self.u_high - self.u_low) / _SEGMENT_WIDTH) - 1)
         # (segment index, quality) -> the fitted segment, or None where CoolProp cannot fit one
         self.segments: dict[tuple[int, float], _Segment | None] = {}
+        self._kept = 0  # segments that came from (or went to) the disk cache
+        self._read_back()
+
+    # ---------------------------------------------------------- the disk cache
+    def _cache_key(self) -> dict:
+        """What the fitted segments depend on: the mixture, the table's layout, the CoolProp version."""
+        return {"CoolProp": str(CoolProp.__version__), "mixture": self.fluid.info.coolprop_name,
+                "segment_width": _SEGMENT_WIDTH, "nodes": _SEGMENT_NODES, "u_low": self.u_low, "u_high": self.u_high}
+
+    def _read_back(self) -> None:
+        """The segments an earlier run fitted (:mod:`coldroom.physics.disk_cache`), bit for bit the
+        same as fitting them again (a segment's fit depends on nothing but its own nodes, tested)."""
+        from coldroom.physics import disk_cache
+
+        _TABLES.add(self)
+        kept = disk_cache.load("blend-table", self._cache_key())
+        try:
+            segments = {(int(k), float(q)): None if fit is None else _Segment(
+                float(fit[0]), float(fit[1]), [float(v) for v in fit[2]], [[float(v) for v in c] for c in fit[3]],
+                [float(v) for v in fit[4]]) for k, q, fit in (kept or [])}
+        except (TypeError, ValueError, IndexError):
+            return  # a damaged entry: fitted again and rewritten at exit
+        self.segments.update(segments)
+        self._kept = len(self.segments)
+
+    def keep(self) -> None:
+        """Write the segments fitted in this process to the disk cache (with those kept by others)."""
+        from coldroom.physics import disk_cache
+
+        if len(self.segments) <= self._kept:
+            return
+        key = self._cache_key()
+        merged = {(int(k), float(q)): fit for k, q, fit in (disk_cache.load("blend-table", key) or [])}
+        merged.update({key_: None if seg is None else [seg.a, seg.b, seg.temperature, seg.composition, seg.density]
+                       for key_, seg in self.segments.items()})
+        disk_cache.store("blend-table", key, [[k, q, fit] for (k, q), fit in sorted(merged.items())])
+        self._kept = len(self.segments)
 
     # ------------------------------------------------------------- the table
     def _segment(self, k: int, quality: float) -> _Segment | None:
@@ -178,43 +237,77 @@ class MixtureTable:
     def log_pressure(self, temperature: float, quality: float) -> float | None:
         """ln p at which the dew (bubble) temperature is *temperature* [K], or None.
 
-        Newton on the table; the first guess is a Clausius–Clapeyron line
-        (ln p linear in 1/T) through a segment already fitted for this line,
-        else through the minimum and critical points.
+        The answer depends on one segment only, the lowest whose top temperature is at or
+        above *temperature* (so a table whose segments were fitted in another order, or read
+        back from the disk cache, gives the same digits): a first guess (a Clausius–Clapeyron
+        line, ln p linear in 1/T, through the nearest segment already fitted, else through the
+        minimum and critical points) only picks where the search for that segment starts;
+        Newton then runs on that segment's series alone, from the Clausius–Clapeyron line
+        through its two ends.
         """
+        k = self._start_segment(temperature, quality)
+        visited: set[int] = set()
+        for _ in range(2 * self.last + 4):  # each pass visits a new segment or steps to a visited neighbour
+            segment = self._segment(k, quality)
+            if segment is None:
+                return None
+            t_a, t_b = _chebyshev(segment.temperature, -1.0), _chebyshev(segment.temperature, 1.0)
+            visited.add(k)
+            if temperature > t_b:  # above this segment: up (jumping by its own slope)
+                if k == self.last:
+                    return None
+                k = max(k + 1, min(self._segment_at(segment, t_a, t_b, temperature), self.last))
+                continue
+            if temperature <= t_a + 1e-4 and k > 0:  # at or below its foot: is the one below the lowest?
+                below = self._segment(k - 1, quality)
+                if below is None:
+                    return None
+                if temperature <= _chebyshev(below.temperature, 1.0):
+                    if k - 1 in visited:
+                        k -= 1
+                        continue
+                    k = min(k - 1, max(self._segment_at(segment, t_a, t_b, temperature), 0))
+                    continue
+            elif temperature < t_a:  # below the lowest segment
+                return None
+            break
+        else:  # pragma: no cover - the search always settles on a monotone line
+            return None
+        a, b, series = segment.a, segment.b, segment.temperature
+        u = a + (b - a) * (1.0 / t_a - 1.0 / temperature) / (1.0 / t_a - 1.0 / t_b)
+        for _ in range(40):
+            x = segment.x(u)
+            t = _chebyshev(series, x)
+            if abs(temperature - t) <= 1e-11 * temperature:
+                return u
+            dx = 1e-6
+            slope = (_chebyshev(series, x + dx) - _chebyshev(series, x - dx)) / (2.0 * dx) * 2.0 / (b - a)
+            u += (temperature - t) / slope
+        return None  # pragma: no cover - Newton on a monotone smooth series
+
+    def _segment_at(self, segment: _Segment, t_a: float, t_b: float, temperature: float) -> int:
+        """The segment index where *segment*'s Clausius–Clapeyron line reaches *temperature*."""
+        u = segment.a + (segment.b - segment.a) * (1.0 / t_a - 1.0 / temperature) / (1.0 / t_a - 1.0 / t_b)
+        return int(math.floor((u - self.u_low) / _SEGMENT_WIDTH))
+
+    def _start_segment(self, temperature: float, quality: float) -> int:
+        """Where the search for *temperature*'s segment starts (a guess: it changes the work, never the answer)."""
         guess = None
         for (k, q), segment in self.segments.items():
             if q != quality or segment is None:
                 continue
-            a, b, series = segment.a, segment.b, segment.temperature
-            t_a, t_b = _chebyshev(series, -1.0), _chebyshev(series, 1.0)
-            if guess is None or min(abs(temperature - t_a), abs(temperature - t_b)) < guess[0]:
-                slope = (b - a) / (1.0 / t_a - 1.0 / t_b)
-                guess = (min(abs(temperature - t_a), abs(temperature - t_b)), a + slope * (1.0 / t_a - 1.0 / temperature))
+            t_a, t_b = _chebyshev(segment.temperature, -1.0), _chebyshev(segment.temperature, 1.0)
+            distance = min(abs(temperature - t_a), abs(temperature - t_b))
+            if guess is None or distance < guess[0]:
+                guess = (distance, self._segment_at(segment, t_a, t_b, temperature))
         if guess is None:
             t_low = self.fluid.minimum_temperature + ZERO_CELSIUS_K + 1.0
             t_crit = self.fluid.critical_temperature + ZERO_CELSIUS_K
             slope = (math.log(self.fluid.critical_pressure) - self.u_low) / (1.0 / t_low - 1.0 / t_crit)
-            u = self.u_low + slope * (1.0 / t_low - 1.0 / temperature)
+            k = int(math.floor(slope * (1.0 / t_low - 1.0 / temperature) / _SEGMENT_WIDTH))
         else:
-            u = guess[1]
-        for _ in range(40):
-            u = min(max(u, self.u_low), self.u_high)
-            segment = self._locate(u, quality)
-            if segment is None:
-                return None
-            a, b, series = segment.a, segment.b, segment.temperature
-            x = segment.x(u)
-            t = _chebyshev(series, x)
-            dx = 1e-6
-            slope = (_chebyshev(series, x + dx) - _chebyshev(series, x - dx)) / (2.0 * dx) * 2.0 / (b - a)
-            step = (temperature - t) / slope
-            if abs(temperature - t) <= 1e-11 * temperature:
-                return u
-            if (u == self.u_low and step < 0) or (u == self.u_high and step > 0):
-                return None
-            u += step
-        return None  # pragma: no cover - Newton on a monotone smooth series
+            k = guess[1]
+        return min(max(k, 0), self.last)
 
     # ------------------------------------------------ saturated states
     def saturation(self, given: str, value_si: float, quality: float) -> StatePoint | None:
