@@ -189,12 +189,15 @@ def write_output(target, data, *, force: bool, project: Optional[str], console) 
         say(f"wrote {target.name}", file=console)
 
 
-def emit_json(data: object, target, *, force: bool, project: str, console) -> None:  # type: ignore[no-untyped-def]
-    """Write *data* as strict JSON to a checked *target*; nothing when not asked."""
+def emit_json(command: str, body, target, *, force: bool, project: str, model, content: bytes, console) -> None:  # type: ignore[no-untyped-def]
+    """Write *command*'s JSON document (the envelope of :mod:`coldroom.output.json_contract` around
+    *body*, a mapping or a function making it) as strict JSON to a checked *target*; nothing when not asked."""
     if target is None:
         return
     from coldroom.output.files import json_text
+    from coldroom.output.json_contract import document, project_block
 
+    data = document(command, body() if callable(body) else body, project_block(model, project, content))
     write_output(target, json_text(data), force=force, project=project, console=console)
 
 
@@ -259,6 +262,7 @@ def load_command(
         from coldroom.inputs.opening import open_project
         from coldroom.output.terminal import loads_report
         from coldroom.units import format_terms
+        from coldroom.output.json_contract import load_body
 
         opened = open_project(project)
         model = opened.model
@@ -266,16 +270,12 @@ def load_command(
         (json_target,) = check_outputs(("--json", json_out), force=force, project=project)
         rooms = project_loads(model)
         warnings = [message for _, message in project_warnings(model)]
-        payload = {
-            "project": {"name": model.project.name, "unit_system": model.project.units},
-            "rooms": [r.to_json() for r in rooms],
-            "warnings": [str(message) for message in warnings],  # SI wording, like every JSON figure
-        }
         out = console_for(json_target)
         say(loads_report(rooms, model.project.units, [r.temperature for r in model.rooms]), file=out)
         for message in warnings:
             say(f"warning: {format_terms(message, model.project.units)}", file=out)
-        emit_json(payload, json_target, force=force, project=project, console=out)
+        emit_json("load", lambda: load_body(rooms, warnings), json_target, force=force, project=project,
+                  model=model, content=opened.content, console=out)
 
     guarded(run)
 
@@ -283,12 +283,28 @@ def load_command(
 @app.command("schema")
 def schema_command(
     catalogue: bool = typer.Option(False, "--catalogue", help="The schema of an equipment catalogue instead."),
+    result: Optional[str] = typer.Option(
+        None, "--result", metavar="COMMAND",
+        help="The schema of COMMAND's --json output instead (load, size, check, select, compare, cycle, quote).",
+    ),
 ) -> None:
     """Print the JSON Schema of the project file (or of a catalogue; for editors that complete and check YAML)."""
 
     def run() -> None:
         from coldroom.output.files import json_text
 
+        if result is not None:
+            from coldroom.errors import UsageError
+            from coldroom.output.json_contract import COMMANDS
+
+            if catalogue:
+                raise UsageError("give --catalogue or --result, not both")
+            if result not in COMMANDS:
+                raise UsageError(f"--result {result!r}: give one of {', '.join(COMMANDS)}")
+            from coldroom.output.json_schema import result_schema
+
+            sys.stdout.write(json_text(result_schema(result)))
+            return
         if catalogue:
             from coldroom.inputs.catalogue import json_schema
         else:
@@ -393,7 +409,8 @@ def size_command(
         say(size_summary(result, model), file=console)
         console.flush()  # a full disk behind the terminal text stops the run before any file is written
         write_output(pdf_target, pdf, force=force, project=project, console=console)
-        emit_json(result.to_json(), json_target, force=force, project=project, console=console)
+        emit_json("size", result.to_json, json_target, force=force, project=project, model=model,
+                  content=opened.content, console=console)
 
     guarded(run)
 
@@ -457,7 +474,8 @@ def compare_command(
             pdf = render_compare(result, model.project.units, meta)
             console.flush()
             write_output(pdf_target, pdf, force=force, project=project, console=console)
-        emit_json(result.to_json(), json_target, force=force, project=project, console=console)
+        emit_json("compare", result.to_json, json_target, force=force, project=project, model=model, content=raw,
+                  console=console)
 
     guarded(run)
 
@@ -634,8 +652,9 @@ def cycle_command(
             raise CalculationError(f"{'; '.join(given)}: {error}") from None
         if as_json:
             from coldroom.output.files import json_text
+            from coldroom.output.json_contract import document
 
-            sys.stdout.write(json_text(result.to_json()))
+            sys.stdout.write(json_text(document("cycle", result.to_json(), None)))
         else:
             print(cycle_table(result))
         if out_target is not None:
@@ -687,19 +706,10 @@ def check_command(
         ]
         console = console_for(json_target)
         say(check_report(model, checks, limits), file=console)
-        if json_target is not None:  # build the payload only when asked
-            data = {
-                "project": {"name": model.project.name, "unit_system": model.project.units, "input_file": project},
-                "rooms": [
-                    {
-                        "name": loads.name,
-                        "required_capacity_w": loads.required_capacity,
-                        "existing_unit": None if check is None else {**check.to_json(), **limit.to_json()},
-                    }
-                    for (loads, check), limit in zip(checks, limits)
-                ],
-            }
-            emit_json(data, json_target, force=force, project=project, console=console)
+        from coldroom.output.json_contract import check_body
+
+        emit_json("check", lambda: check_body(checks, limits), json_target, force=force, project=project,
+                  model=model, content=opened.content, console=console)
 
     guarded(run)
 
@@ -743,23 +753,16 @@ def select_command(
         console = console_for(pdf_target, json_target)
         say(selection_report(selections, model.project.units), file=console)
         if pdf_target is not None:
-            from pathlib import Path
-
             from coldroom.output.pdf.sheet import render_sheet  # reportlab, lazily
             from coldroom.design.sizing import size_project
 
-            result = size_project(model, project, Path(project).read_bytes())
+            result = size_project(model, project, opened.content)
             write_output(pdf_target, render_sheet(result, model, selection=selections), force=force,
                          project=project, console=console)
-        if json_target is not None:
-            data = {
-                "project": {"name": model.project.name, "unit_system": model.project.units, "input_file": project},
-                "catalogue": catalogue,
-                "currency": equipment.currency,
-                "selection": [s.to_json() for s in selections],
-                "total_price": sum(s.total_price for s in selections),
-            }
-            emit_json(data, json_target, force=force, project=project, console=console)
+        from coldroom.output.json_contract import select_body
+
+        emit_json("select", lambda: select_body(selections, catalogue, equipment.currency), json_target, force=force,
+                  project=project, model=model, content=opened.content, console=console)
 
     guarded(run)
 
@@ -786,12 +789,11 @@ def quote_command(
         pdf_target, xlsx_target, json_target = check_targets(
             (("--out", out), ("--costing", costing), ("--json", json_out)), force=force, inputs=[project, catalogue]
         )
-        from pathlib import Path
-
         from coldroom.inputs.catalogue import load_catalogue
         from coldroom.inputs.opening import open_project
 
-        model = open_project(project).model
+        opened = open_project(project)
+        model = opened.model
         equipment = load_catalogue(catalogue)
         from coldroom.design.quote import build_quote
         from coldroom.design.selection import NothingFitsError, select_project
@@ -803,7 +805,7 @@ def quote_command(
             selections = select_project(model, equipment)
         except NothingFitsError as exc:
             raise NothingFitsError(format_terms(exc.args[0], model.project.units)) from None
-        result = size_project(model, project, Path(project).read_bytes())
+        result = size_project(model, project, opened.content)
         quote = build_quote(model, equipment, result, selections)
         console = console_for(pdf_target, xlsx_target, json_target)
         say(quote_report(quote, model.project.units), file=console)
@@ -816,13 +818,10 @@ def quote_command(
             from coldroom.output.costing import costing_workbook  # openpyxl, lazily
 
             write_output(xlsx_target, costing_workbook(quote, model), force=force, project=project, console=console)
-        if json_target is not None:
-            data = {
-                "project": {"name": model.project.name, "unit_system": model.project.units, "input_file": project},
-                "catalogue": catalogue,
-                "quote": quote.to_json(),
-            }
-            emit_json(data, json_target, force=force, project=project, console=console)
+        from coldroom.output.json_contract import quote_body
+
+        emit_json("quote", lambda: quote_body(quote, catalogue), json_target, force=force, project=project,
+                  model=model, content=opened.content, console=console)
 
     guarded(run)
 

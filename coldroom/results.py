@@ -236,8 +236,8 @@ class RoomLoads:
             "loads_w": self.components_w,
             "daily_energy_kwh": self.daily_energy / 3.6e6,
             "safety_factor": self.safety_factor,
-            "run_hours": self.run_time / 3600.0,
-            "run_hours_basis": self.run_time_basis,
+            "daily_run_time_h": self.run_time / 3600.0,
+            "daily_run_time_basis": self.run_time_basis,
             "required_capacity_w": self.required_capacity,
             "peak_load_w": self.peak_load,
             "peak_load_basis": (
@@ -247,7 +247,7 @@ class RoomLoads:
             ),
             "hourly_load_w": list(self.design_day.hourly_load) if self.design_day is not None else None,
             "peak_hour": self.design_day.peak_hour if self.design_day is not None else None,
-            "outdoor_temperature_hourly_c": (
+            "hourly_outdoor_temperature_c": (
                 list(self.design_day.outdoor_temperature) if self.design_day is not None else None
             ),
             "design_capacity_w": self.design_capacity,
@@ -261,7 +261,7 @@ class RoomLoads:
                     "component": line.component,
                     "item": line.item,
                     "daily_energy_kwh": line.daily_energy / 3.6e6,
-                    "average_w": line.average_power,
+                    "average_power_w": line.average_power,
                     "basis_si": format_terms(line.basis, "SI"),
                     "basis_terms": [term.to_json() for term in line.basis],
                 }
@@ -488,9 +488,9 @@ class SystemResult:
             "defrost_load_w": e.defrost_load,
             "connected_load_w": e.connected_load,
             "connected_load_case": e.connected_load_case,
-            "compressor_run_hours_per_day": e.compressor_run_time / 3600.0,
-            "electricity_kwh_per_day": e.daily_energy / 3.6e6,
-            "electricity_kwh_per_day_by_use": {what: energy / 3.6e6 for what, energy in e.daily_energy_parts},
+            "compressor_daily_run_time_h": e.compressor_run_time / 3600.0,
+            "daily_electricity_kwh": e.daily_energy / 3.6e6,
+            "daily_electricity_by_use_kwh": {what.replace(" ", "_"): energy / 3.6e6 for what, energy in e.daily_energy_parts},
             "warnings": list(self.warnings),
             **(self.pipework.to_json() if self.pipework is not None else {"piping": None}),
         }
@@ -514,18 +514,8 @@ class ProjectResult:
     systems: tuple[SystemResult, ...] = ()
 
     def to_json(self) -> dict[str, Any]:
+        """The body of ``size --json``; the envelope (project, versions) is :mod:`coldroom.output.json_contract`'s."""
         return {
-            "project": {
-                "name": self.project_name,
-                "client": self.client,
-                "site": self.site,
-                "prepared_by": self.prepared_by,
-                "date": self.date,
-                "unit_system": self.unit_system,
-                "input_file": self.input_file,
-                "input_sha256": self.input_sha256,
-            },
-            "versions": dict(self.versions),
             "systems": [system.to_json() for system in self.systems],
             "rooms": [room.to_json() for room in self.rooms],
             "warnings": list(self.warnings),

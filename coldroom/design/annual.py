@@ -171,15 +171,15 @@ class OptionYear:
             "annual_energy_kwh": self.annual_energy,
             "annual_energy_by_use_kwh": dict(self.annual_energy_by_use),
             "annual_compressor_energy_kwh": self.annual_energy_by_use["compressor"],
-            "annual_cost": self.annual_cost,
+            "annual_electricity_cost": self.annual_cost,
             "currency": self.currency,
             "refrigerants": self.refrigerants,
             "safety_classes": [s.safety_class for s in self.systems],
-            "gwp": self.gwp,
+            "gwp": float(self.gwp),
             "gwp_basis": GWP_BASIS,
             "charge_kg": self.charge,
             "tewi_kg_co2e": t.to_json() if t is not None else None,
-            "economics": dict(self.economics),
+            "economics": economics_json(self.economics),
             "systems": [
                 {
                     "name": s.name,
@@ -190,9 +190,9 @@ class OptionYear:
                     "annual_energy_by_use_kwh": dict(s.energy_by_use),
                     "charge_kg": s.charge,
                     "charge_basis": s.charge_basis,
-                    "gwp": s.gwp,
-                    "hours_unit_short_h": s.hours_short,
-                    "hours_heat_loss_h": s.heating_hours,
+                    "gwp": float(s.gwp),
+                    "unit_short_time_h": s.hours_short,
+                    "heat_loss_time_h": s.heating_hours,
                 }
                 for s in self.systems
             ],
@@ -207,7 +207,7 @@ class OptionYear:
                 "design_capacity_w": self.design_capacity - base.design_capacity,
                 "compressor_input_power_w": self.compressor_input_power - base.compressor_input_power,
                 "annual_energy_kwh": self.annual_energy - base.annual_energy,
-                "annual_cost": self.annual_cost - base.annual_cost,
+                "annual_electricity_cost": self.annual_cost - base.annual_cost,
                 "tewi_total_kg_co2e": (t.total - bt.total) if t is not None and bt is not None else None,
             }
         return out
@@ -494,6 +494,27 @@ def economics_of(model: "ProjectModel") -> dict:
     return out
 
 
+#: economics keys of the project file -> their JSON keys (the unit in the name, DEVELOPERS.md "JSON output")
+ECONOMICS_JSON_KEYS = {
+    "electricity_price": "electricity_price_per_kwh",
+    "currency": "currency",
+    "emission_factor": "emission_factor_kg_co2e_per_kwh",
+    "service_life": "service_life_years",
+    "leakage_rate": "annual_leakage_fraction",
+    "recovery_factor": "recovery_factor",
+}
+
+
+def economics_json(economics: dict) -> dict:
+    """The ``economics`` object of an option in JSON: :func:`economics_of` with unit-named keys.
+
+    ``defaulted`` keeps the project file's key names (what the user may set).
+    """
+    out: dict = {ECONOMICS_JSON_KEYS[key]: value for key, value in economics.items() if key in ECONOMICS_JSON_KEYS}
+    out["defaulted"] = list(economics.get("defaulted", ()))
+    return out
+
+
 def option_year(
     model: "ProjectModel", name: str, note: str, ctx: _Context, bins: Optional[Sequence[AmbientBin]] = None
 ) -> OptionYear:
@@ -555,9 +576,8 @@ class Comparison:
     def to_json(self) -> dict:
         base = self.options[0]
         return {
-            "project": self.project_name,
             "ambient_source": self.ambient_source,
-            "ambient_bins": [{"temperature_c": b.temperature, "hours_h": b.hours} for b in self.bins],
+            "ambient_bins": [{"temperature_c": b.temperature, "duration_h": b.hours} for b in self.bins],
             "options": [o.to_json(base) for o in self.options],
         }
 

@@ -164,13 +164,13 @@ class UnitOption:
     def balance_json(self) -> dict[str, Any]:
         c = self.check
         return {
-            "evaporating_c": c.balance_evaporating,
-            "condensing_c": c.balance_condensing,
+            "evaporating_temperature_c": c.balance_evaporating,
+            "condensing_temperature_c": c.balance_condensing,
             "capacity_w": c.capacity_at_balance,
-            "run_hours_needed": c.run_hours_needed,
+            "daily_run_time_needed_h": c.run_hours_needed,
             "margin_percent": c.margin_percent,
-            "max_ambient_c": c.max_ambient,
-            "max_ambient_status": c.max_ambient_status,
+            "max_ambient_temperature_c": c.max_ambient,
+            "max_ambient_temperature_status": c.max_ambient_status,
             "power_w": c.power_at_balance,
         }
 
@@ -219,7 +219,7 @@ class SystemSelection:
             "rooms": [c.room for c in self.coolers],
             "refrigerant": self.refrigerant,
             "required_capacity_w": self.required_capacity,
-            "run_hours_available": self.run_hours_available,
+            "daily_run_time_available_h": self.run_hours_available,
             "condenser_air_temperature_c": self.ambient_temperature,
             **chosen,
             "currency": self.currency,

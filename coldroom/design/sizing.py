@@ -83,7 +83,8 @@ def sheet_date(project_date: Optional[str], environ: Optional[dict] = None) -> s
 
 
 def versions() -> dict[str, str]:
-    """Versions printed on every page: coldroom and CoolProp (read from metadata, no import)."""
+    """Versions of coldroom, CoolProp and Python (metadata, no import): every page's footer and every JSON."""
+    import platform
     from importlib import metadata
 
     from coldroom import __version__
@@ -92,7 +93,7 @@ def versions() -> dict[str, str]:
         coolprop = metadata.version("CoolProp")
     except metadata.PackageNotFoundError:  # pragma: no cover
         coolprop = "unknown"
-    return {"coldroom": __version__, "CoolProp": coolprop}
+    return {"coldroom": __version__, "coolprop": coolprop, "python": platform.python_version()}
 
 
 def _basis(model: "ProjectModel", room: "Room", loads: "RoomLoads", temps: DesignTemperatures) -> tuple:

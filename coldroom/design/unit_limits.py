@@ -141,13 +141,13 @@ class UnitLimits:
     def to_json(self) -> dict[str, Any]:
         """Keys added to the room's ``existing_unit`` object (SI, units in the names)."""
         return {
-            "coldest_room_temperature_held_c": self.coldest_room_temperature_held,
-            "coldest_room_temperature_status": self.coldest_status,
+            "coldest_held_room_temperature_c": self.coldest_room_temperature_held,
+            "coldest_held_room_temperature_status": self.coldest_status,
             "max_daily_intake_kg": self.max_daily_intake,
             "replacement_duty": {
                 "capacity_w": self.replacement_capacity,
-                "evaporating_c": self.replacement_evaporating,
-                "condensing_c": self.replacement_condensing,
+                "evaporating_temperature_c": self.replacement_evaporating,
+                "condensing_temperature_c": self.replacement_condensing,
             },
             "medium_temperature_unit_at_low_suction": self.medium_at_low,
             "remedies": list(self.remedies()),

@@ -154,7 +154,7 @@ class CheckResult:
     def chart(self) -> dict[str, list[Optional[float]]]:
         """Arrays for the capacity/load-vs-ambient chart (SI, keys name units)."""
         return {
-            "ambient_c": list(self.chart_ambient),
+            "ambient_temperature_c": list(self.chart_ambient),
             "unit_capacity_w": list(self.chart_capacity),
             "room_load_w": list(self.chart_load),
         }
@@ -170,8 +170,8 @@ class CheckResult:
             "within_envelope": self.within_envelope,
             "room_temperature_c": self.room_temperature,
             "ambient_temperature_c": self.ambient_temperature,
-            "balance_evaporating_c": self.balance_evaporating,
-            "balance_condensing_c": self.balance_condensing,
+            "balance_evaporating_temperature_c": self.balance_evaporating,
+            "balance_condensing_temperature_c": self.balance_condensing,
             "capacity_at_balance_w": self.capacity_at_balance,
             "power_at_balance_w": self.power_at_balance,
             "heat_rejection_at_balance_w": self.heat_rejection_at_balance,
@@ -182,11 +182,11 @@ class CheckResult:
             "peak_capacity_w": self.peak_capacity,
             "daily_energy_kwh": self.daily_energy / 3.6e6,
             "safety_factor": self.safety_factor,
-            "run_hours_available": self.run_hours_available,
-            "run_hours_needed": self.run_hours_needed,
+            "daily_run_time_available_h": self.run_hours_available,
+            "daily_run_time_needed_h": self.run_hours_needed,
             "margin_percent": self.margin_percent,
-            "max_ambient_c": self.max_ambient,
-            "max_ambient_status": self.max_ambient_status,
+            "max_ambient_temperature_c": self.max_ambient,
+            "max_ambient_temperature_status": self.max_ambient_status,
             "evaporator_basis": format_terms(self.evaporator_basis, "SI"),
             "condenser_basis": format_terms(self.condenser_basis, "SI"),
             "compressor_basis": [format_terms(note, "SI") for note in self.compressor_basis],

@@ -197,25 +197,25 @@ class PulldownResult:
     def to_json(self) -> dict:
         g = self.governing
         return {
-            "hours_to_final_temperature": self.hours_to_final,
+            "time_to_final_temperature_h": self.hours_to_final,
             "lowest_room_air_temperature_c": self.lowest_air_temperature,
             "time_h": [t / 3600.0 for t in self.time],
             "product_temperature_c": list(g.temperature) if g is not None else [],
             "room_air_temperature_c": list(self.air_temperature),
             "product": g.name if g is not None else None,
-            "asked_hours": g.asked_time / 3600.0 if g is not None and g.asked_time is not None else None,
+            "asked_time_h": g.asked_time / 3600.0 if g is not None and g.asked_time is not None else None,
             "meets_asked_time": self.met,
             "products": [
                 {
                     "name": p.name,
-                    "hours_to_final_temperature": None if p.time_to_final is None else p.time_to_final / 3600.0,
+                    "time_to_final_temperature_h": None if p.time_to_final is None else p.time_to_final / 3600.0,
                     "final_temperature_c": p.final_temperature,
-                    "asked_hours": None if p.asked_time is None else p.asked_time / 3600.0,
+                    "asked_time_h": None if p.asked_time is None else p.asked_time / 3600.0,
                     "meets_asked_time": p.met,
                 }
                 for p in self.products
             ],
-            "simulated_hours": self.duration / 3600.0,
+            "simulated_time_h": self.duration / 3600.0,
             "basis": self.basis,
         }
 

@@ -115,7 +115,7 @@ class ChargePart:
     basis: str
 
     def to_json(self) -> dict:
-        return {"part": self.part, "kg": self.mass, "basis": self.basis}
+        return {"part": self.part, "charge_kg": self.mass, "basis": self.basis}
 
 
 @dataclass(frozen=True)

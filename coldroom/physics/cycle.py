@@ -299,7 +299,7 @@ class CycleResult:
             "glide_condenser_k": self.glide_condenser,
             "optimum_high_side_pressure_liao_pa": self.optimum_pressure_correlation,
             "safety_class": self.safety_class,
-            "gwp_ar4": self.gwp_ar4,
+            "gwp_ar4": float(self.gwp_ar4),
             "warnings": list(self.warnings),
             "states": [state(s) for s in self.states],
         }

@@ -47,10 +47,10 @@ def test_check_json_to_stdout() -> None:
     room = data["rooms"][0]
     unit = room["existing_unit"]
     assert unit["holds"] is True
-    for key in ("capacity_at_balance_w", "required_capacity_w", "run_hours_needed", "margin_percent", "max_ambient_c",
-                "balance_evaporating_c", "balance_condensing_c", "warnings"):
+    for key in ("capacity_at_balance_w", "required_capacity_w", "daily_run_time_needed_h", "margin_percent", "max_ambient_temperature_c",
+                "balance_evaporating_temperature_c", "balance_condensing_temperature_c", "warnings"):
         assert key in unit
-    assert len(unit["chart"]["ambient_c"]) == len(unit["chart"]["unit_capacity_w"]) == len(unit["chart"]["room_load_w"])
+    assert len(unit["chart"]["ambient_temperature_c"]) == len(unit["chart"]["unit_capacity_w"]) == len(unit["chart"]["room_load_w"])
 
 
 def test_room_without_unit_is_listed() -> None:

@@ -50,7 +50,7 @@ def test_json_contract(demo: dict) -> None:
     options = demo["json"]["options"]
     assert [o["name"] for o in options] == ["base", "R-290", "R-744", "150 mm cooler panels", "R-290 + 150 mm"]
     keys = {"name", "design_capacity_w", "compressor_input_power_w", "annual_energy_kwh", "annual_energy_by_use_kwh",
-            "annual_compressor_energy_kwh", "annual_cost", "currency", "refrigerants", "gwp", "gwp_basis",
+            "annual_compressor_energy_kwh", "annual_electricity_cost", "currency", "refrigerants", "gwp", "gwp_basis",
             "charge_kg", "tewi_kg_co2e"}
     for o in options:
         assert keys <= set(o), keys - set(o)
@@ -58,7 +58,7 @@ def test_json_contract(demo: dict) -> None:
         assert set(o["annual_energy_by_use_kwh"]) == {"compressor", "fans", "defrost", "other"}
         assert math.isclose(sum(o["annual_energy_by_use_kwh"].values()), o["annual_energy_kwh"], rel_tol=1e-12)
         assert o["annual_compressor_energy_kwh"] == o["annual_energy_by_use_kwh"]["compressor"]
-        assert math.isclose(o["annual_cost"], 0.28 * o["annual_energy_kwh"], rel_tol=1e-12)
+        assert math.isclose(o["annual_electricity_cost"], 0.28 * o["annual_energy_kwh"], rel_tol=1e-12)
         t = o["tewi_kg_co2e"]
         assert set(t) == {"direct_leakage", "direct_end_of_life", "indirect", "total"}
         assert math.isclose(t["indirect"], o["annual_energy_kwh"] * 0.35 * 15, rel_tol=1e-12)
@@ -105,7 +105,7 @@ def test_weather_file_relative_to_the_project(tmp_path: Path) -> None:
     done = invoke("compare", str(project), "--json", "-")
     assert done.returncode == 0, done.stderr
     result = json.loads(done.stdout)
-    assert sum(b["hours_h"] for b in result["ambient_bins"]) == 8760
+    assert sum(b["duration_h"] for b in result["ambient_bins"]) == 8760
     assert "w.epw" in result["ambient_source"]
     # a missing weather file is a located error too
     project.write_text(text.replace("site/w.epw", "site/none.epw"), encoding="utf-8")

@@ -52,10 +52,10 @@ def test_size_reports_the_hourly_loads_and_the_pulldown(tmp_path: Path) -> None:
     assert room["peak_load_w"] == pytest.approx(hourly[room["peak_hour"]])  # no defrost heat in this room
     assert room["peak_load_basis"] == "design day schedule"
     pull = room["pulldown"]
-    assert set(pull) >= {"hours_to_final_temperature", "lowest_room_air_temperature_c", "time_h",
+    assert set(pull) >= {"time_to_final_temperature_h", "lowest_room_air_temperature_c", "time_h",
                          "product_temperature_c", "basis"}
     assert len(pull["time_h"]) == len(pull["product_temperature_c"])
-    assert pull["hours_to_final_temperature"] is None or pull["hours_to_final_temperature"] > 0
+    assert pull["time_to_final_temperature_h"] is None or pull["time_to_final_temperature_h"] > 0
     assert "panel inner skin" in pull["basis"]
 
 

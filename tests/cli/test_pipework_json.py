@@ -40,8 +40,8 @@ def test_size_json_has_the_pipework_contract(tmp_path: Path) -> None:
     assert by_line["liquid"]["oil_return_ok"] is None and by_line["discharge"]["oil_return_ok"] is None
     charge = system["charge"]
     assert set(charge) >= {"total_kg", "parts"}
-    assert all(set(p) >= {"part", "kg", "basis"} for p in charge["parts"])
-    assert abs(sum(p["kg"] for p in charge["parts"]) - charge["total_kg"]) < 1e-9
+    assert all(set(p) >= {"part", "charge_kg", "basis"} for p in charge["parts"])
+    assert abs(sum(p["charge_kg"] for p in charge["parts"]) - charge["total_kg"]) < 1e-9
     assert {p["part"] for p in charge["parts"]} >= {"suction line", "liquid line", "evaporator", "condenser"}
     limits = system["charge_limits"]
     assert limits and all(set(x) >= {"rule", "limit_kg", "verdict"} for x in limits)

@@ -34,8 +34,8 @@ def test_select_json_contract(tmp_path: Path) -> None:
         assert key in entry
     unit = entry["condensing_unit"]
     assert set(unit) >= {"model", "price", "balance", "existing_unit"}
-    assert set(unit["balance"]) >= {"evaporating_c", "condensing_c", "capacity_w", "run_hours_needed",
-                                    "margin_percent", "max_ambient_c"}
+    assert set(unit["balance"]) >= {"evaporating_temperature_c", "condensing_temperature_c", "capacity_w", "daily_run_time_needed_h",
+                                    "margin_percent", "max_ambient_temperature_c"}
     assert [c["room"] for c in entry["unit_coolers"]] == ["Cooler", "Freezer"]
     for cooler in entry["unit_coolers"]:
         assert set(cooler) >= {"room", "model", "count", "price"}

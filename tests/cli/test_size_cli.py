@@ -56,8 +56,8 @@ def test_size_writes_pdf_beside_the_input_and_json(project: Path):
                 "compressor_power_w", "condenser_duty_w", "cop", "discharge_temperature_c", "pressure_ratio"):
         assert isinstance(cycle[key], (str, float, int)), key
     assert [sorted(s) for s in cycle["states"]] == [["h_j_kg", "p_pa", "quality", "s_j_kg_k", "t_c"]] * 4
-    assert data["versions"]["coldroom"] and data["versions"]["CoolProp"]
-    assert len(data["project"]["input_sha256"]) == 64
+    assert data["versions"]["coldroom"] and data["versions"]["coolprop"]
+    assert len(data["project"]["sha256"]) == 64
     # the terminal summary names the figures with units
     assert "required capacity" in result.output and "kW" in result.output
     assert "mass flow" in result.output and "kg/s" in result.output

@@ -15,7 +15,7 @@ COMBO = REPO / "project_files" / "combo_cooler_freezer.yaml"
 #: The keys issue "systems" names as the JSON contract for each system.
 SYSTEM_KEYS = {
     "name", "rooms", "refrigerant", "suction_temperature_c", "condensing_temperature_c", "design_capacity_w",
-    "cycle", "compressor_input_power_w", "connected_load_w", "electricity_kwh_per_day",
+    "cycle", "compressor_input_power_w", "connected_load_w", "daily_electricity_kwh",
 }
 
 

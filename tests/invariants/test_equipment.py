@@ -193,19 +193,19 @@ def test_check_result_json_keys_name_units() -> None:
     for key in (
         "capacity_at_balance_w",
         "required_capacity_w",
-        "run_hours_needed",
+        "daily_run_time_needed_h",
         "margin_percent",
-        "max_ambient_c",
-        "balance_evaporating_c",
-        "balance_condensing_c",
+        "max_ambient_temperature_c",
+        "balance_evaporating_temperature_c",
+        "balance_condensing_temperature_c",
         "holds",
         "warnings",
     ):
         assert key in data
-    assert data["balance_evaporating_c"] == pytest.approx(-4.0)
-    assert data["balance_condensing_c"] == pytest.approx(42.0)
+    assert data["balance_evaporating_temperature_c"] == pytest.approx(-4.0)
+    assert data["balance_condensing_temperature_c"] == pytest.approx(42.0)
     chart = result.chart()
-    assert chart["ambient_c"] == [20.0, 30.0, 40.0]
+    assert chart["ambient_temperature_c"] == [20.0, 30.0, 40.0]
     caps = chart["unit_capacity_w"]
     assert caps[0] > caps[1] > caps[2]  # capacity falls as the ambient rises
     # run hours × capacity = (1 + SF)·E

@@ -18,14 +18,14 @@ REPO = Path(__file__).resolve().parents[2]
 DEMO = REPO / "project_files" / "cooler_to_freezer.yaml"
 
 PINS = {
-    "balance_evaporating_c": -23.00908,
-    "balance_condensing_c": 40.20783,
+    "balance_evaporating_temperature_c": -23.00908,
+    "balance_condensing_temperature_c": 40.20783,
     "capacity_at_balance_w": 2504.540,
     "power_at_balance_w": 1525.610,
     "heat_rejection_at_balance_w": 4103.915,
     "discharge_temperature_c": 100.651,
     "required_capacity_w": 2405.884,
-    "run_hours_needed": 17.29097,
+    "daily_run_time_needed_h": 17.29097,
     "margin_percent": 4.10059,
 }
 
@@ -46,20 +46,20 @@ def test_demo_verdict_is_pinned(check) -> None:  # type: ignore[no-untyped-def]
     assert data["holds"] is True
     assert data["within_envelope"] is True
     assert data["model"] == "rated point"
-    assert data["max_ambient_status"] == "found"
-    assert data["max_ambient_c"] == pytest.approx(33.670, abs=0.06)  # search resolution 0.05 K
+    assert data["max_ambient_temperature_status"] == "found"
+    assert data["max_ambient_temperature_c"] == pytest.approx(33.670, abs=0.06)  # search resolution 0.05 K
     assert any("application class" in w for w in data["warnings"])
 
 
 def test_demo_chart_is_pinned(check) -> None:  # type: ignore[no-untyped-def]
     chart = check.chart()
-    assert chart["ambient_c"] == [20.0 + 5.0 * i for i in range(6)]
+    assert chart["ambient_temperature_c"] == [20.0 + 5.0 * i for i in range(6)]
     assert chart["unit_capacity_w"][0] == pytest.approx(2939.58, rel=1e-4)
     assert chart["unit_capacity_w"][-1] == pytest.approx(2003.03, rel=1e-4)
     assert chart["room_load_w"][0] == pytest.approx(2193.74, rel=1e-4)
     assert chart["room_load_w"][-1] == pytest.approx(2746.14, rel=1e-4)
     # the capacity line crosses the load line between 30 and 35 °C (max ambient 33.7 °C)
-    crossing = [a for a, c, l in zip(chart["ambient_c"], chart["unit_capacity_w"], chart["room_load_w"]) if c < l]
+    crossing = [a for a, c, l in zip(chart["ambient_temperature_c"], chart["unit_capacity_w"], chart["room_load_w"]) if c < l]
     assert crossing[0] == 35.0
 
 

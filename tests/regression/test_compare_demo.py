@@ -18,7 +18,7 @@ import pytest
 REPO = Path(__file__).resolve().parents[2]
 PINS = Path(__file__).resolve().parent / "pins" / "compare_demo.json"
 DEMO = REPO / "project_files" / "farm_shop_options.yaml"
-KEYS = ("design_capacity_w", "compressor_input_power_w", "annual_energy_kwh", "annual_cost", "charge_kg", "gwp")
+KEYS = ("design_capacity_w", "compressor_input_power_w", "annual_energy_kwh", "annual_electricity_cost", "charge_kg", "gwp")
 
 
 def compute() -> dict:

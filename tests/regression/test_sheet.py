@@ -65,8 +65,8 @@ def test_json_figures_are_on_the_sheet(sized):
     model, result, pdf = sized
     text = _flat(" ".join(_pages_text(pdf)))
     data = result.to_json()
-    s = data["project"]["unit_system"]
-    assert data["project"]["name"] in text
+    s = result.unit_system
+    assert result.project_name in text
     for room in data["rooms"]:
         cycle = room["cycle"]
         expected = {
@@ -108,7 +108,7 @@ def test_every_page_has_footer_and_page_numbers(sized):
         flat = _flat(page)
         assert f"Page {number} of {total}" in flat
         assert f"coldroom {result.versions['coldroom']}" in flat
-        assert f"CoolProp {result.versions['CoolProp']}" in flat
+        assert f"CoolProp {result.versions['coolprop']}" in flat
         assert result.input_sha256[:12] in flat
 
 

@@ -40,7 +40,7 @@ def test_page_one_carries_the_verdict_and_the_way_forward(sheet) -> None:
     assert unit["verdict"] in first
     for label in ("Coldest room it holds", "Largest daily intake", "Replacement duty", "The way forward"):
         assert label in first, label
-    assert f"{unit['coldest_room_temperature_held_c']:.1f} °C" in first
+    assert f"{unit['coldest_held_room_temperature_c']:.1f} °C" in first
     assert f"{unit['max_daily_intake_kg']:,.0f} kg/day" in first
     assert f"{unit['replacement_duty']['capacity_w'] / 1000:.2f} kW" in first
     # the medium-temperature unit at low-temperature suction is said before the margin

@@ -269,10 +269,10 @@ def existing_unit_section(ctx: Any, index: int) -> list:
         Spacer(1, 6),
     ]
     chart = check.chart()
-    if chart["ambient_c"]:
+    if chart["ambient_temperature_c"]:
         out += [
             CapacityAmbientChart(
-                chart["ambient_c"],
+                chart["ambient_temperature_c"],
                 chart["unit_capacity_w"],
                 chart["room_load_w"],
                 s,

@@ -85,7 +85,7 @@ def cycle_page(cycle: Any, system: str, date: str, arguments: Sequence[str], ver
     # footer
     digest = hashlib.sha256("\0".join(arguments).encode("utf-8")).hexdigest()[:12]
     footer = clean(
-        f"coldroom {versions.get('coldroom', '?')}  ·  CoolProp {versions.get('CoolProp', '?')}  ·  "
+        f"coldroom {versions.get('coldroom', '?')}  ·  CoolProp {versions.get('coolprop', '?')}  ·  "
         f"input: command line, sha256 {digest}"
     )
     d.add(Line(margin, margin - 14, page_w - margin, margin - 14, strokeColor=RULE, strokeWidth=0.5))

@@ -18,7 +18,7 @@ from coldroom.output.pdf.text import clean
 def _footer_text(result: Any) -> str:
     v = result.versions or {}
     return clean(
-        f"coldroom {v.get('coldroom', '?')}  ·  CoolProp {v.get('CoolProp', '?')}  ·  "
+        f"coldroom {v.get('coldroom', '?')}  ·  CoolProp {v.get('coolprop', '?')}  ·  "
         f"input {result.input_file}, sha256 {result.input_sha256[:12]}"
     )
 
