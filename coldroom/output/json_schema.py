@@ -300,11 +300,14 @@ class ChargePart(TypedDict):
 
 class Charge(TypedDict):
     total_kg: float
+    basis: Literal["stated", "estimate"]
     parts: list[ChargePart]
+    estimate_kg: NotRequired[float]  # the estimate, beside a stated charge
 
 
 class ChargeLimit(TypedDict):
     rule: str
+    charge_kg: float
     limit_kg: Optional[float]
     verdict: str
     working: str
