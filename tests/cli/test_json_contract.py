@@ -1,7 +1,8 @@
 """The JSON contract (DEVELOPERS.md "JSON output"): one envelope, one naming rule, one schema per command.
 
 Every command's ``--json`` on every demo (``project_files/*.yaml``; ``select`` with the demo
-catalogue; ``cycle`` on a few refrigerants, R-744 transcritical among them) is made once, in
+catalogue; ``cycle`` on a few refrigerants, R-744 transcritical among them; ``quote`` on the demo with a
+``quote:`` block and the quote catalogue) is made once, in
 process (typer's CliRunner: the command from its arguments to the file it writes), and
 
 - carries the envelope: ``schema_version``, ``command``, ``versions``, ``project`` (``null`` for
@@ -34,6 +35,7 @@ jsonschema = pytest.importorskip("jsonschema")
 REPO = Path(__file__).resolve().parents[2]
 DEMOS = sorted((REPO / "project_files").glob("*.yaml"))
 CATALOGUE = REPO / "project_files" / "catalogue" / "demo_catalogue.yaml"
+QUOTE_CATALOGUE = REPO / "project_files" / "catalogue" / "quote_catalogue.yaml"
 CYCLES = {
     "R-134a": ["-r", "R134a", "--evaporating", "-10", "--condensing", "40", "--capacity", "5 kW"],
     "R-290-low": ["-r", "R290", "--evaporating", "-30", "--condensing", "45", "--capacity", "3 kW"],
@@ -46,13 +48,14 @@ CYCLES = {
 #: unit suffixes, SI (temperatures in °C as the trade writes them, durations in h, energy in kWh)
 UNIT_SUFFIXES = (
     "_w", "_kwh", "_c", "_k", "_pa", "_kg", "_m", "_m2", "_m3", "_h", "_s", "_kg_s", "_m3_h", "_m_s",
-    "_j_kg", "_j_kg_k", "_kg_m3", "_kg_co2e", "_kg_co2e_per_kwh", "_percent", "_years",
+    "_j_kg", "_j_kg_k", "_kg_m3", "_kg_co2e", "_kg_co2e_per_kwh", "_percent", "_years", "_a",
     "_mm",  # tube diameters: the pipework contract spells them in mm, as the tube tables do
 )
 #: dimensionless numbers, named as such
 DIMENSIONLESS_SUFFIXES = ("_ratio", "_factor", "_fraction", "_efficiency", "_exponent", "_cop")
 DIMENSIONLESS_KEYS = {"cop", "quality", "clearance", "diversity", "gwp", "gwp_ar4",
-                      "value_si"}  # a Term's number, in the SI unit of its `kind`
+                      "value_si",  # a Term's number, in the SI unit of its `kind`
+                      "quantity"}  # a quote line's, in the `unit` beside it (the quote contract's keys)
 #: integers that count or index: no unit
 COUNT_KEYS = {"count", "candidates", "peak_hour"}
 #: objects of counts by reason
@@ -84,13 +87,13 @@ def key_problems(key: str) -> list[str]:
         problems.append("a temperature is <what>_temperature_c")
     if "hours" in key.split("_"):
         problems.append("a duration is <what>_h (time, duration), not 'hours'")
-    if re.search(r"(price|cost)", key) and not MONEY.search(key):
-        problems.append("money is ..._price or ..._cost (optionally _per_<unit>)")
     return problems
 
 
 def number_problems(key: str, value: Any, unit_from_parent: bool, counts: bool) -> list[str]:
     """What is wrong with *key* holding the number *value*."""
+    if re.search(r"(price|cost)", key) and not MONEY.search(key):
+        return ["money is ..._price or ..._cost (optionally _per_<unit>)"]
     if unit_from_parent or _has_unit(key) or _dimensionless(key):
         return []
     if isinstance(value, int) and (counts or key in COUNT_KEYS):
@@ -163,6 +166,9 @@ def documents(tmp_path_factory) -> dict[tuple[str, str], dict]:
                                             "--force"], out)
         if "\noptions:" in demo.read_text(encoding="utf-8"):
             docs["compare", name] = _invoke(["compare", str(demo), "--json", str(out), "--force"], out)
+        if "\nquote:" in demo.read_text(encoding="utf-8"):
+            docs["quote", name] = _invoke(["quote", str(demo), "--catalogue", str(QUOTE_CATALOGUE), "--json", str(out),
+                                           "--force"], out)
     for name, args in CYCLES.items():
         docs["cycle", name] = _invoke(["cycle", *args, "--json"], tmp)
     return docs
@@ -282,6 +288,8 @@ def test_every_schema_property_follows_the_naming_rule(schemas) -> None:
             problems += [(command, owner, key, p) for p in key_problems(key)]
             types = _types(prop, defs)
             numeric = types & {"number", "array:number"}
+            if numeric and re.search(r"(price|cost)", key) and not MONEY.search(key):
+                problems.append((command, owner, key, "money is ..._price or ..._cost"))
             if numeric and not (_has_unit(key) or _dimensionless(key)):
                 problems.append((command, owner, key, "a number without its unit in the key"))
             if types & {"integer"} and not (key in COUNT_KEYS or _has_unit(key)):
@@ -316,7 +324,7 @@ def test_schema_command_prints_each_result_schema(schemas) -> None:
     catalogue_schema = runner.invoke(app, ["schema", "--catalogue"])
     assert catalogue_schema.exit_code == 0 and json.loads(catalogue_schema.stdout) != project_schema
     bad = runner.invoke(app, ["schema", "--result", "quote-me"])
-    assert bad.exit_code == 2 and "load, size, check, select, compare, cycle" in bad.stderr
+    assert bad.exit_code == 2 and "load, size, check, select, compare, cycle, quote" in bad.stderr
 
 
 def test_schema_of_a_real_process_validates_its_json(tmp_path: Path) -> None:
