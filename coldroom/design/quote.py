@@ -302,14 +302,18 @@ def _system_lines(
     piping = pipework.piping if pipework is not None else None
     liquid = piping.line("liquid") if piping is not None else None
     suction = piping.line("suction") if piping is not None else None
-    subcooling = pipework.valve_subcooling if pipework is not None and pipework.valve_subcooling is not None \
-        else refrigeration.subcooling
+    at_valve = pipework.valve_subcooling if pipework is not None else None
+    if at_valve is not None and at_valve <= 0.0:
+        warnings.append(f"system {name}: no subcooling left at the expansion valves (flash gas before the valves): "
+                        "the valve capacities are optimistic; subcool more or enlarge the liquid line")
     condensing = check.balance_condensing if check.balance_condensing is not None else system.condensing_temperature
     distributor = settings.distributor_pressure_drop
     distributor = DISTRIBUTOR_ALLOWANCE if distributor is None else distributor
     for c in selection.coolers:
-        conditions = ValveConditions(selection.refrigerant, c.evaporating_temperature, condensing, subcooling,
-                                     liquid.total_pressure_change if liquid is not None else 0.0, distributor)
+        conditions = ValveConditions(selection.refrigerant, c.evaporating_temperature, condensing,
+                                     refrigeration.subcooling,
+                                     liquid.total_pressure_change if liquid is not None else 0.0, distributor,
+                                     at_valve)
         choice = choose_valve(catalogue.expansion_valves, c.room, c.duty / c.count, conditions)
         valves.append(choice)
         if choice.warning:

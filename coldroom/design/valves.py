@@ -52,11 +52,14 @@ class ValveConditions:
     condensing_temperature : float
         Saturated condensing (dew) temperature [°C].
     subcooling : float
-        Subcooling at the valve inlet [K].
+        Liquid subcooling at the condenser outlet [K] (the liquid's state: an adiabatic
+        line keeps its enthalpy).
     line_pressure_loss : float
         Liquid-line friction drop plus static head [Pa] (negative: a falling line gains).
     distributor_pressure_drop : float
         [Pa].
+    valve_subcooling : float or None
+        Subcooling left at the valve inlet after the line [K] (reported; None without a liquid line).
     """
 
     refrigerant: str
@@ -65,6 +68,7 @@ class ValveConditions:
     subcooling: float
     line_pressure_loss: float
     distributor_pressure_drop: float
+    valve_subcooling: Optional[float] = None
 
 
 @dataclass(frozen=True)
@@ -147,9 +151,11 @@ def choose_valve(
         conditions.refrigerant, conditions.evaporating_temperature, conditions.condensing_temperature,
         conditions.subcooling, conditions.line_pressure_loss + conditions.distributor_pressure_drop,
     )
+    at_valve = conditions.subcooling if conditions.valve_subcooling is None else conditions.valve_subcooling
     where = (
         f"at {conditions.evaporating_temperature:.1f} °C evaporating / {conditions.condensing_temperature:.1f} °C "
-        f"condensing, {conditions.subcooling:.1f} K subcooling at the valve, Δp {job.pressure_drop / 1e5:.2f} bar "
+        f"condensing, {conditions.subcooling:.1f} K subcooling at the condenser, {at_valve:.1f} K at the valve, "
+        f"Δp {job.pressure_drop / 1e5:.2f} bar "
         f"(liquid line {conditions.line_pressure_loss / 1e5:.2f} bar, distributor "
         f"{conditions.distributor_pressure_drop / 1e5:.2f} bar off)"
     )
@@ -171,12 +177,12 @@ def choose_valve(
                     d=(duty, "power"), c=(capacity, "power"),
                 )
             return ValveChoice(room, valve.model, valve.price, duty, capacity, job.pressure_drop,
-                               conditions.subcooling, f"smallest {name} valve covering the coil's duty {where}", warning)
+                               at_valve, f"smallest {name} valve covering the coil's duty {where}", warning)
     best = rated[-1][0] if rated else 0.0
     from coldroom.results import Note
 
     return ValveChoice(
-        room, None, None, duty, best, job.pressure_drop, conditions.subcooling,
+        room, None, None, duty, best, job.pressure_drop, at_valve,
         f"no {name} valve in the catalogue covers {duty:.0f} W {where}",
         Note.fill(f"{room}: no {name} expansion valve in the catalogue covers the coil's {{d}} at its conditions "
                   "(largest {c}): price one by hand", d=(duty, "power"), c=(best, "power")),

@@ -86,3 +86,18 @@ def test_check_runs_a_rating_table_unit(tmp_path: Path) -> None:
     data = json.loads(done.stdout)
     text = json.dumps(data)
     assert "rating table" in text
+
+
+def test_every_kind_read_the_same_from_xlsx(tmp_path: Path) -> None:
+    """The table form (catalogue_rows) written to a spreadsheet reads back as the YAML catalogue."""
+    import openpyxl
+
+    from coldroom.inputs.catalogue import catalogue_rows
+
+    data = yaml.safe_load(QUOTE_CATALOGUE.read_text(encoding="utf-8"))
+    book = openpyxl.Workbook()
+    for row in catalogue_rows(data):
+        book.active.append(row)
+    path = tmp_path / "quote.xlsx"
+    book.save(path)
+    assert load_catalogue(path) == load_catalogue(QUOTE_CATALOGUE)
