@@ -61,6 +61,7 @@ from dataclasses import dataclass, field
 from types import MappingProxyType
 from typing import Mapping
 
+from coldroom.constants import ZERO_CELSIUS_K
 from coldroom.registry import Registry
 
 ASHRAE34 = "ASHRAE 34 [mem]"
@@ -306,31 +307,51 @@ def lookup(name: str) -> RefrigerantInfo:
     return _NAMES.lookup(name)
 
 
+#: Critical points of the predefined mixtures [K, Pa], computed once with
+#: CoolProp 8.0.0 ``AbstractState("HEOS", name).all_critical_points()`` (the
+#: physical root with the highest temperature and positive pressure). Computing
+#: them at run time costs up to 7 s per mixture, so they are stored here, once: the
+#: property model (:mod:`coldroom.physics.refrigerant`) and :data:`LIMITS` read them.
+#: Source: CoolProp 8.0.0 [pub, computed]; a test re-checks one of them.
+MIXTURE_CRITICAL_POINTS: dict[str, tuple[float, float]] = {
+    "R407A.mix": (355.3968669716282, 4513894.305323166),
+    "R407F.mix": (355.7537022332468, 4749227.883990307),
+    "R448A.mix": (355.94090315929117, 4605180.921074508),
+    "R449A.mix": (355.63530092292876, 4516517.7319519725),
+    "R452A.mix": (348.248967281918, 3983776.6491352622),
+    "R513A.mix": (368.5606761258613, 3655093.999046059),
+    "R454C.mix": (360.7933602886933, 4370459.600637634),
+    "R455A.mix": (358.7847327606565, 4601904.683892602),
+}
+
+
+def _mixture_critical_temperature(coolprop_name: str) -> float:
+    """A ``.mix`` blend's critical temperature [°C], from :data:`MIXTURE_CRITICAL_POINTS`, to 0.01 K."""
+    return round(MIXTURE_CRITICAL_POINTS[coolprop_name][0] - ZERO_CELSIUS_K, 2)
+
+
 #: Temperature limits of each refrigerant's property model [°C]: the lowest
 #: saturated evaporating temperature (triple point of a pure fluid; the lower
 #: limit of CoolProp's pseudo-pure or mixture model for a blend) and the
-#: critical temperature (for a blend, the mixture critical point of the
-#: nominal composition). Values read from CoolProp 8.0
-#: (``PropsSI('Ttriple'|'Tcrit', fluid)``; for the ``.mix`` blends
-#: ``AbstractState('HEOS', fluid).all_critical_points()``: the physical one near the top
-#: of the two-phase region, the lowest where several lie within 2 K, R-452A)
-#: [pub: CoolProp 8.0 / NIST REFPROP values]. Kept as plain numbers so that
-#: ``coldroom validate`` never imports CoolProp.
+#: critical temperature (for a ``.mix`` blend, the mixture critical point of the
+#: nominal composition from :data:`MIXTURE_CRITICAL_POINTS`, rounded like the rest). Values
+#: read from CoolProp 8.0 (``PropsSI('Ttriple'|'Tcrit', fluid)``) [pub: CoolProp 8.0 / NIST
+#: REFPROP values]. Kept as plain numbers so that ``coldroom validate`` never imports CoolProp.
 LIMITS_SOURCE = "CoolProp 8.0 Ttriple/Tmin and Tcrit (mixture critical point) [pub]"
 LIMITS: dict[str, tuple[float, float]] = {
     # name: (lowest evaporating temperature [°C], critical temperature [°C])
     "R-134a": (-103.30, 101.06),
     "R-404A": (-73.15, 72.12),  # pseudo-pure model's lower limit
     "R-507A": (-73.15, 70.62),  # pseudo-pure model's lower limit
-    "R-407A": (-114.11, 82.25),
+    "R-407A": (-114.11, _mixture_critical_temperature("R407A.mix")),
     "R-407C": (-73.15, 86.20),  # pseudo-pure model's lower limit
-    "R-407F": (-118.61, 82.60),
-    "R-448A": (-124.62, 82.79),
-    "R-449A": (-125.81, 82.49),
-    "R-452A": (-122.41, 74.22),  # CoolProp finds 75.10, 74.25 and 74.22: the lowest is kept
-    "R-513A": (-128.99, 95.41),
-    "R-454C": (-146.02, 87.64),
-    "R-455A": (-140.56, 85.63),
+    "R-407F": (-118.61, _mixture_critical_temperature("R407F.mix")),
+    "R-448A": (-124.62, _mixture_critical_temperature("R448A.mix")),
+    "R-449A": (-125.81, _mixture_critical_temperature("R449A.mix")),
+    "R-452A": (-122.41, _mixture_critical_temperature("R452A.mix")),
+    "R-513A": (-128.99, _mixture_critical_temperature("R513A.mix")),
+    "R-454C": (-146.02, _mixture_critical_temperature("R454C.mix")),
+    "R-455A": (-140.56, _mixture_critical_temperature("R455A.mix")),
     "R-290": (-187.62, 96.74),
     "R-600a": (-159.42, 134.66),
     "R-717": (-77.65, 132.41),

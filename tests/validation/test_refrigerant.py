@@ -22,7 +22,8 @@ import pytest
 
 from coldroom.data.refrigerants import CATALOGUE, lookup, names
 from coldroom.errors import LookupNameError, PropertyRangeError
-from coldroom.physics.refrigerant import MIXTURE_CRITICAL_POINTS, coolprop_version, get_fluid
+from coldroom.data.refrigerants import MIXTURE_CRITICAL_POINTS
+from coldroom.physics.refrigerant import coolprop_version, get_fluid
 
 # ----------------------------------------------------------------- catalogue
 

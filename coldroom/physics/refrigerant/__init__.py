@@ -49,12 +49,11 @@ from coldroom.physics.refrigerant.chart import (
     envelope_crossings,
     phase_envelope,
 )
-from coldroom.physics.refrigerant.fluid import MIXTURE_CRITICAL_POINTS, Fluid, coolprop_version, get_fluid
+from coldroom.physics.refrigerant.fluid import Fluid, coolprop_version, get_fluid
 from coldroom.physics.refrigerant.state import StatePoint
 from coldroom.physics.refrigerant.transport import MIXTURE_VISCOSITY_BASIS, blend_viscosity
 
 __all__ = [
-    "MIXTURE_CRITICAL_POINTS",
     "MIXTURE_VISCOSITY_BASIS",
     "Fluid",
     "StatePoint",

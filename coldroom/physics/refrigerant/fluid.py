@@ -22,27 +22,11 @@ import CoolProp.CoolProp as CP
 from CoolProp.CoolProp import AbstractState, PyGuessesStructure
 
 from coldroom.constants import ZERO_CELSIUS_K
-from coldroom.data.refrigerants import RefrigerantInfo, lookup
+from coldroom.data.refrigerants import MIXTURE_CRITICAL_POINTS, RefrigerantInfo, lookup
 from coldroom.errors import PropertyRangeError
 from coldroom.physics.refrigerant.blend_table import MixtureTable, saturation_continuation
 from coldroom.physics.refrigerant.state import StatePoint, _finite
 from coldroom.physics.refrigerant.transport import fluid_viscosity
-
-#: Critical points of the predefined mixtures [K, Pa], computed once with
-#: CoolProp 8.0.0 ``AbstractState("HEOS", name).all_critical_points()`` (the
-#: physical root with the highest temperature and positive pressure). Computing
-#: them at run time costs up to 7 s per mixture, so they are stored here.
-#: Source: CoolProp 8.0.0 [pub, computed]; a test re-checks one of them.
-MIXTURE_CRITICAL_POINTS: dict[str, tuple[float, float]] = {
-    "R407A.mix": (355.3968669716282, 4513894.305323166),
-    "R407F.mix": (355.7537022332468, 4749227.883990307),
-    "R448A.mix": (355.94090315929117, 4605180.921074508),
-    "R449A.mix": (355.63530092292876, 4516517.7319519725),
-    "R452A.mix": (348.248967281918, 3983776.6491352622),
-    "R513A.mix": (368.5606761258613, 3655093.999046059),
-    "R454C.mix": (360.7933602886933, 4370459.600637634),
-    "R455A.mix": (358.7847327606565, 4601904.683892602),
-}
 
 # Numerical margin below the critical point for saturation requests: the
 # ancillaries and mixture saturation solvers become unreliable right at the
