@@ -69,7 +69,6 @@ TON_REFRIGERATION = 12000.0 * BTU_PER_HOUR  # W, 12 000 Btu/h by definition (NIS
 HORSEPOWER = 745.69987158227022  # W, mechanical hp (NIST SP 811)
 PSI = 6894.757293168361  # Pa, lbf/in² (NIST SP 811)
 INCH_HG = 3386.389  # Pa, conventional inch of mercury at 0 °C (NIST SP 811)
-CALORIE = 4.1868  # J, International Table calorie
 
 
 @dataclass(frozen=True)

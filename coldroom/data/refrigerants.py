@@ -337,7 +337,6 @@ def _mixture_critical_temperature(coolprop_name: str) -> float:
 #: nominal composition from :data:`MIXTURE_CRITICAL_POINTS`, rounded like the rest). Values
 #: read from CoolProp 8.0 (``PropsSI('Ttriple'|'Tcrit', fluid)``) [pub: CoolProp 8.0 / NIST
 #: REFPROP values]. Kept as plain numbers so that ``coldroom validate`` never imports CoolProp.
-LIMITS_SOURCE = "CoolProp 8.0 Ttriple/Tmin and Tcrit (mixture critical point) [pub]"
 LIMITS: dict[str, tuple[float, float]] = {
     # name: (lowest evaporating temperature [°C], critical temperature [°C])
     "R-134a": (-103.30, 101.06),

@@ -616,21 +616,6 @@ def existing_unit_checks(model: "ProjectModel") -> tuple:
     return check_existing_units(model, drops)
 
 
-def size_room(model: "ProjectModel", room: "Room") -> "RoomResult":
-    """Loads, design temperatures and the cycle for one room (sized with the rest of its system).
-
-    Raises
-    ------
-    CalculationError
-        The cycle cannot be solved; the message names the room or its system.
-    """
-    for name, entry, indices in model.system_groups():
-        if model.rooms.index(room) in indices:
-            _system, rooms = size_system(model, name, indices, entry.diversity if entry is not None else 1.0)
-            return rooms[indices.index(model.rooms.index(room))]
-    raise CalculationError(f"room {room.name!r} is not in the project")  # pragma: no cover
-
-
 def size_project(model: "ProjectModel", input_path: str, input_bytes: bytes) -> "ProjectResult":
     """Size every room of *model*.
 

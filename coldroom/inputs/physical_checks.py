@@ -41,10 +41,10 @@ Thresholds for warnings are common practice, no source, unless noted.
 
 Examples
 --------
->>> from coldroom.inputs.projectfile import parse_project_text
+>>> from coldroom.inputs.opening import open_project_text
 >>> from importlib.resources import files
 >>> text = files("coldroom.data").joinpath("starter.yaml").read_text(encoding="utf-8")
->>> model = parse_project_text(text)
+>>> model = open_project_text(text)
 >>> evaporating, condensing = design_saturation_temperatures(model, model.rooms[0])
 >>> evaporating < model.rooms[0].temperature < model.design.outdoor_temperature < condensing
 True

@@ -19,7 +19,7 @@ Stage 3 of the layout. May import: the foundation, ``data`` and ``physics``.
 from __future__ import annotations
 
 from dataclasses import replace
-from typing import TYPE_CHECKING, Callable
+from typing import TYPE_CHECKING
 
 from coldroom.constants import SECONDS_PER_DAY_S
 from coldroom.results import LoadLine, RoomLoads, Term
@@ -408,9 +408,6 @@ def _run_time(room: "Room") -> tuple[float, str]:
         return room.run_hours, "given"
     hours = totals.run_hours_for_defrost(room.defrost.type)
     return hours * 3600.0, f"default for {room.defrost.type.replace('_', '-')} defrost"
-
-
-LineSource = Callable[["ProjectModel", "Room"], list[LoadLine]]
 
 
 def design_day(model: "ProjectModel", room: "Room") -> "DesignDay":

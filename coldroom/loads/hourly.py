@@ -61,10 +61,6 @@ FRACTION_OF_DAILY_RANGE: tuple[float, ...] = (
     0.87, 0.92, 0.96, 0.99, 1.00, 0.98, 0.93, 0.84, 0.71, 0.56, 0.39, 0.23,
     0.11, 0.03, 0.00, 0.03, 0.10, 0.21, 0.34, 0.47, 0.58, 0.68, 0.76, 0.82,
 )  # fmt: skip
-FRACTION_SOURCE = (
-    "ASHRAE Handbook—Fundamentals (2009), ch. 14 Climatic Design Information, Table 6 "
-    "Fraction of Daily Temperature Range [mem]"
-)
 
 #: Start of the working day for loads given only as hours a day [h] [trade].
 WORKDAY_START = 8.0

@@ -1,6 +1,6 @@
 """Infiltration load: warm outside air entering the room, sensible + latent.
 
-Two methods, kept in the registry :data:`INFILTRATION_METHODS`:
+Two methods (``infiltration.method`` of a room; :mod:`coldroom.loads` calls the one named):
 
 ``door``
     Buoyancy-driven air exchange through an open doorway, Gosney & Olama as
@@ -37,7 +37,7 @@ from __future__ import annotations
 import math
 from dataclasses import dataclass
 from types import MappingProxyType
-from typing import Callable, Mapping
+from typing import Mapping
 
 from coldroom.constants import SECONDS_PER_DAY_S, STANDARD_ATMOSPHERE_PA, STANDARD_GRAVITY_M_S2
 from coldroom.registry import Registry
@@ -59,9 +59,6 @@ __all__ = [
     "table_air_changes",
     "AirChangeInfiltration",
     "air_change_infiltration",
-    "INFILTRATION_METHODS",
-    "infiltration_method",
-    "infiltration_load",
 ]
 
 
@@ -588,35 +585,3 @@ def air_change_infiltration(
         outside=outside,
         room=room,
     )
-
-
-# --------------------------------------------------------------------------- registry
-
-INFILTRATION_METHODS: Mapping[str, Callable[..., DoorInfiltration | AirChangeInfiltration]] = MappingProxyType(
-    {"door": door_infiltration, "air_changes": air_change_infiltration}
-)
-"""Infiltration methods by name; each takes keyword arguments only."""
-_METHOD_NAMES = Registry("infiltration method", INFILTRATION_METHODS)
-
-
-def infiltration_method(name: str) -> Callable[..., DoorInfiltration | AirChangeInfiltration]:
-    """Return the infiltration function registered under *name* (normalised).
-
-    Examples
-    --------
-    >>> infiltration_method("Air changes") is air_change_infiltration
-    True
-    """
-    return _METHOD_NAMES.lookup(name)
-
-
-def infiltration_load(method: str, **inputs: float | str | None) -> DoorInfiltration | AirChangeInfiltration:
-    """Compute an infiltration load by method name with that method's keyword inputs.
-
-    Examples
-    --------
-    >>> infiltration_load("air_changes", room_volume=60.0, room_temperature=2.0, room_relative_humidity=0.85,
-    ...     outside_temperature=30.0, outside_relative_humidity=0.5, air_changes_per_day=0.0).average_power
-    0.0
-    """
-    return infiltration_method(method)(**inputs)

@@ -18,9 +18,6 @@ Defrost: count defrost heat **either** as a load here (:func:`defrost_energy`)
 
 from __future__ import annotations
 
-from types import MappingProxyType
-from typing import Mapping
-
 from coldroom.constants import SECONDS_PER_DAY_S, SECONDS_PER_HOUR_S
 from coldroom.registry import Registry
 from coldroom.errors import CalculationError, finite as _finite, non_negative as _non_negative
@@ -30,8 +27,6 @@ __all__ = [
     "daily_energy",
     "people_heat_rate",
     "people_energy",
-    "LIGHTING_POWER_DENSITY",
-    "lighting_power_density",
     "lighting_energy",
     "MOTOR_LOCATIONS",
     "motor_energy",
@@ -132,29 +127,6 @@ def people_energy(people: float, hours_per_day: float, room_temperature: float) 
 
 
 # --------------------------------------------------------------------------- lighting
-
-LIGHTING_POWER_DENSITY: Mapping[str, tuple[float, str]] = MappingProxyType(
-    {
-        "storage": (10.0, "[mem] ASHRAE Refrigeration, storage areas, older lamps ≈10 W/m²; verify"),
-        "processing": (27.0, "[mem] ASHRAE Refrigeration, processing/work areas, older lamps ≈27 W/m²; verify"),
-        "led_storage": (5.0, "[trade] LED storage lighting 3–6 W/m²; 5 chosen"),
-        "led_processing": (10.0, "[trade] LED work-area lighting, own estimate, no source"),
-    }
-)
-"""Typical installed lighting power per floor area [W/m²] with source notes."""
-_LIGHTING_NAMES = Registry("lighting kind", LIGHTING_POWER_DENSITY)
-
-
-def lighting_power_density(kind: str) -> float:
-    """Typical lighting power per floor area for a named room kind [W/m²].
-
-    Examples
-    --------
-    >>> lighting_power_density("storage")
-    10.0
-    """
-    return _LIGHTING_NAMES.lookup(kind)[0]
-
 
 def lighting_energy(power: float, hours_per_day: float) -> float:
     """Daily heat from lighting: all electrical input becomes heat in the room [J].

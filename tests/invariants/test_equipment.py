@@ -248,10 +248,10 @@ POLY = """      polynomial:
 
 
 def _parse(units: str, unit: str):  # type: ignore[no-untyped-def]
-    from coldroom.inputs.projectfile import parse_project_text
+    from coldroom.inputs.opening import open_project_text
 
     si = units == "SI"
-    return parse_project_text(
+    return open_project_text(
         MINI.format(
             units=units,
             outdoor="32" if si else "89.6",
@@ -305,10 +305,10 @@ def test_project_freezer_with_mt_polynomial_is_not_rated() -> None:
 
 def test_unit_refrigerant_other_than_the_rooms_is_warned() -> None:
     from coldroom.design.existing import check_room
-    from coldroom.inputs.projectfile import parse_project_text
+    from coldroom.inputs.opening import open_project_text
 
     text = MINI.format(units="SI", outdoor="32", ground="12", room="-18", unit=RATED_SI)
-    model = parse_project_text(text.replace("      refrigerant: R-448A\n", "      refrigerant: R-404A\n"))
+    model = open_project_text(text.replace("      refrigerant: R-448A\n", "      refrigerant: R-404A\n"))
     result = check_room(model, model.rooms[0], chart=False)
     assert result is not None and result.refrigerant == "R-404A"
     assert any("R-404A" in w and "R-448A" in w for w in result.warnings)

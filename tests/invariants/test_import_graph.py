@@ -120,7 +120,7 @@ def _cycles(graph: dict[str, set[str]]) -> list[list[str]]:
 
 def test_the_walker_sees_function_level_imports() -> None:
     graph = import_graph()
-    # sizing imports the cycle inside size_room only (CoolProp stays lazy): still an edge
+    # sizing imports the cycle inside its functions only (CoolProp stays lazy): still an edge
     assert "coldroom.physics.cycle" in graph["coldroom.design.sizing"]
     assert "coldroom.physics.refrigerant" in graph["coldroom.physics.cycle"]
 

@@ -39,7 +39,7 @@ def test_validate_size_and_cycle_agree_on_the_r744_boundary(side: int) -> None:
     """One rule (coldroom.physics.cycle.r744_transcritical): validate accepts, size sizes on the same side."""
     from coldroom.physics.cycle import R744_SUBCRITICAL_MARGIN, r744_transcritical, solve_cycle
     from coldroom.inputs.opening import open_project_text
-    from coldroom.design.sizing import size_room
+    from coldroom.design.sizing import size_project
 
     critical = refrigerants.limits("R-744")[1]
     condensing = critical - R744_SUBCRITICAL_MARGIN + side * 0.05
@@ -48,7 +48,7 @@ def test_validate_size_and_cycle_agree_on_the_r744_boundary(side: int) -> None:
     assert temps.condensing_temperature == pytest.approx(condensing)
     above = side > 0
     assert r744_transcritical(condensing) is above
-    result = size_room(model, model.rooms[0])
+    result = size_project(model, "co2.yaml", b"").rooms[0]
     assert result.cycle.transcritical is above
     if above:
         with pytest.raises(CalculationError, match="transcritical"):
@@ -142,10 +142,10 @@ def test_cycle_command_with_defaults_matches_the_project_sizing_for_the_same_dut
 
     from coldroom.cli import app
     from coldroom.inputs.opening import open_project_text
-    from coldroom.design.sizing import size_room
+    from coldroom.design.sizing import size_project
 
     model = open_project_text(STARTER, "starter.yaml")
-    sized = size_room(model, model.rooms[0])
+    sized = size_project(model, "starter.yaml", STARTER.encode()).rooms[0]
     out = CliRunner().invoke(app, [
         "cycle", "-r", "R-448A",
         "--evaporating", repr(sized.evaporating_temperature),

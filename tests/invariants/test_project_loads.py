@@ -14,7 +14,8 @@ from hypothesis import given, settings
 from hypothesis import strategies as st
 
 from coldroom.loads import room_loads
-from coldroom.inputs.projectfile import parse_project_data, parse_project_text
+from coldroom.inputs.opening import open_project_text
+from coldroom.inputs.projectfile import parse_project_data
 from coldroom.inputs.safeyaml import load_yaml
 
 from pathlib import Path
@@ -23,7 +24,7 @@ TWIN = Path(__file__).resolve().parents[1] / "data" / "si_ip"
 
 
 def _loads(path):
-    model = parse_project_text(path.read_bytes(), str(path))
+    model = open_project_text(path.read_bytes(), str(path))
     return room_loads(model, model.rooms[0])
 
 

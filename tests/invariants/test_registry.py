@@ -27,10 +27,8 @@ REGISTRIES = [
     materials._HEMISPHERE_NAMES,
     refrigerants._NAMES,
     products._names(),
-    infiltration._METHOD_NAMES,
     infiltration._PROTECTION_NAMES,
     infiltration._USAGE_NAMES,
-    internal._LIGHTING_NAMES,
     internal._MOTOR_LOCATION_NAMES,
     totals._DEFROST_NAMES,
     product._PACKAGING_NAMES,
@@ -91,10 +89,9 @@ def test_public_look_ups_go_through_one_normalisation() -> None:
     assert refrigerants.lookup("r 448 a") is refrigerants.lookup("R-448A")
     assert refrigerants.lookup("Carbon-Dioxide").name == "R-744"
     assert tubes.series("en 12735-1") is tubes.series("EN12735 1")
-    assert infiltration.infiltration_method("Air-Changes") is infiltration.air_change_infiltration
+    assert infiltration.door_protection_effectiveness("Strip-Curtain") == infiltration.door_protection_effectiveness("strip curtain")
     assert totals.run_hours_for_defrost("HOT GAS") == totals.run_hours_for_defrost("hot_gas")
     assert product.packaging_specific_heat("Plastic-Crates") == product.packaging_specific_heat("plastic")
-    assert internal.lighting_power_density("LED storage") == internal.lighting_power_density("led_storage")
     assert property_model(Composition.from_water(0.8), -1.0, " Siebel ").latent_heat > 0
     assert Composition.from_water(0.75, "Protein").protein == pytest.approx(0.25)
     assert chang_tao_freezing_point(0.74, "Meat") == chang_tao_freezing_point(0.74, "meat")

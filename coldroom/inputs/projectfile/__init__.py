@@ -37,7 +37,8 @@ One module per part of the file; this package re-exports the names callers use:
 
 Examples
 --------
->>> p = parse_project_text('''
+>>> from coldroom.inputs.opening import open_project_text
+>>> p = open_project_text('''
 ... project: {name: Demo, units: SI}
 ... design: {outdoor_temperature: 30, outdoor_rh: 50 %, ground_temperature: 12}
 ... constructions:
@@ -122,7 +123,7 @@ from coldroom.inputs.projectfile.schedule import Delivery, DoorWindow, HourOfDay
 from coldroom.inputs.projectfile.room import Room
 from coldroom.inputs.projectfile.model import Economics, Option, ProjectModel
 from coldroom.inputs.projectfile.quote import QuoteSettings
-from coldroom.inputs.projectfile.parsing import error_at, json_schema, parse_project_data, parse_project_text
+from coldroom.inputs.projectfile.parsing import error_at, json_schema, parse_project_data
 
 __all__ = [
     "AmbientBinEntry",
@@ -191,5 +192,4 @@ __all__ = [
     "error_at",
     "json_schema",
     "parse_project_data",
-    "parse_project_text",
 ]

@@ -116,15 +116,6 @@ def error_at(loaded: Any, filename: str, message: str, path: tuple) -> ProjectFi
     return ProjectFileError(message, file=filename, key=dotted(path) or None)
 
 
-def parse_project_text(text: str | bytes, filename: str = "<input>") -> ProjectModel:
-    """Load and validate a project from YAML text (each field; the physical checks are
-    :func:`coldroom.inputs.physical_checks.check_physics`, run by :func:`coldroom.inputs.opening.open_project`)."""
-    from coldroom.inputs.safeyaml import load_yaml
-
-    loaded = load_yaml(text, filename=filename)
-    return parse_project_data(loaded.data, filename=filename, loaded=loaded)
-
-
 def json_schema() -> dict[str, Any]:
     """JSON Schema of the project file, for editors that complete and check YAML."""
     schema = ProjectModel.model_json_schema()
