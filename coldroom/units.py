@@ -469,7 +469,8 @@ DISPLAY_UNITS: dict[str, dict[str, str]] = {
 _DISPLAY_KIND = {"thickness": "length", "power_large": "power", "mass_flow": "mass_flow"}
 
 
-def display(value_si: float, kind: str, system: str = "SI", digits: int | None = None) -> str:
+def display(value_si: float, kind: str, system: str = "SI", digits: int | None = None, *,
+            signed_zero: bool = True) -> str:
     """Format an SI value for people in the project's unit system, unit included.
 
     *kind* may also be ``"thickness"`` (mm / in), ``"power_large"`` (kW / TR)
@@ -494,11 +495,14 @@ def display(value_si: float, kind: str, system: str = "SI", digits: int | None =
         value = value_si if unit == "kg/s" else value_si * 3600.0 / POUND
     else:
         value = to_unit(value_si, base, unit)
-    return f"{format_number(value, digits)} {unit}"
+    return f"{format_number(value, digits, signed_zero=signed_zero)} {unit}"
 
 
-def format_number(value: float, digits: int | None = None) -> str:
-    """Round for reading: about three significant figures, thousands separated.
+def format_number(value: float, digits: int | None = None, *, signed_zero: bool = True) -> str:
+    """Round for reading: about three significant figures (or *digits* decimals), thousands separated.
+
+    ``signed_zero=False`` writes a value that rounds to zero at *digits* decimals as
+    ``0.0``, never ``-0.0`` (the chart's axis and line labels).
 
     Examples
     --------
@@ -508,8 +512,12 @@ def format_number(value: float, digits: int | None = None) -> str:
     '0.0123'
     >>> format_number(3.14159, 2)
     '3.14'
+    >>> format_number(-0.04, 1), format_number(-0.04, 1, signed_zero=False)
+    ('-0.0', '0.0')
     """
     if digits is not None:
+        if not signed_zero and abs(value) < 0.5 * 10.0**-digits:
+            value = 0.0
         return f"{value:,.{digits}f}"
     magnitude = abs(value)
     if magnitude >= 100 or value == 0:
@@ -519,6 +527,73 @@ def format_number(value: float, digits: int | None = None) -> str:
     if magnitude >= 1:
         return f"{value:,.2f}"
     return f"{value:.3g}"
+
+
+def format_capacity(watts: float, system: str = "SI", *, fixed: bool = True) -> str:
+    """A refrigeration capacity for people: kW (W below 1 kW) in SI; Btu/h with TR in IP.
+
+    ``fixed=True`` (the sheet's tables): kW to two decimals, W and Btu/h whole, the TR
+    added from 1 TR (0.5 % tolerance). ``fixed=False`` (the terminal): about three
+    significant figures (:func:`format_number`), the TR always added in IP.
+
+    Examples
+    --------
+    >>> format_capacity(5234.0), format_capacity(5234.0, fixed=False)
+    ('5.23 kW', '5.23 kW')
+    >>> format_capacity(12345.0), format_capacity(12345.0, fixed=False)
+    ('12.35 kW', '12.3 kW')
+    >>> format_capacity(3516.85, "IP")
+    '12,000 Btu/h (1.00 TR)'
+    >>> format_capacity(1500.0, "IP"), format_capacity(1500.0, "IP", fixed=False)
+    ('5,118 Btu/h', '5,118 Btu/h (0.427 TR)')
+    """
+    if not fixed:
+        if system == "IP":
+            return f"{display(watts, 'power', 'IP')} ({display(watts, 'power_large', 'IP')})"
+        return display(watts, "power_large", "SI") if abs(watts) >= 1000 else display(watts, "power", "SI")
+    if system == "IP":
+        text = display(watts, "power", "IP", 0)
+        if abs(watts) >= TON_REFRIGERATION * 0.995:
+            text += f" ({display(watts, 'power_large', 'IP', 2)})"
+        return text
+    if abs(watts) >= 1000:
+        return display(watts, "power_large", "SI", 2)
+    return display(watts, "power", "SI", 0)
+
+
+def format_electrical(watts: float) -> str:
+    """An electrical figure: W below 1 kW, else kW, in either unit system (electricians work in kW).
+
+    Examples
+    --------
+    >>> format_electrical(2310.0), format_electrical(150.0)
+    ('2.31 kW', '150 W')
+    """
+    return display(watts, "power_large", "SI", 2) if abs(watts) >= 1000 else display(watts, "power", "SI", 0)
+
+
+def format_temperature(value_c: "float | None", system: str = "SI", missing: str = "–") -> str:
+    """A temperature with one decimal in *system*, or *missing* when there is none.
+
+    Examples
+    --------
+    >>> format_temperature(-2.5), format_temperature(0.0, "IP"), format_temperature(None)
+    ('-2.5 °C', '32.0 °F', '–')
+    """
+    if value_c is None:
+        return missing
+    return display(value_c, "temperature", system, 1)
+
+
+def format_money(value: float, currency: str, decimals: int = 0) -> str:
+    """A price: *decimals* places, thousands set apart by a space, the currency after.
+
+    Examples
+    --------
+    >>> format_money(12345.6, "EUR"), format_money(12345.6, "EUR", 2)
+    ('12 346 EUR', '12 345.60 EUR')
+    """
+    return f"{value:,.{decimals}f}".replace(",", " ") + f" {currency}"
 
 
 def format_terms(terms: "Sequence[object]", system: str = "SI") -> str:

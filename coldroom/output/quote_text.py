@@ -4,13 +4,10 @@ from __future__ import annotations
 
 from typing import TYPE_CHECKING
 
+from coldroom.units import format_money
+
 if TYPE_CHECKING:  # pragma: no cover
     from coldroom.design.quote import Quote
-
-
-def money(value: float, currency: str) -> str:
-    """A price with a thin thousands separator and two decimals: ``12 345.60 EUR``."""
-    return f"{value:,.2f}".replace(",", " ") + f" {currency}"
 
 
 #: The quote's SI units and the quantity kind each is shown as in the project's system.
@@ -38,15 +35,15 @@ def quote_report(quote: "Quote", system: str = "SI") -> str:
         if line.section != section:
             section = line.section
             rows.append(f"{section.upper()}")
-        price = money(line.total_price, c) if line.total_price is not None else "PRICE NEEDED"
+        price = format_money(line.total_price, c, 2) if line.total_price is not None else "PRICE NEEDED"
         model = f" [{line.model}]" if line.model else ""
         rows.append(f"  {line.item}{model}: {quantity_text(line.quantity, line.unit, system)}  {price}")
     rows += [
         "",
-        f"subtotal          {money(quote.subtotal_price, c)}",
-        f"margin {quote.margin * 100:5.1f} %    {money(quote.margin_price, c)}",
-        f"tax {quote.tax_rate * 100:5.1f} %       {money(quote.tax_price, c)}",
-        f"total             {money(quote.total_price, c)}",
+        f"subtotal          {format_money(quote.subtotal_price, c, 2)}",
+        f"margin {quote.margin * 100:5.1f} %    {format_money(quote.margin_price, c, 2)}",
+        f"tax {quote.tax_rate * 100:5.1f} %       {format_money(quote.tax_price, c, 2)}",
+        f"total             {format_money(quote.total_price, c, 2)}",
     ]
     if not quote.complete:
         rows.append(f"INCOMPLETE: {len(quote.missing_prices)} line(s) need a price: " + "; ".join(quote.missing_prices))

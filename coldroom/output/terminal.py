@@ -13,7 +13,15 @@ from coldroom.results import COMPONENTS, RoomLoads, Term
 
 if TYPE_CHECKING:  # pragma: no cover
     from coldroom.results import SystemResult
-from coldroom.units import display, format_number, format_terms
+from coldroom.units import (
+    display,
+    format_capacity,
+    format_electrical,
+    format_money,
+    format_number,
+    format_temperature,
+    format_terms,
+)
 
 
 def table(headers: Sequence[str], rows: Sequence[Sequence[str]], align: str | None = None) -> str:
@@ -40,13 +48,6 @@ def table(headers: Sequence[str], rows: Sequence[Sequence[str]], align: str | No
     return "\n".join([line(headers), rule, *(line(r) for r in rows)])
 
 
-def power_text(watts: float, system: str) -> str:
-    """A capacity for people: kW in SI, Btu/h and TR in IP."""
-    if system == "IP":
-        return f"{display(watts, 'power', 'IP')} ({display(watts, 'power_large', 'IP')})"
-    return display(watts, "power_large", "SI") if abs(watts) >= 1000 else display(watts, "power", "SI")
-
-
 def room_load_table(loads: RoomLoads, system: str) -> str:
     """The component table of one room with its totals."""
     total = loads.daily_energy
@@ -62,14 +63,14 @@ def room_load_table(loads: RoomLoads, system: str) -> str:
     run_h = loads.run_time / 3600.0
     footer = [
         f"run time {run_h:g} h/day ({loads.run_time_basis}), safety factor {loads.safety_factor:.0%}",
-        f"required capacity   {power_text(loads.required_capacity, system)}",
-        f"peak-hour capacity  {power_text(loads.peak_capacity, system)}"
+        f"required capacity   {format_capacity(loads.required_capacity, system, fixed=False)}",
+        f"peak-hour capacity  {format_capacity(loads.peak_capacity, system, fixed=False)}"
         + (
             f"   (design-day schedule, peak hour {loads.design_day.peak_hour:02d}:00)"
             if loads.design_day is not None and loads.design_day.scheduled
             else "   (product at pull-down rate, all internal loads on)"
         ),
-        f"design capacity     {power_text(loads.design_capacity, system)}   (set by the {loads.governed_by})",
+        f"design capacity     {format_capacity(loads.design_capacity, system, fixed=False)}   (set by the {loads.governed_by})",
     ]
     return body + "\n" + "\n".join(footer)
 
@@ -85,22 +86,8 @@ def loads_report(rooms: Sequence[RoomLoads], system: str, temperatures: Sequence
     return "\n\n".join(parts)
 
 
-def electrical_text(watts: float) -> str:
-    """An electrical figure: W below 1 kW, else kW, in either unit system (electricians work in kW).
-
-    Examples
-    --------
-    >>> electrical_text(2310.0), electrical_text(150.0)
-    ('2.31 kW', '150 W')
-    """
-    return display(watts, "power_large", "SI", 2) if abs(watts) >= 1000 else display(watts, "power", "SI", 0)
-
-
 def systems_report(systems: Sequence["SystemResult"], system: str) -> str:
     """The per-system table of ``coldroom size``: one row per system, a total row, then each system's working."""
-    def temp(value: float | None) -> str:
-        return "–" if value is None else display(value, "temperature", system, 1)
-
     rows = []
     for s in systems:
         e = s.electrical
@@ -109,11 +96,11 @@ def systems_report(systems: Sequence["SystemResult"], system: str) -> str:
                 s.name,
                 ", ".join(s.rooms),
                 s.refrigerant,
-                f"{temp(s.suction_temperature)} / {temp(s.condensing_temperature)}",
-                power_text(s.design_capacity, system),
-                electrical_text(e.compressor_input_power),
-                power_text(s.heat_of_rejection, system),
-                electrical_text(e.connected_load),
+                f"{format_temperature(s.suction_temperature, system)} / {format_temperature(s.condensing_temperature, system)}",
+                format_capacity(s.design_capacity, system, fixed=False),
+                format_electrical(e.compressor_input_power),
+                format_capacity(s.heat_of_rejection, system, fixed=False),
+                format_electrical(e.connected_load),
                 format_number(e.daily_energy / 3.6e6, 1),
             ]
         )
@@ -124,10 +111,10 @@ def systems_report(systems: Sequence["SystemResult"], system: str) -> str:
                 "",
                 "",
                 "",
-                power_text(sum(s.design_capacity for s in systems), system),
-                electrical_text(sum(s.electrical.compressor_input_power for s in systems)),
-                power_text(sum(s.heat_of_rejection for s in systems), system),
-                electrical_text(sum(s.electrical.connected_load for s in systems)),
+                format_capacity(sum(s.design_capacity for s in systems), system, fixed=False),
+                format_electrical(sum(s.electrical.compressor_input_power for s in systems)),
+                format_capacity(sum(s.heat_of_rejection for s in systems), system, fixed=False),
+                format_electrical(sum(s.electrical.connected_load for s in systems)),
                 format_number(sum(s.electrical.daily_energy for s in systems) / 3.6e6, 1),
             ]
         )
@@ -137,24 +124,24 @@ def systems_report(systems: Sequence["SystemResult"], system: str) -> str:
         e = s.electrical
         if len(s.members) > 1:
             coils = "; ".join(
-                f"{m.room} {temp(m.evaporating_temperature)} {power_text(m.duty, system)}"
+                f"{m.room} {format_temperature(m.evaporating_temperature, system)} {format_capacity(m.duty, system, fixed=False)}"
                 + (" behind an EPR" if m.regulated else "")
                 for m in s.members
             )
             lines.append(f"{s.name}: coils {coils}; vapour mixed into the suction")
         case = (
-            f"defrost: heaters {electrical_text(e.defrost_heater_power)} + evaporator fans "
-            f"{electrical_text(e.evaporator_fan_power)} + other heaters {electrical_text(e.other_heater_power)}"
+            f"defrost: heaters {format_electrical(e.defrost_heater_power)} + evaporator fans "
+            f"{format_electrical(e.evaporator_fan_power)} + other heaters {format_electrical(e.other_heater_power)}"
             if e.connected_load_case == "defrost"
             else f"{e.connected_load_case}: its defrost heaters + heaters + compressor + condenser fans + the other "
             "rooms' evaporator fans"
             if e.connected_load_case.startswith("defrost of ")
-            else f"refrigerating: compressor {electrical_text(e.compressor_input_power)} + condenser fans "
-            f"{electrical_text(e.condenser_fan_power)} + evaporator fans {electrical_text(e.evaporator_fan_power)}"
-            f" + heaters {electrical_text(e.other_heater_power)}"
+            else f"refrigerating: compressor {format_electrical(e.compressor_input_power)} + condenser fans "
+            f"{format_electrical(e.condenser_fan_power)} + evaporator fans {format_electrical(e.evaporator_fan_power)}"
+            f" + heaters {format_electrical(e.other_heater_power)}"
         )
         lines.append(
-            f"{s.name}: connected load {electrical_text(e.connected_load)} ({case}); compressor runs "
+            f"{s.name}: connected load {format_electrical(e.connected_load)} ({case}); compressor runs "
             f"{e.compressor_run_time / 3600:.1f} h/day"
         )
         works = getattr(s, "pipework", None)
@@ -273,16 +260,12 @@ def charge_notes(comparison: Any) -> list[str]:
     return out
 
 
-def _money(value: float, currency: str) -> str:
-    return f"{value:,.0f} {currency}".replace(",", " ")
-
-
 def selection_report(selections: Sequence[object], system: str) -> str:
     """The equipment chosen per system (``coldroom select``): coils, unit, balance, prices, alternatives."""
     from coldroom.design.selection import REASONS_COOLER, REASONS_UNIT
 
     def t(x: object) -> str:
-        return "-" if x is None else display(x, "temperature", system)  # type: ignore[arg-type]
+        return format_temperature(x, system, missing="-")  # type: ignore[arg-type]
 
     lines: list[str] = []
     grand = 0.0
@@ -290,15 +273,15 @@ def selection_report(selections: Sequence[object], system: str) -> str:
     for s in selections:
         currency = s.currency  # type: ignore[attr-defined]
         c = s.choice.check  # type: ignore[attr-defined]
-        lines.append(f"System {s.system} ({s.refrigerant}): needs {power_text(s.required_capacity, system)} "  # type: ignore[attr-defined]
+        lines.append(f"System {s.system} ({s.refrigerant}): needs {format_capacity(s.required_capacity, system, fixed=False)} "  # type: ignore[attr-defined]
                      f"in {s.run_hours_available:.1f} h/day at {t(s.ambient_temperature)} condenser air")  # type: ignore[attr-defined]
         rows = []
         for k in s.coolers:  # type: ignore[attr-defined]
-            rows.append([k.room, f"{k.count} × {k.model}", power_text(k.duty, system), power_text(k.capacity, system),
-                         _money(k.price, currency)])
-        rows.append(["condensing unit", s.choice.model, power_text(s.required_capacity, system),  # type: ignore[attr-defined]
-                     power_text(c.capacity_at_balance, system), _money(s.choice.price, currency)])  # type: ignore[attr-defined]
-        rows.append(["total", "", "", "", _money(s.total_price, currency)])  # type: ignore[attr-defined]
+            rows.append([k.room, f"{k.count} × {k.model}", format_capacity(k.duty, system, fixed=False), format_capacity(k.capacity, system, fixed=False),
+                         format_money(k.price, currency)])
+        rows.append(["condensing unit", s.choice.model, format_capacity(s.required_capacity, system, fixed=False),  # type: ignore[attr-defined]
+                     format_capacity(c.capacity_at_balance, system, fixed=False), format_money(s.choice.price, currency)])  # type: ignore[attr-defined]
+        rows.append(["total", "", "", "", format_money(s.total_price, currency)])  # type: ignore[attr-defined]
         lines.append(table(["item", "model", "duty", "capacity", "price"], rows, "llrrr"))
         holds = (f"holds up to {t(c.max_ambient)} condenser air" if c.max_ambient_status == "found"
                  else {"holds_above_range": "holds over the whole range searched (10…55 °C)"}.get(c.max_ambient_status, ""))
@@ -309,7 +292,7 @@ def selection_report(selections: Sequence[object], system: str) -> str:
             lines.append(f"  {k.room}: {k.rule}")
         for a in s.alternatives:  # type: ignore[attr-defined]
             ac = a.check
-            lines.append(f"  alternative: {a.model}, total {_money(s.total_price_with(a), currency)}; SST "  # type: ignore[attr-defined]
+            lines.append(f"  alternative: {a.model}, total {format_money(s.total_price_with(a), currency)}; SST "  # type: ignore[attr-defined]
                          f"{t(ac.balance_evaporating)}, margin {ac.margin_percent:+.0f} %")
         if s.rejected:  # type: ignore[attr-defined]
             lines.append("  condensing units not chosen: " + ", ".join(
@@ -323,7 +306,7 @@ def selection_report(selections: Sequence[object], system: str) -> str:
         lines.append("")
         grand += s.total_price  # type: ignore[attr-defined]
     if len(selections) > 1:
-        lines.append(f"Total for the project: {_money(grand, currency)}")
+        lines.append(f"Total for the project: {format_money(grand, currency)}")
     return "\n".join(lines).rstrip()
 
 
@@ -437,7 +420,7 @@ def check_report(model: Any, checks: Sequence[tuple[RoomLoads, Any]], limits: Op
     sweep = format_terms((Term(low, "temperature:bare", sep=""), "…", Term(high, "temperature", sep="")), system)
 
     def t(x):  # type: ignore[no-untyped-def]
-        return "-" if x is None else display(x, "temperature", system)
+        return format_temperature(x, system, missing="-")
 
     def q(x):  # type: ignore[no-untyped-def]
         if x is None:

@@ -11,6 +11,7 @@ from dataclasses import dataclass, field
 from typing import Any, Optional
 
 from coldroom.output.pdf.text import clean, temperature
+from coldroom.units import format_electrical
 
 
 @dataclass
@@ -68,6 +69,4 @@ def room_system(ctx: SheetContext, index: int) -> Any:
 
 def electrical_label(watts: float) -> str:
     """Electrical power: W below 1 kW, else kW, in both unit systems (electricians work in kW)."""
-    from coldroom.output.terminal import electrical_text
-
-    return clean(electrical_text(watts))
+    return clean(format_electrical(watts))

@@ -80,23 +80,15 @@ FONT_BOLD = "Helvetica-Bold"
 # --- the chart -------------------------------------------------------------------------------------
 
 
-def _fmt(value: float, digits: int) -> str:
-    if abs(value) < 0.5 * 10.0**-digits:
-        value = 0.0  # no "-0"
-    text = f"{value:,.{digits}f}"
-    return clean(text.replace("-", "−"))
-
-
 def _pressure_text(p_si: float, system: str) -> str:
     unit = _units.DISPLAY_UNITS[system]["pressure"]
     v = _units.to_unit(p_si, "pressure", unit)
     digits = 0 if v >= 100 else 1
-    return f"{_fmt(v, digits)} {unit}"
+    return f"{_units.format_number(v, digits, signed_zero=False)} {unit}"
 
 
 def _temperature_text(t_c: float, system: str, digits: int = 1) -> str:
-    unit = _units.DISPLAY_UNITS[system]["temperature"]
-    return clean(f"{_fmt(_units.to_unit(t_c, 'temperature', unit), digits)} {unit}")
+    return clean(_units.display(t_c, "temperature", system, digits, signed_zero=False))
 
 
 def ph_chart(cycle: Any, system: str, width: float, height: float, title: str = "",
@@ -431,7 +423,7 @@ def _draw(cycle: Any, window: Window, system: str, width: float, height: float, 
             drawing.add(Line(x_state, y1, x_state, y1 + _STRIP - 6.0, strokeColor=RULE, strokeWidth=0.5, strokeDashArray=(1, 1.5)))
     for (ha, hb, name), y in zip(rows, row_y):
         xa, xb = sorted((min(max(X(hb), x0), x1), min(max(X(ha), x0), x1)))
-        _span(drawing, xa, xb, y, f"{name} {_fmt(hd(ha) - hd(hb), 1)} {h_unit}")
+        _span(drawing, xa, xb, y, f"{name} {_units.format_number(hd(ha) - hd(hb), 1, signed_zero=False)} {h_unit}")
     drawing.add(Line(x0, y1, x1, y1, strokeColor=MUTED, strokeWidth=0.5))
     drawing.add(Rect(x0, y0, x1 - x0, y1 - y0, fillColor=None, strokeColor=MUTED, strokeWidth=0.6))
 
@@ -525,7 +517,7 @@ def _draw(cycle: Any, window: Window, system: str, width: float, height: float, 
     # isotherms: at the upper part of their vapour piece, right of the line
     t_unit = _units.DISPLAY_UNITS[system]["temperature"]
     for value, pieces in isotherm_pieces:
-        label = clean(_fmt(_units.to_unit(value, "temperature", t_unit), 0) + f" {t_unit}")
+        label = clean(_units.format_number(_units.to_unit(value, "temperature", t_unit), 0, signed_zero=False) + f" {t_unit}")
         place(label, along(pieces, 2.5, 2.0, 2), ISOTHERM_TEXT, 6.2, pad=0.5)
     # isentropes: near their upper end
     for value, pieces in isentrope_pieces:

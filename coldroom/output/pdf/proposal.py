@@ -24,6 +24,7 @@ from coldroom.output.pdf.layout import (
 )
 from coldroom.output.pdf.text import capacity, clean, esc, q, temperature
 from coldroom.output.quote_text import quantity_text
+from coldroom.units import format_money
 
 if TYPE_CHECKING:  # pragma: no cover
     from coldroom.design.quote import Quote
@@ -39,10 +40,6 @@ class _Ctx:
     def __init__(self, width: float, system: str) -> None:
         self.width = width
         self.system = system
-
-
-def _money(value: float, currency: str) -> str:
-    return f"{value:,.2f}".replace(",", " ") + f" {currency}"
 
 
 def _valid_until(date: str, days: int) -> str:
@@ -172,9 +169,9 @@ def _electrical(quote: "Quote", ctx: _Ctx) -> list:
 def _price(quote: "Quote", ctx: _Ctx) -> list:
     c = quote.currency
     net = quote.subtotal_price + quote.margin_price
-    rows = [["Supply and installation as described, net", _money(net, c)],
-            [f"Tax ({quote.tax_rate * 100:g} %)", _money(quote.tax_price, c)],
-            ["Total", _money(quote.total_price, c)]]
+    rows = [["Supply and installation as described, net", format_money(net, c, 2)],
+            [f"Tax ({quote.tax_rate * 100:g} %)", format_money(quote.tax_price, c, 2)],
+            ["Total", format_money(quote.total_price, c, 2)]]
     w = ctx.width
     out = [heading("Price", H2), grid(rows, [0.7 * w, 0.3 * w], header=False, align_right=(1,), total_rows=(2,))]
     terms = quote.settings.terms.strip()

@@ -11,11 +11,7 @@ from typing import Any
 from reportlab.platypus import Spacer
 
 from coldroom.output.pdf.text import capacity, temperature
-from coldroom.units import display
-
-
-def _money(value: float, currency: str) -> str:
-    return f"{value:,.0f} {currency}".replace(",", " ")
+from coldroom.units import display, format_money
 
 
 def _sheet():  # type: ignore[no-untyped-def]
@@ -34,8 +30,8 @@ def selection_summary_section(ctx: Any) -> list:
     rows: list[list[str]] = [["System", "Condensing unit", "Unit coolers", "Price"]]
     for s in selections:
         coils = "; ".join(f"{c.room}: {c.count} × {c.model}" for c in s.coolers)
-        rows.append([s.system, s.choice.model, coils, _money(s.total_price, currency)])
-    rows.append(["Total", "", "", _money(sum(s.total_price for s in selections), currency)])
+        rows.append([s.system, s.choice.model, coils, format_money(s.total_price, currency)])
+    rows.append(["Total", "", "", format_money(sum(s.total_price for s in selections), currency)])
     w = ctx.width
     return [
         sh.heading("Selected equipment (from the catalogue)", sh.H3),
@@ -71,10 +67,10 @@ def selected_equipment_section(ctx: Any) -> list:
         for k in s.coolers:
             rows.append([f"Unit cooler, {k.room}", k.model, str(k.count), capacity(k.duty, s_),
                          capacity(k.capacity, s_) + " at TD " + display(k.temperature_difference, "temperature_difference", s_),
-                         _money(k.price, cur)])
+                         format_money(k.price, cur)])
         rows.append(["Condensing unit", s.choice.model, "1", capacity(s.required_capacity, s_),
-                     capacity(c.capacity_at_balance, s_) + " at balance", _money(s.choice.price, cur)])
-        rows.append(["Total", "", "", "", "", _money(s.total_price, cur)])
+                     capacity(c.capacity_at_balance, s_) + " at balance", format_money(s.choice.price, cur)])
+        rows.append(["Total", "", "", "", "", format_money(s.total_price, cur)])
         out += [
             Spacer(1, 4),
             sh.heading(f"System {s.system} ({s.refrigerant})", sh.H3),
@@ -93,7 +89,7 @@ def selected_equipment_section(ctx: Any) -> list:
         ]
         for a in s.alternatives:
             ac = a.check
-            facts.append(["Alternative", f"{a.model}: total {_money(s.total_price_with(a), cur)}; SST "
+            facts.append(["Alternative", f"{a.model}: total {format_money(s.total_price_with(a), cur)}; SST "
                                          f"{temperature(ac.balance_evaporating, s_)}, margin {ac.margin_percent:+.0f} %"])
         if s.rejected:
             facts.append(["Units set aside", ", ".join(f"{n} {REASONS_UNIT.get(r, r)}" for r, n in s.rejected.items())])

@@ -1,4 +1,7 @@
-"""Text for the sheet: only characters the built-in Helvetica shows, numbers with units.
+"""Text for the sheet: only characters the built-in Helvetica shows.
+
+Numbers are formatted by :mod:`coldroom.units` (``display`` and the ``format_*``
+functions the terminal uses too); the helpers here pass them through :func:`clean`.
 
 The sheet uses reportlab's built-in Helvetica (WinAnsi encoding) so that the
 PDF needs no font files and is byte-identical on every machine. WinAnsi has
@@ -79,7 +82,7 @@ def q(value_si: float | None, kind: str, system: str, digits: int | None = None)
 
 
 def capacity(watts: float, system: str) -> str:
-    """A refrigeration capacity: kW in SI; Btu/h in IP (with TR above 1 TR).
+    """A refrigeration capacity (:func:`coldroom.units.format_capacity`) in the sheet's characters.
 
     Examples
     --------
@@ -88,18 +91,11 @@ def capacity(watts: float, system: str) -> str:
     >>> capacity(3516.85, "IP")
     '12,000 Btu/h (1.00 TR)'
     """
-    if system == "IP":
-        text = _units.display(watts, "power", "IP", 0)
-        if abs(watts) >= _units.TON_REFRIGERATION * 0.995:
-            text += f" ({_units.display(watts, 'power_large', 'IP', 2)})"
-        return clean(text)
-    if abs(watts) >= 1000:
-        return clean(_units.display(watts, "power_large", "SI", 2))
-    return clean(_units.display(watts, "power", "SI", 0))
+    return clean(_units.format_capacity(watts, system))
 
 
 def temperature(value_c: float | None, system: str) -> str:
-    """A temperature with one decimal.
+    """A temperature with one decimal (:func:`coldroom.units.format_temperature`) in the sheet's characters.
 
     Examples
     --------
@@ -108,6 +104,4 @@ def temperature(value_c: float | None, system: str) -> str:
     >>> temperature(0.0, "IP")
     '32.0 °F'
     """
-    if value_c is None:
-        return "–"
-    return clean(_units.display(value_c, "temperature", system, 1))
+    return clean(_units.format_temperature(value_c, system))
