@@ -8,7 +8,7 @@ Modules:
 ``layout``             the look: colours, paragraph styles, headings, grids, figure and warning boxes
 ``cycle_section``      a cycle's state table, p–h chart and compressor figures on the sheet
 ``cautions_section``   the safety cautions (refrigerant class, people shut in, frozen ground, electrical)
-``check_section``, ``verdict_section``, ``selection_section``, ``pipework_section``, ``timecharts``
+``existing_unit_section``, ``verdict_section``, ``selection_section``, ``pipework_section``, ``timecharts``
                        the existing-unit check, page-1 verdict, selected equipment, pipework and
                        charge, design-day and pull-down sections
 ``charts``             the load-breakdown bar chart (a flowable drawn on the canvas)

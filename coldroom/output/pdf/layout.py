@@ -1,7 +1,7 @@
 """The sheet's look: colours, paragraph styles and building blocks (headings, grids, boxes).
 
 Every section of the sheet (:mod:`coldroom.output.pdf.sheet`,
-:mod:`coldroom.output.pdf.check_section`, and any new one) builds its flowables
+:mod:`coldroom.output.pdf.existing_unit_section`, and any new one) builds its flowables
 from these, so all sections look alike and no section module imports another.
 A block that needs the page takes ``ctx`` (a
 :class:`coldroom.output.pdf.context.SheetContext`: ``ctx.width`` [pt], ``ctx.system``).

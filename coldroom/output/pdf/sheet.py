@@ -45,7 +45,7 @@ from reportlab.platypus import (
 from coldroom.constants import SECONDS_PER_DAY_S
 from coldroom.output.pdf.cautions_section import cautions_section
 from coldroom.output.pdf.charts import MUTED, RULE, BarChart
-from coldroom.output.pdf.check_section import existing_unit_section
+from coldroom.output.pdf.existing_unit_section import existing_unit_section
 from coldroom.output.pdf.context import SheetContext, electrical_label, room_conditions, room_cycle, room_system
 from coldroom.output.pdf.cycle_section import compressor_figures, cycle_section, duties_and_cycle
 from coldroom.output.pdf.layout import (

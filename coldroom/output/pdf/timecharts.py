@@ -16,7 +16,7 @@ from typing import Optional, Sequence
 from reportlab.platypus import Flowable
 
 from coldroom.output.pdf.charts import INK, MUTED, PALETTE, RULE
-from coldroom.output.pdf.check_section import _display_power, _display_temperature, _nice_step
+from coldroom.output.pdf.existing_unit_section import _display_power, _display_temperature, _nice_step
 from coldroom.output.pdf.text import capacity, clean, temperature
 
 BAR_COLOUR = PALETTE[1]  # teal: the load
