@@ -3,13 +3,18 @@
 Each test takes two routes that used to hold their own copy of a rule
 (validate and size and the cycle; ``coldroom cycle`` and a project's
 refrigeration block; the cycle's and the existing unit's pressure-ratio flag)
-and checks that they now agree.
+and checks that they now agree. Two scans of the syntax tree keep the owners
+single: (1 + SF)·E is written once (``coldroom.rules``), and the physical
+constants (101 325 Pa, 273.15 K, g, 86 400 s) are numbers only in
+``coldroom/constants.py`` (data tables and tests exempt); each scan has a test
+that it catches a planted case.
 """
 
 from __future__ import annotations
 
 import ast
 import json
+import math
 from importlib.resources import files
 from pathlib import Path
 
@@ -203,3 +208,76 @@ def test_required_capacity_is_computed_in_one_place() -> None:
         called = {n.func.id for n in ast.walk(tree) if isinstance(n, ast.Call) and isinstance(n.func, ast.Name)}
         assert "required_capacity" in called, module
     assert design.required_capacity(3.6e8, 18 * 3600.0, 0.10) == pytest.approx(1.1 * 3.6e8 / 64_800.0)
+
+
+# --- (f) physical constants have one owner: coldroom/constants.py ------------------------------
+
+#: The values only coldroom/constants.py writes as numbers, with the name to use instead. A
+#: docstring or comment that quotes one is text (a str constant), not a number, so it passes.
+CONSTANT_LITERALS: dict[float, str] = {
+    101325.0: "constants.STANDARD_ATMOSPHERE_PA",
+    101.325: "constants.STANDARD_ATMOSPHERE_PA (it is in Pa)",
+    273.15: "constants.ZERO_CELSIUS_K",
+    9.80665: "constants.STANDARD_GRAVITY_M_S2",
+    86400.0: "constants.SECONDS_PER_DAY_S",
+}
+
+#: Exempt: the owner itself and the data tables (coldroom/data/).
+_LITERAL_EXEMPT = ("constants.py", "data/")
+
+#: Modules that may still write one of the literals, each with the reason; the test fails on
+#: any other module and on a listed one that no longer needs it (the list only shrinks).
+LITERAL_ALLOWED: dict[str, str] = {}
+
+
+def _number(node: ast.AST) -> float | None:
+    """The value of a number written out of literals only (``273.15``, ``24 * 3600``), else None."""
+    if isinstance(node, ast.Constant) and type(node.value) in (int, float):
+        return float(node.value)
+    if isinstance(node, ast.UnaryOp) and isinstance(node.op, (ast.USub, ast.UAdd)):
+        return _number(node.operand)  # the sign does not make it another constant
+    if isinstance(node, ast.BinOp) and isinstance(node.op, ast.Mult):
+        left, right = _number(node.left), _number(node.right)
+        return None if left is None or right is None else left * right
+    return None
+
+
+def _constant_literals(source: str) -> list[tuple[int, float]]:
+    """(line, value) of every physical-constant literal written as a number in *source*."""
+    found = set()
+    for node in ast.walk(ast.parse(source)):
+        value = _number(node)
+        if value is not None and any(math.isclose(value, c, rel_tol=1e-12) for c in CONSTANT_LITERALS):
+            found.add((node.lineno, value))
+    return sorted(found)
+
+
+def test_the_constant_scanner_catches_a_planted_literal() -> None:
+    planted = (
+        '"""0 °C is 273.15 K; 101325 Pa."""\n'  # docstring: text, exempt
+        "t_k = t + 273.15\n"
+        "day = 24 * 3600\n"
+        "p = 101_325\n"
+        "g = -9.80665  # 9.80665 in a comment is not seen\n"
+        "hour = 3600.0\n"
+    )
+    assert [line for line, _ in _constant_literals(planted)] == [2, 3, 4, 5]
+
+
+def test_physical_constants_are_written_only_in_the_constants_module() -> None:
+    found = {}
+    for path in sorted(PACKAGE.rglob("*.py")):
+        name = path.relative_to(PACKAGE).as_posix()
+        if name == _LITERAL_EXEMPT[0] or name.startswith(_LITERAL_EXEMPT[1]):
+            continue
+        hits = _constant_literals(path.read_text(encoding="utf-8"))
+        if hits:
+            found[name] = hits
+    unexpected = {
+        name: [f"line {line}: {value:g} -> {CONSTANT_LITERALS[min(CONSTANT_LITERALS, key=lambda c: abs(c - value))]}" for line, value in hits]
+        for name, hits in found.items()
+        if name not in LITERAL_ALLOWED
+    }
+    assert not unexpected, unexpected
+    gone = sorted(set(LITERAL_ALLOWED) - set(found))
+    assert not gone, f"remove these from LITERAL_ALLOWED, they are clean: {gone}"
