@@ -752,17 +752,21 @@ def select_command(
             raise NothingFitsError(format_terms(exc.args[0], model.project.units)) from None
         console = console_for(pdf_target, json_target)
         say(selection_report(selections, model.project.units), file=console)
-        if pdf_target is not None:
-            from coldroom.output.pdf.sheet import render_sheet  # reportlab, lazily
+        job = None
+        if pdf_target is not None or json_target is not None:  # the sized job, equipped as chosen
+            from coldroom.design.job import selected_result
             from coldroom.design.sizing import size_project
 
-            result = size_project(model, project, opened.content)
-            write_output(pdf_target, render_sheet(result, model, selection=selections), force=force,
+            job = selected_result(model, size_project(model, project, opened.content), selections)
+        if pdf_target is not None:
+            from coldroom.output.pdf.sheet import render_sheet  # reportlab, lazily
+
+            write_output(pdf_target, render_sheet(job, model, selection=selections), force=force,
                          project=project, console=console)
         from coldroom.output.json_contract import select_body
 
-        emit_json("select", lambda: select_body(selections, catalogue, equipment.currency), json_target, force=force,
-                  project=project, model=model, content=opened.content, console=console)
+        emit_json("select", lambda: select_body(selections, catalogue, equipment.currency, job), json_target,
+                  force=force, project=project, model=model, content=opened.content, console=console)
 
     guarded(run)
 

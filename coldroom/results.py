@@ -436,6 +436,9 @@ class SystemResult:
     pipework : coldroom.design.pipework.Pipework or None
         Lines, charge estimate and charge limits (``piping``, ``charge``,
         ``charge_limits`` in JSON).
+    equipment_basis : str
+        Which equipment the electrical figures come from: ``"design"`` (size),
+        ``"selected"`` (select) or ``"existing"`` (check) (:mod:`coldroom.design.job`).
     """
 
     name: str
@@ -451,6 +454,7 @@ class SystemResult:
     electrical: SystemElectrical
     warnings: tuple[str, ...] = ()
     pipework: Any = None
+    equipment_basis: str = "design"
 
     @property
     def rooms(self) -> tuple[str, ...]:
@@ -467,6 +471,7 @@ class SystemResult:
         return {
             "name": self.name,
             "rooms": list(self.rooms),
+            "equipment_basis": self.equipment_basis,
             "refrigerant": self.refrigerant,
             "suction_temperature_c": self.suction_temperature,
             "condensing_temperature_c": self.condensing_temperature,
@@ -478,7 +483,12 @@ class SystemResult:
             "cycle": self.cycle.to_json(),
             "members": [member.to_json() for member in self.members],
             "compressor_input_power_w": e.compressor_input_power,
-            "compressor_input_power_basis": "overall isentropic efficiency on the electrical input (motor included)",
+            "compressor_input_power_basis": (
+                "overall isentropic efficiency on the electrical input (motor included)"
+                if self.equipment_basis == "design"
+                else f"the {'chosen' if self.equipment_basis == 'selected' else 'existing'} unit's electrical input "
+                "at its balance point"
+            ),
             "evaporator_fan_power_w": e.evaporator_fan_power,
             "condenser_fan_power_w": e.condenser_fan_power,
             "condenser_fan_power_basis": e.condenser_fan_basis,

@@ -310,7 +310,7 @@ def system_year(
 ) -> tuple[SystemYear, "Any", tuple[str, ...]]:
     """One system over the year: (SystemYear, its SystemDesign, warnings)."""
     from coldroom.design import systems as _systems
-    from coldroom.design.sizing import _member_draw, design_system, heat_rejection_temperatures
+    from coldroom.design.sizing import member_draw, design_system, heat_rejection_temperatures
 
     d = design_system(model, name, indices, diversity)
     r = d.settings[0]
@@ -402,7 +402,7 @@ def system_year(
         tables[transcritical] = ([p[0] for p in pairs], [p[1][0] for p in pairs], [p[1][1] for p in pairs])
     # 3. energy per bin
     fan_c = _systems.condenser_fan_power(cyc.condenser_duty, r.condenser_fan_power)[0]
-    draws = [_member_draw(model.rooms[i], x) for i, x in zip(indices, d.loads)]
+    draws = [member_draw(model.rooms[i], x) for i, x in zip(indices, d.loads)]
     evap_fans = sum(m.evaporator_fan_power * m.evaporator_fan_time for m in draws) / SECONDS_PER_DAY_S  # W average
     heaters = sum(m.heater_energy for m in draws) / SECONDS_PER_DAY_S
     defrost = sum(m.defrost_heater_power * m.defrost_time for m in draws) / SECONDS_PER_DAY_S

@@ -113,6 +113,8 @@ class CoolerChoice:
         Why this count (duty, throw).
     rejected : dict
         Reason → number of models rejected.
+    defrost : str
+        The coil's defrost (``off_cycle``, ``electric``, ``hot_gas``).
     """
 
     room: str
@@ -131,6 +133,7 @@ class CoolerChoice:
     room_temperature: float
     rule: str
     rejected: dict = field(default_factory=dict)
+    defrost: str = "off_cycle"
 
     @property
     def price(self) -> float:
@@ -343,6 +346,7 @@ def choose_coolers(
         room_temperature=room_temperature,
         rule=rule,
         rejected=rejected,
+        defrost=entry.defrost,
     )
 
 

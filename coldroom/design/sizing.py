@@ -211,7 +211,7 @@ def _basis(model: "ProjectModel", room: "Room", loads: "RoomLoads", temps: Desig
     return tuple(rows)
 
 
-def _member_draw(room: "Room", loads: "RoomLoads") -> "MemberDraw":
+def member_draw(room: "Room", loads: "RoomLoads") -> "MemberDraw":
     """The electrical consumers of one room: evaporator fans, heaters, electric defrost."""
     from coldroom.design.systems import MemberDraw
 
@@ -508,7 +508,7 @@ def size_system(
         cyc.compressor_power,
         capacity,
         systems.condenser_fan_power(cyc.condenser_duty, r.condenser_fan_power),
-        [_member_draw(room, x) for room, x in zip(rooms, loads)],
+        [member_draw(room, x) for room, x in zip(rooms, loads)],
     )
     prefix = f"{rooms[0].name}: " if len(rooms) == 1 else f"system {name}: "
     warnings = tuple(

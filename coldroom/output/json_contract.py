@@ -100,14 +100,20 @@ def check_body(checks: Sequence[tuple[Any, Any]], limits: Sequence[Any]) -> dict
     }
 
 
-def select_body(selections: Sequence[Any], catalogue: str, currency: str) -> dict[str, Any]:
-    """``select``: the equipment chosen per system and the price of it all (in *currency*)."""
-    return {
+def select_body(selections: Sequence[Any], catalogue: str, currency: str, job: Any = None) -> dict[str, Any]:
+    """``select``: the equipment chosen per system and the price of it all (in *currency*); with *job*
+    (the sized :class:`coldroom.results.ProjectResult` as equipped by :func:`coldroom.design.job.selected_result`)
+    also its ``rooms`` and ``systems``, the same keys as ``size`` writes (``equipment_basis: "selected"``)."""
+    body = {
         "catalogue": catalogue,
         "currency": currency,
         "selection": [s.to_json() for s in selections],
         "total_price": sum(s.total_price for s in selections),
     }
+    if job is not None:
+        sized = job.to_json()
+        body["rooms"], body["systems"] = sized["rooms"], sized["systems"]
+    return body
 
 
 def quote_body(quote: Any, catalogue: str) -> dict[str, Any]:

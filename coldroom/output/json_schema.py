@@ -325,6 +325,7 @@ class ChargeLimitBasis(TypedDict):
 class System(TypedDict):
     name: str
     rooms: list[str]
+    equipment_basis: Literal["design", "selected", "existing"]
     refrigerant: str
     suction_temperature_c: float
     condensing_temperature_c: Optional[float]
@@ -582,6 +583,8 @@ class SelectOutput(Envelope):
     currency: str
     selection: list[SystemSelection]
     total_price: float
+    rooms: NotRequired[list[SizedRoom]]
+    systems: NotRequired[list[System]]
 
 
 class CompareOutput(Envelope):

@@ -47,6 +47,14 @@ def test_select_json_contract(tmp_path: Path) -> None:
         assert set(alternative["condensing_unit"]["balance"]) == set(unit["balance"])
     assert entry["rejected"]["wrong_refrigerant"] == 4
     assert unit["balance"]["capacity_w"] >= entry["required_capacity_w"]
+    # the job as chosen (issue 24): the same rooms[] and systems[] as size, equipped by the selection
+    (system,) = data["systems"]
+    assert [room["name"] for room in data["rooms"]] == ["Cooler", "Freezer"]
+    assert system["equipment_basis"] == "selected"
+    assert system["compressor_input_power_w"] == unit["balance"]["power_w"]
+    assert system["design_capacity_w"] == entry["required_capacity_w"]
+    watts = system["compressor_input_power_w"]
+    assert f"{watts / 1000:.2f} kW" in pages[0]  # page 1 shows the chosen unit's input
 
 
 def test_nothing_fits_exits_1_with_the_reasons_and_the_duty() -> None:

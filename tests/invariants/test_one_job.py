@@ -35,14 +35,23 @@ def _size(path: Path) -> dict:
 
 
 @pytest.fixture(scope="module", params=SELECTABLE, ids=lambda p: p.stem)
-def job(request):
-    """(model, size JSON, selections) of one job, computed once for the module."""
+def sized_and_selected(request):
+    """(model, size result, selections) of one job, computed once for the module."""
     from coldroom.design.selection import select_project
+    from coldroom.design.sizing import size_project
     from coldroom.inputs.catalogue import load_catalogue
 
     path = request.param
     model = _open(path)
-    return model, _size(path), select_project(model, load_catalogue(str(CATALOGUE)), max_ambient=False)
+    result = size_project(model, str(path), path.read_bytes())
+    return model, result, select_project(model, load_catalogue(str(CATALOGUE)), max_ambient=False)
+
+
+@pytest.fixture(scope="module")
+def job(sized_and_selected):
+    """(model, size JSON, selections)."""
+    model, result, selections = sized_and_selected
+    return model, result.to_json(), selections
 
 
 def test_select_aims_at_the_design_capacity_size_prints(job) -> None:
@@ -149,3 +158,33 @@ def test_check_is_the_sized_job() -> None:
         assert check.holds == sized["holds"]
         assert check.capacity_at_balance == pytest.approx(sized["capacity_at_balance_w"], rel=1e-6)
         assert check.power_at_balance == pytest.approx(sized["power_at_balance_w"], rel=1e-6)
+
+
+def test_select_writes_the_job_as_chosen(sized_and_selected) -> None:
+    """select's systems[]: the chosen unit's input at its balance point, the catalogue coils' fans and
+    defrost heaters; connected load and kWh/day follow from them; the rooms stay as sized."""
+    from coldroom.design.job import selected_result
+
+    model, result, selections = sized_and_selected
+    sized = result.to_json()
+    chosen = selected_result(model, result, selections).to_json()
+    assert chosen["rooms"] == sized["rooms"]
+    by_room = {r.name: r for r in model.rooms}
+    for designed, system, selection in zip(sized["systems"], chosen["systems"], selections):
+        assert designed["equipment_basis"] == "design" and system["equipment_basis"] == "selected"
+        assert system["design_capacity_w"] == designed["design_capacity_w"]
+        assert system["charge"] == designed["charge"]
+        check = selection.choice.check
+        assert system["compressor_input_power_w"] == check.power_at_balance
+        assert system["evaporator_fan_power_w"] == pytest.approx(sum(c.count * c.fan_power for c in selection.coolers))
+        electric = [
+            c for c in selection.coolers if c.defrost == "electric" and by_room[c.room].defrost.type == "electric"
+        ]
+        assert system["defrost_heater_power_w"] == pytest.approx(sum(c.count * c.defrost_heater_power for c in electric))
+        assert system["connected_load_w"] == max(system["refrigerating_load_w"], system["defrost_load_w"])
+        heat = sum(r.loads.daily_energy for r in result.rooms if r.loads.name in system["rooms"])
+        hours = heat / check.capacity_at_balance / 3600.0
+        assert system["compressor_daily_run_time_h"] == pytest.approx(hours, rel=1e-12)
+        assert system["daily_electricity_by_use_kwh"]["compressor"] == pytest.approx(
+            check.power_at_balance * hours / 1000.0, rel=1e-12
+        )

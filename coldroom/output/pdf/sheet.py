@@ -166,7 +166,10 @@ def systems_overview_section(ctx: SheetContext) -> list:
         heading("The job: systems", H3),
         note(
             "One compressor or condensing unit per system. Electrical input is the compressor's, at the design "
-            "point (overall isentropic efficiency, motor included).",
+            "point (overall isentropic efficiency, motor included)."
+            if all(x.equipment_basis == "design" for x in systems)
+            else "One compressor or condensing unit per system. Electrical input is the chosen condensing unit's "
+            "at its balance point with the chosen coils; the coils' fans and defrost heaters are the catalogue's.",
             TINY,
         ),
         Spacer(1, 2),
@@ -192,7 +195,8 @@ def summary_section(ctx: SheetContext) -> list:
                 capacity(room.loads.design_capacity, s),
                 str(cyc.get("refrigerant", system.refrigerant if system is not None else "–")),
                 f"{temperature(room.evaporating_temperature, s)} / {temperature(room.condensing_temperature, s)}",
-                capacity(cyc["compressor_power_w"], s) if cyc else shared,
+                (capacity(cyc["compressor_power_w"], s) if system is None or system.equipment_basis == "design"
+                 else capacity(system.electrical.compressor_input_power, s)) if cyc else shared,
                 capacity(cyc["condenser_duty_w"], s) if cyc else shared,
             ]
         )
@@ -244,7 +248,8 @@ def system_details_section(ctx: SheetContext) -> list:
         col = 0.64 * w / len(chunk)
         e = [x.electrical for x in chunk]
         rows = [
-            ["Electrical", *(x.name for x in chunk)],
+            ["Electrical" + ("" if all(x.equipment_basis == "design" for x in chunk) else " (selected equipment)"),
+             *(x.name for x in chunk)],
             ["Compressor electrical input", *(electrical_label(x.compressor_input_power) for x in e)],
             ["Evaporator fans", *(electrical_label(x.evaporator_fan_power) for x in e)],
             ["Condenser fans", *(electrical_label(x.condenser_fan_power) + ("" if x.condenser_fan_basis.startswith("given")
@@ -253,7 +258,9 @@ def system_details_section(ctx: SheetContext) -> list:
             ["Electric defrost heaters", *(electrical_label(x.defrost_heater_power) for x in e)],
             ["Draw while refrigerating (compressor, fans, heaters)", *(electrical_label(x.refrigerating_load) for x in e)],
             ["Draw while a coil defrosts (largest case)", *(electrical_label(x.defrost_load) for x in e)],
-            ["Compressor run time at design capacity", *(f"{x.compressor_run_time / 3600:.1f} h/day" for x in e)],
+            ["Compressor run time at " + ("design capacity" if all(x.equipment_basis == "design" for x in chunk)
+                                          else "the balance point"),
+             *(f"{x.compressor_run_time / 3600:.1f} h/day" for x in e)],
             ["Electricity per day", *(f"{x.daily_energy / 3.6e6:.1f} kWh" for x in e)],
             ["Connected load (the larger draw)", *(f"{electrical_label(x.connected_load)} ({x.connected_load_case})" for x in e)],
         ]
