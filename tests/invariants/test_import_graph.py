@@ -209,10 +209,11 @@ def test_only_the_glue_reads_the_project_model() -> None:
 
 
 def test_the_orchestrator_is_imported_only_from_above() -> None:
-    """Only the CLI, the option comparison and the equipment selection (which work on whole sizings) import sizing;
-    and the JSON envelope, for the sheet's date and the versions."""
+    """Only the CLI, the option comparison, the equipment selection and the job as equipped (which work on whole
+    sizings) import sizing; and the JSON envelope, for the sheet's date and the versions."""
     importers = sorted(m for m, deps in import_graph().items() if "coldroom.design.sizing" in deps)
-    allowed = {"coldroom.cli", "coldroom.design.annual", "coldroom.design.selection", "coldroom.output.json_contract"}
+    allowed = {"coldroom.cli", "coldroom.design.annual", "coldroom.design.selection", "coldroom.design.job",
+               "coldroom.output.json_contract"}
     assert set(importers) <= allowed, importers
 
 
