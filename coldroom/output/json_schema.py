@@ -542,6 +542,7 @@ class ElectricalSchedule(TypedDict):
     notes: list[str]
     minimum_circuit_ampacity_a: NotRequired[float]
     maximum_overcurrent_protection_a: NotRequired[float]
+    overcurrent_basis: NotRequired[str]
 
 
 class Quote(TypedDict):

@@ -183,3 +183,23 @@ def test_proposal_for_the_customer(tmp_path: Path) -> None:
     done = invoke("quote", str(DEMO), "--catalogue", str(catalogue), "--out", str(draft))
     assert done.returncode == 0, done.stderr
     assert "DRAFT" in PdfReader(draft).pages[0].extract_text()
+
+
+def test_nec_quote_matches_the_result_schema(tmp_path: Path) -> None:
+    """With electrical_code: NEC the schedule adds MCA and MOP per unit and per system; the document
+    still validates against `coldroom schema --result quote`."""
+    import jsonschema
+
+    project = tmp_path / "nec.yaml"
+    project.write_text(DEMO.read_text(encoding="utf-8").replace("electrical_code: IEC", "electrical_code: NEC"),
+                       encoding="utf-8")
+    done = invoke("quote", str(project), "--catalogue", str(CATALOGUE), "--json", "-")
+    assert done.returncode == 0, done.stderr
+    document = json.loads(done.stdout)
+    schema = json.loads(invoke("schema", "--result", "quote").stdout)
+    jsonschema.validate(document, schema)
+    (system,) = document["quote"]["electrical"]
+    assert system["maximum_overcurrent_protection_a"] in (15, 20, 25, 30, 35, 40, 45, 50, 60)
+    for item in system["items"]:
+        assert item["maximum_overcurrent_protection_a"] >= 15
+        assert item["minimum_circuit_ampacity_a"] >= item["running_current_a"]
