@@ -20,7 +20,7 @@ scale       `size` 50 rooms on 10 refrigerants / one room, warm                 
 memory      the same 50 rooms' peak resident memory [MiB] (absolute)               ≤ 150
 compare     `compare` 10 options over an hourly EPW year / one-room `size`         ≤ 1.0
 select      `select` over 1,000 catalogue rows of each kind / one-room `size`      ≤ 1.15
-quote       `quote` on the combo demo / `select` on the same                       ≤ 1.15
+quote       `quote` on the combo quote demo / `select` on the same (JSON each)     ≤ 1.15
 ==========  =====================================================================  ======
 
 The one room is the produce-cooler demo (R-448A, the costliest chart data); its `size`
@@ -214,10 +214,11 @@ def main() -> None:
                 if not has_command("quote"):
                     print("quote   not measured: this coldroom has no `quote` command")
                 else:
-                    combo = DEMOS / "combo_cooler_freezer.yaml"
-                    demo_catalogue = DEMOS / "catalogue" / "demo_catalogue.yaml"
-                    quote = coldroom + ["quote", str(combo), "--catalogue", str(demo_catalogue)]
-                    select_combo = coldroom + ["select", str(combo), "--catalogue", str(demo_catalogue), "--json",
+                    combo = DEMOS / "combo_quote.yaml"
+                    prices = DEMOS / "catalogue" / "quote_catalogue.yaml"
+                    quote = coldroom + ["quote", str(combo), "--catalogue", str(prices), "--json",
+                                        str(folder / "quote.json"), "--force"]
+                    select_combo = coldroom + ["select", str(combo), "--catalogue", str(prices), "--json",
                                                str(folder / "combo.json"), "--force"]
                     report("quote   quote combo demo / select combo demo",
                            paired(lambda: (quote, warm_cache), lambda: (select_combo, warm_cache), args.repeat),
