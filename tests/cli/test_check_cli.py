@@ -20,6 +20,17 @@ def run(*args: str) -> subprocess.CompletedProcess[str]:
     return subprocess.run([sys.executable, "-m", "coldroom", *args], capture_output=True, text=True, timeout=120)
 
 
+def invoke(*args: str) -> subprocess.CompletedProcess[str]:
+    """The command in-process (typer's CliRunner), in the shape of :func:`run`: the one process-level
+    run of this file is its smoke test; the rest need no interpreter and CoolProp start of their own."""
+    from typer.testing import CliRunner
+
+    from coldroom.cli import app
+
+    r = CliRunner().invoke(app, list(args))
+    return subprocess.CompletedProcess(list(args), r.exit_code, r.stdout, r.stderr)
+
+
 def test_check_demo_prints_the_verdict() -> None:
     # the process-level run of `coldroom check` (interpreter start, CoolProp import ~2 s, the
     # balance-point and highest-ambient searches): about 3-5 s, the one slow test of this file
@@ -54,7 +65,7 @@ def test_check_json_to_stdout() -> None:
 
 
 def test_room_without_unit_is_listed() -> None:
-    result = run("check", str(COOLER))
+    result = invoke("check", str(COOLER))
     assert result.returncode == 0, result.stderr
     assert "no existing unit given" in result.stdout
 
@@ -63,12 +74,12 @@ def test_json_file_is_not_overwritten_without_force(tmp_path: Path) -> None:
     """Refused before any computation: the existing file is checked first (no balance search runs)."""
     target = tmp_path / "check.json"
     target.write_text("precious\n", encoding="utf-8")
-    refused = run("check", str(DEMO), "--json", str(target))
+    refused = invoke("check", str(DEMO), "--json", str(target))
     assert refused.returncode == 73
     assert "--force" in refused.stderr and len(refused.stderr.strip().splitlines()) == 1
     assert refused.stdout == ""  # nothing was computed or printed
     assert target.read_text(encoding="utf-8") == "precious\n"
-    forced = run("check", str(COOLER), "--json", str(target), "--force")  # no existing unit: quick
+    forced = invoke("check", str(COOLER), "--json", str(target), "--force")  # no existing unit: quick
     assert forced.returncode == 0, forced.stderr
     assert json.loads(target.read_text(encoding="utf-8"))["rooms"][0]["existing_unit"] is None
 
@@ -76,7 +87,7 @@ def test_json_file_is_not_overwritten_without_force(tmp_path: Path) -> None:
 def test_json_over_the_input_is_refused(tmp_path: Path) -> None:
     copy = tmp_path / "p.yaml"
     copy.write_text(DEMO.read_text(encoding="utf-8"), encoding="utf-8")
-    result = run("check", str(copy), "--json", str(copy), "--force")
+    result = invoke("check", str(copy), "--json", str(copy), "--force")
     assert result.returncode == 73
     assert copy.read_text(encoding="utf-8") == DEMO.read_text(encoding="utf-8")
 
@@ -92,7 +103,7 @@ def test_unit_with_two_compressor_descriptions_is_invalid(tmp_path: Path) -> Non
     )
     path = tmp_path / "bad.yaml"
     path.write_text(bad, encoding="utf-8")
-    result = run("check", str(path))
+    result = invoke("check", str(path))
     assert result.returncode == 65
     line = result.stderr.strip()
     assert len(line.splitlines()) == 1
@@ -105,7 +116,7 @@ def test_unknown_unit_refrigerant_names_close_names(tmp_path: Path) -> None:
     assert old in text
     path = tmp_path / "bad.yaml"
     path.write_text(text.replace(old, "      refrigerant: R-448\n      rated_point:"), encoding="utf-8")
-    result = run("check", str(path))
+    result = invoke("check", str(path))
     assert result.returncode == 65
     assert "R-448A" in result.stderr
 
@@ -120,7 +131,7 @@ def test_polynomial_with_wrong_number_of_coefficients_is_invalid(tmp_path: Path)
     )
     path = tmp_path / "bad.yaml"
     path.write_text(text[:start] + poly + text[end:], encoding="utf-8")
-    result = run("check", str(path))
+    result = invoke("check", str(path))
     assert result.returncode == 65
     assert "existing_unit.polynomial.capacity" in result.stderr
 

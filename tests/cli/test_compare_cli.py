@@ -35,13 +35,13 @@ def invoke(*args: str) -> subprocess.CompletedProcess[str]:
 
 @pytest.fixture(scope="module")
 def demo(tmp_path_factory: pytest.TempPathFactory) -> dict:
-    # the process-level runs of `compare` (every option over a year of hourly bins) and `size`,
-    # shared by the tests below: 5-8 s in all, once per module
+    # the process-level run of `compare` (every option over a year of hourly bins: the command's one
+    # smoke test) and `size` in process, shared by the tests below, once per module
     folder = tmp_path_factory.mktemp("compare")
     pdf = folder / "compare.pdf"
     done = run("compare", str(DEMO), "--json", "-", "--out", str(pdf))
     assert done.returncode == 0, done.stderr
-    sized = run("size", str(DEMO), "--out", str(folder / "sheet.pdf"), "--json", "-")
+    sized = invoke("size", str(DEMO), "--out", str(folder / "sheet.pdf"), "--json", "-")
     assert sized.returncode == 0, sized.stderr
     return {"json": json.loads(done.stdout), "terminal": done.stderr, "pdf": pdf, "size": json.loads(sized.stdout)}
 
@@ -86,7 +86,7 @@ def test_terminal_and_pdf(demo: dict) -> None:
 
 
 def test_no_ambient_is_a_located_error(tmp_path: Path) -> None:
-    done = run("compare", str(COOLER))
+    done = invoke("compare", str(COOLER))
     assert done.returncode == 65
     assert done.stderr.startswith(f"{COOLER}:") and "design.weather" in done.stderr
     assert len(done.stderr.strip().splitlines()) == 1

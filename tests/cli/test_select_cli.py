@@ -15,6 +15,17 @@ def run(*args: str) -> subprocess.CompletedProcess[str]:
     return subprocess.run([sys.executable, "-m", "coldroom", *args], capture_output=True, text=True, timeout=180)
 
 
+def invoke(*args: str) -> subprocess.CompletedProcess[str]:
+    """The command in-process (typer's CliRunner), in the shape of :func:`run`: the one process-level
+    run of this file is its smoke test; the rest need no interpreter and CoolProp start of their own."""
+    from typer.testing import CliRunner
+
+    from coldroom.cli import app
+
+    r = CliRunner().invoke(app, list(args))
+    return subprocess.CompletedProcess(list(args), r.exit_code, r.stdout, r.stderr)
+
+
 def test_select_json_contract(tmp_path: Path) -> None:
     """End to end in a subprocess (CoolProp start, selection, `size` and the PDF): slower than 3 s on
     purpose -- one run checks the JSON contract, the terminal table and the sheet's page 1 together."""
@@ -59,7 +70,7 @@ def test_select_json_contract(tmp_path: Path) -> None:
 
 def test_nothing_fits_exits_1_with_the_reasons_and_the_duty() -> None:
     # the heated-slab freezer runs on R-449A; the demo catalogue has R-448A and R-290 units only
-    result = run("select", str(REPO / "project_files" / "freezer_heated_slab.yaml"), "--catalogue", str(CATALOGUE))
+    result = invoke("select", str(REPO / "project_files" / "freezer_heated_slab.yaml"), "--catalogue", str(CATALOGUE))
     assert result.returncode == 1
     assert result.stderr.count("\n") == 1
     assert "15 wrong refrigerant" in result.stderr
@@ -67,7 +78,7 @@ def test_nothing_fits_exits_1_with_the_reasons_and_the_duty() -> None:
 
 
 def test_catalogue_schema() -> None:
-    result = run("schema", "--catalogue")
+    result = invoke("schema", "--catalogue")
     assert result.returncode == 0
     schema = json.loads(result.stdout)
     assert schema["title"] == "coldroom equipment catalogue"
@@ -75,7 +86,7 @@ def test_catalogue_schema() -> None:
 
 
 def test_select_refuses_to_write_over_the_catalogue(tmp_path: Path) -> None:
-    result = run("select", str(REPO / "project_files" / "produce_cooler.yaml"), "--catalogue", str(CATALOGUE),
+    result = invoke("select", str(REPO / "project_files" / "produce_cooler.yaml"), "--catalogue", str(CATALOGUE),
                  "--json", str(CATALOGUE))
     assert result.returncode == 73 and "refusing to write over the input" in result.stderr
 
@@ -89,6 +100,6 @@ def test_nothing_fits_speaks_the_projects_units(tmp_path: Path) -> None:
         " throw: 20 m, fan_power: 90 W, defrost: off_cycle, fin_spacing: 4 mm, price: 400}\n",
         encoding="utf-8",
     )
-    result = run("select", str(REPO / "project_files" / "meat_cooler_ip.yaml"), "--catalogue", str(catalogue))
+    result = invoke("select", str(REPO / "project_files" / "meat_cooler_ip.yaml"), "--catalogue", str(catalogue))
     assert result.returncode == 1
     assert "1 wrong refrigerant" in result.stderr and "Btu/h" in result.stderr and "°F" in result.stderr
