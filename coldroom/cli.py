@@ -548,6 +548,8 @@ def cycle_command(
     """
 
     def run() -> None:
+        import os
+
         from coldroom.data.refrigerants import lookup
         from coldroom.errors import CalculationError, UsageError, command_line_values
         from coldroom.units import parse_quantity
@@ -594,11 +596,16 @@ def cycle_command(
         if system not in ("SI", "IP"):
             raise UsageError(f"--units must be SI or IP, not {units!r}")
         fmt = None
-        if out is not None:
-            fmt = out.rsplit(".", 1)[-1].lower() if "." in out else ""
-            if fmt not in ("pdf", "svg"):
-                raise UsageError(f"--out {out!r}: the name must end in .pdf or .svg")
         (out_target,) = check_outputs(("--out", out), force=force)
+        if out is not None:
+            fmt = out.rsplit(".", 1)[-1].lower() if "." in os.path.basename(out) else ""
+            if fmt not in ("pdf", "svg"):
+                if out_target is not None and out_target.kind in ("stdout", "device"):
+                    fmt = "pdf"  # standard output, /dev/null, a pipe: the page as PDF
+                else:
+                    raise UsageError(f"--out {out!r}: the name must end in .pdf or .svg")
+            if as_json and out_target is not None and out_target.kind == "stdout":
+                raise UsageError("--json and --out both go to standard output; send the page to a file")
 
         from coldroom.physics.cycle import check_cycle_inputs, solve_cycle
         from coldroom.physics.refrigerant import get_fluid
@@ -655,8 +662,8 @@ def cycle_command(
             from coldroom.output.json_contract import document
 
             sys.stdout.write(json_text(document("cycle", result.to_json(), None)))
-        else:
-            print(cycle_table(result))
+        else:  # the table goes to stderr when the page itself goes to standard output
+            say(cycle_table(result), file=sys.stderr if out_target is not None and out_target.kind == "stdout" else None)
         if out_target is not None:
             from coldroom.output.pdf.cyclepage import render_cycle_page
             from coldroom.design.sizing import sheet_date, versions
@@ -730,6 +737,10 @@ def select_command(
     """Choose unit coolers and the cheapest condensing unit that holds, per system, from a catalogue."""
 
     def run() -> None:
+        from coldroom.errors import UsageError
+
+        if not catalogue.strip():
+            raise UsageError("--catalogue '': give the catalogue file (.yaml, .csv or .xlsx)")
         reading(catalogue)
         pdf_target, json_target = check_outputs(("--out", out), ("--json", json_out), force=force, project=project)
         from coldroom.inputs.catalogue import load_catalogue

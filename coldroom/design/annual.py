@@ -43,6 +43,7 @@ from __future__ import annotations
 
 import bisect
 import math
+import os
 from dataclasses import dataclass, field, replace
 from pathlib import Path
 from typing import TYPE_CHECKING, Any, Optional, Sequence
@@ -233,7 +234,7 @@ def ambient_bins(model: "ProjectModel", cache: Optional[dict] = None) -> tuple[t
         )
     path = weather_path(model)
     assert path is not None
-    key = str(path.resolve())
+    key = os.path.realpath(path)  # (a link loop is left to the reader, which names it)
     if cache is not None and key in cache:
         return cache[key]
     weather = read_epw(path)

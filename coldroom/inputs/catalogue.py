@@ -54,12 +54,13 @@ from __future__ import annotations
 
 import csv
 import io
+import os
 import re
-from dataclasses import dataclass, field
+from dataclasses import dataclass, field, replace
 from pathlib import Path
-from typing import Any, Literal, Optional, Sequence
+from typing import Annotated, Any, Literal, Optional, Sequence
 
-from pydantic import Field, ValidationError, model_validator
+from pydantic import BeforeValidator, Field, ValidationError, model_validator
 
 from coldroom.errors import ProjectFileError
 from coldroom.inputs.catalogue_items import (
@@ -75,7 +76,9 @@ from coldroom.inputs.catalogue_items import (
     TubeEntry,
 )
 from coldroom.inputs.projectfile import (
+    Name,
     Q,
+    Rating,
     CompressorPolynomial,
     CondenserRating,
     ExistingUnit,
@@ -85,6 +88,19 @@ from coldroom.inputs.projectfile import (
     UnitCoolerRating,
 )
 from coldroom.inputs.projectfile.parsing import _message, _refined_location
+
+
+def _model_text(value: Any) -> Any:
+    """A model named by a number (4050) is the text "4050": models are names, never quantities."""
+    if isinstance(value, int) and not isinstance(value, bool):
+        return str(value)
+    if isinstance(value, float) and value.is_integer() and abs(value) < 1e15:
+        return str(int(value))
+    return value
+
+
+#: A model name: text (a number is taken as its digits), no control characters (it is printed).
+ModelName = Annotated[Name, BeforeValidator(_model_text)]
 
 #: Keys only a unit cooler has / only a condensing unit has (to name the wrong kind).
 COOLER_KEYS = ("capacity", "air_on", "evaporating_temperature", "air_flow", "throw", "defrost",
@@ -109,7 +125,7 @@ class CondensingUnitEntry(Electrical):
     """A condensing unit of the catalogue: compressor rating as in an ``existing_unit`` block (or the
     whole unit's ``rating_table``), price, optional electrical data."""
 
-    model: str = Field(min_length=1, max_length=100)
+    model: ModelName = Field(min_length=1, max_length=100)
     refrigerant: str
     price: float = Field(ge=0.0, le=1e8)
     rated_point: Optional[RatedPoint] = None
@@ -164,11 +180,11 @@ class UnitCoolerEntry(Electrical):
     constant, the linear model the existing-unit check uses) [mem] [ref:en-328].
     """
 
-    model: str = Field(min_length=1, max_length=100)
+    model: ModelName = Field(min_length=1, max_length=100)
     refrigerant: Optional[str] = Field(
         default=None, description="The refrigerant the rating is for; when given, only systems on it use the coil."
     )
-    capacity: Q("power", gt=0.0, le=1e6)  # type: ignore[valid-type]
+    capacity: Rating  # at least 10 W: a vanishing rating only divides by almost zero downstream
     air_on: Q("temperature", ge=-40.0, le=30.0)  # type: ignore[valid-type]
     evaporating_temperature: Q("temperature", ge=-60.0, le=20.0)  # type: ignore[valid-type]
     air_flow: Q("volume_flow", gt=0.0, le=100.0)  # type: ignore[valid-type]
@@ -231,11 +247,14 @@ class _Table:
     filename: str
     marks: dict = field(default_factory=dict)  # path -> (row, column label, header name)
     rows: dict = field(default_factory=dict)  # (list name, index) -> (row, {header: column label})
+    files: dict = field(default_factory=dict)  # (list name, index) -> the sheet's label, when not filename
 
     def error(self, message: str, path: Sequence[object] = ()) -> ProjectFileError:
         path = tuple(path)
         if len(path) >= 2 and (path[0], path[1]) in self.rows:
             row, columns = self.rows[(path[0], path[1])]
+            if (path[0], path[1]) in self.files:
+                return replace(self, filename=self.files[(path[0], path[1])], files={}).error(message, path)
             for end in range(len(path), 1, -1):
                 header = ".".join(str(p) for p in path[2:end])
                 if header in columns:
@@ -249,7 +268,7 @@ class _Table:
                                     key=".".join(str(p) for p in path[2:]) or None)
         if path and path[0] in self.marks:
             row, column = self.marks[path[0]]
-            return ProjectFileError(message, file=self.filename, line=row, column=column, key=str(path[0]))
+            return ProjectFileError(message, file=self.files.get(path[0], self.filename), line=row, column=column, key=str(path[0]))
         return ProjectFileError(message, file=self.filename, line=1, column=1, key=None)
 
 
@@ -258,7 +277,15 @@ _TABLE_LISTS = ("evaporating_temperatures", "ambient_temperatures", "capacity", 
 _NUMBER = re.compile(r"[-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?")
 
 
+#: Columns that hold names, never numbers (a model called 4050 stays "4050").
+TEXT_COLUMNS = frozenset({"kind", "model", "currency", "refrigerant", "defrost"})
+
+
 def _cell(header: str, value: Any) -> Any:
+    if header in TEXT_COLUMNS:
+        if isinstance(value, str):
+            return value.strip() or None
+        return _model_text(value)
     if isinstance(value, str):
         value = value.strip()
         if value == "":
@@ -292,7 +319,9 @@ def _column_label(index: int, letters: bool) -> Any:
 REQUIRED_COLUMNS = ("kind", "model", "currency", "price")
 
 
-def catalogue_from_rows(rows: Sequence[Sequence[Any]], filename: str, *, letters: bool = False) -> tuple[dict, _Table]:
+def catalogue_from_rows(
+    rows: Sequence[Sequence[Any]], filename: str, *, letters: bool = False, lines: Optional[Sequence[int]] = None
+) -> tuple[dict, _Table]:
     """Catalogue data (as YAML would give it) and cell positions from a table's rows.
 
     Parameters
@@ -302,6 +331,8 @@ def catalogue_from_rows(rows: Sequence[Sequence[Any]], filename: str, *, letters
     filename : str
     letters : bool
         Name columns by letter (spreadsheets) instead of number (CSV).
+    lines : sequence of int, optional
+        The file line each row starts on (a quoted cell may span lines); default the row's number.
     """
     table = _Table(filename)
     if not rows:
@@ -320,9 +351,18 @@ def catalogue_from_rows(rows: Sequence[Sequence[Any]], filename: str, *, letters
                                    file=filename, line=1, column=_column_label(i, letters), key=name)
         if name:
             seen[name] = i
+    for i, name in enumerate(header):
+        outer = next((other for other in seen if name.startswith(other + ".")), None)
+        if outer is not None:  # `model` beside `model.note`: one cell cannot be a value and hold keys
+            raise ProjectFileError(
+                f"column {name!r} puts a key under {outer!r}, which is a column of its own (column "
+                f"{_column_label(seen[outer], letters)}): one of them is misnamed",
+                file=filename, line=1, column=_column_label(i, letters), key=name,
+            )
     data: dict[str, Any] = {group: [] for group in KINDS.values()}
     currency: Optional[tuple[str, int]] = None
-    for r, values in enumerate(rows[1:], start=2):
+    for index, values in enumerate(rows[1:], start=1):
+        r = lines[index] if lines is not None else index + 1
         for i, value in enumerate(values):
             if (i >= len(header) or not header[i]) and _cell("", value) is not None:
                 # an unquoted "1,490" splits into two cells: the extra one is never dropped in silence
@@ -369,19 +409,170 @@ def catalogue_from_rows(rows: Sequence[Sequence[Any]], filename: str, *, letters
     return data, table
 
 
-def _read_xlsx(raw: bytes, filename: str) -> list[list[Any]]:
+#: Largest catalogue file [byte]: a few thousand models in any of the formats.
+MAX_CATALOGUE_BYTES = 4 << 20
+#: Bounds on a spreadsheet [-]: rows and columns read per sheet, sheets, the workbook's parts
+#: unpacked [byte] (a small .xlsx can declare a million rows or unpack to gigabytes).
+XLSX_MAX_ROWS = 2 * 5000 + 1
+XLSX_MAX_COLUMNS = 200
+XLSX_MAX_SHEETS = 20
+XLSX_MAX_UNPACKED = 32 << 20
+XLSX_MAX_SHARED_STRINGS = 4 << 20
+
+
+def _open_quote_cell(line: str) -> int:
+    """1-based number of the cell of a CSV line in which a quote opens and never closes."""
+    cell, quoted = 1, False
+    for position, char in enumerate(line):
+        if char == '"':
+            quoted = not quoted
+        elif char == "," and not quoted:
+            cell += 1
+    return cell
+
+
+def _read_csv(raw: bytes, filename: str) -> tuple[list[list[str]], list[int]]:
+    """The rows of a CSV file and the file line each starts on."""
+    try:
+        text = raw.decode("utf-8-sig")
+    except UnicodeDecodeError:
+        raise ProjectFileError("not UTF-8 text (save the CSV as UTF-8)", file=filename) from None
+    reader = csv.reader(io.StringIO(text, newline=""), strict=True)
+    rows: list[list[str]] = []
+    lines: list[int] = []
+    start = 1
+    try:
+        for row in reader:
+            rows.append(row)
+            lines.append(start)
+            start = reader.line_num + 1
+    except csv.Error as exc:
+        reason = str(exc)
+        if "unexpected end of data" in reason:
+            first = text.splitlines()[start - 1] if start <= len(text.splitlines()) else ""
+            raise ProjectFileError("a quote opens in this cell and never closes (it runs to the end of the file)",
+                                   file=filename, line=start, column=_open_quote_cell(first)) from None
+        if "field larger than field limit" in reason:
+            raise ProjectFileError(f"a cell is longer than {csv.field_size_limit()} characters; a catalogue cell "
+                                   "holds a name, a number or a short list", file=filename, line=start) from None
+        raise ProjectFileError(f"not a readable CSV row ({reason}); quote a cell that holds commas or quotes",
+                               file=filename, line=start) from None
+    return rows, lines
+
+
+def _check_workbook(raw: bytes, filename: str) -> None:
+    """Refuse a workbook whose parts would unpack to far more than a catalogue needs (before openpyxl reads it)."""
+    import zipfile
+
+    try:
+        with zipfile.ZipFile(io.BytesIO(raw)) as archive:
+            parts = archive.infolist()
+    except (zipfile.BadZipFile, OSError, ValueError, EOFError):
+        raise ProjectFileError("not a readable .xlsx workbook (not a zip archive)", file=filename) from None
+    unpacked = sum(part.file_size for part in parts)
+    shared = sum(part.file_size for part in parts if part.filename.lower().endswith("sharedstrings.xml"))
+    if len(parts) > 1000 or unpacked > XLSX_MAX_UNPACKED or shared > XLSX_MAX_SHARED_STRINGS:
+        raise ProjectFileError(
+            f"the workbook unpacks to {unpacked} bytes in {len(parts)} parts ({shared} of text); a catalogue needs "
+            f"far less (limits {XLSX_MAX_UNPACKED} bytes, {XLSX_MAX_SHARED_STRINGS} of text): save only the "
+            "catalogue's sheets, or save it as CSV", file=filename,
+        )
+
+
+def _read_xlsx(raw: bytes, filename: str) -> list[tuple[str, list[list[Any]], list[int]]]:
+    """Every sheet of a workbook that holds anything: (label for messages, rows, row numbers)."""
+    _check_workbook(raw, filename)
     try:
         import openpyxl  # only when a spreadsheet is read
     except ImportError:  # pragma: no cover - openpyxl is a dependency
         raise ProjectFileError("reading .xlsx needs openpyxl (pip install openpyxl)", file=filename) from None
     try:
-        book = openpyxl.load_workbook(io.BytesIO(raw), read_only=True, data_only=True)
+        values = openpyxl.load_workbook(io.BytesIO(raw), read_only=True, data_only=True)
+        formulas = openpyxl.load_workbook(io.BytesIO(raw), read_only=True, data_only=False)
     except Exception as exc:  # openpyxl raises many kinds on a damaged file
         raise ProjectFileError(f"not a readable .xlsx workbook ({type(exc).__name__})", file=filename) from None
-    sheet = book.worksheets[0]
-    rows = [list(row) for row in sheet.iter_rows(values_only=True)]
-    book.close()
-    return rows
+    sheets = []
+    try:
+        if len(values.worksheets) > XLSX_MAX_SHEETS:
+            raise ProjectFileError(f"the workbook has {len(values.worksheets)} sheets; a catalogue has at most "
+                                   f"{XLSX_MAX_SHEETS}", file=filename)
+        for sheet, sheet_formulas in zip(values.worksheets, formulas.worksheets):
+            label = filename if len(values.worksheets) == 1 else f"{filename}[{sheet.title}]"
+            declared_rows, declared_columns = getattr(sheet, "max_row", None), getattr(sheet, "max_column", None)
+            if (declared_rows or 0) > XLSX_MAX_ROWS or (declared_columns or 0) > XLSX_MAX_COLUMNS:
+                raise ProjectFileError(
+                    f"the sheet declares {declared_rows} rows and {declared_columns} columns; a catalogue has at most "
+                    f"{XLSX_MAX_ROWS} rows and {XLSX_MAX_COLUMNS} columns: delete the empty rows and columns "
+                    "below and right of the table, or save it as CSV", file=label,
+                )
+            bound = {"max_row": XLSX_MAX_ROWS + 1, "max_col": XLSX_MAX_COLUMNS + 1, "values_only": True}
+            rows, numbers = [], []
+            for number, (row, written) in enumerate(
+                zip(sheet.iter_rows(**bound), sheet_formulas.iter_rows(**bound)), start=1
+            ):
+                if number > XLSX_MAX_ROWS or (len(row) > XLSX_MAX_COLUMNS and row[XLSX_MAX_COLUMNS] is not None):
+                    raise ProjectFileError(f"more than {XLSX_MAX_ROWS} rows or {XLSX_MAX_COLUMNS} columns; a "
+                                           "catalogue needs fewer", file=label, line=number)
+                for column, (value, formula) in enumerate(zip(row, written)):
+                    if value is None and isinstance(formula, str) and formula.startswith("="):
+                        raise ProjectFileError(
+                            f"the cell holds the formula {formula[:40]!r} with no saved value (the program that "
+                            "wrote the file did not calculate it): open and save it in a spreadsheet program, "
+                            "or type the value", file=label, line=number, column=_column_label(column, True),
+                        )
+                rows.append(list(row[:XLSX_MAX_COLUMNS]))
+                numbers.append(number)
+            while rows and all(v is None or (isinstance(v, str) and not v.strip()) for v in rows[-1]):
+                rows.pop()
+                numbers.pop()
+            if rows:
+                sheets.append((label, rows, numbers))
+    finally:
+        values.close()
+        formulas.close()
+    if not sheets:
+        raise ProjectFileError("the workbook is empty: the first row of a sheet must name the columns",
+                               file=filename, line=1)
+    return sheets
+
+
+#: Endings of spreadsheet and text formats coldroom does not read, with what to do instead.
+_OTHER_FORMATS = {
+    ".xls": "an Excel 97-2003 workbook (.xls)",
+    ".xlsm": "a macro-enabled workbook (.xlsm)",
+    ".ods": "an OpenDocument spreadsheet (.ods)",
+    ".numbers": "a Numbers spreadsheet",
+    ".txt": "a text file (.txt)",
+    ".tsv": "a tab-separated file (.tsv)",
+    ".json": "a JSON file",
+}
+ACCEPTED = "a catalogue is read from .yaml/.yml, .csv (UTF-8, comma-separated) or .xlsx, by the name's ending"
+
+
+def _merge_sheets(sheets: Sequence[tuple[str, list[list[Any]], list[int]]], filename: str) -> tuple[dict, _Table]:
+    """One catalogue from the tables of several sheets (one currency for all)."""
+    merged: dict[str, Any] = {group: [] for group in KINDS.values()}
+    combined = _Table(filename)
+    for label, rows, numbers in sheets:
+        data, table = catalogue_from_rows(rows, label, letters=True, lines=numbers)
+        if "currency" in merged and data["currency"] != merged["currency"]:
+            where = table.marks["currency"]
+            raise ProjectFileError(f"currency {data['currency']!r} differs from {merged['currency']!r} on another "
+                                   "sheet: one catalogue, one currency", file=label, line=where[0], column=where[1],
+                                   key="currency")
+        if "currency" not in merged:
+            merged["currency"] = data["currency"]
+            combined.marks["currency"] = table.marks["currency"]
+            combined.files["currency"] = label
+        for group in KINDS.values():
+            offset = len(merged[group])
+            for index in range(len(data[group])):
+                combined.rows[(group, offset + index)] = table.rows[(group, index)]
+                combined.files[(group, offset + index)] = label
+            merged[group].extend(data[group])
+    if len(sheets) == 1:
+        combined = replace(combined, filename=sheets[0][0], files={})
+    return merged, combined
 
 
 def parse_catalogue(raw: bytes, filename: str) -> Catalogue:
@@ -393,21 +584,19 @@ def parse_catalogue(raw: bytes, filename: str) -> Catalogue:
         The first problem, located (exit code 65).
     """
     suffix = Path(filename).suffix.lower()
-    if suffix in (".csv", ".xlsx"):
-        if suffix == ".csv":
-            try:
-                text = raw.decode("utf-8-sig")
-            except UnicodeDecodeError:
-                raise ProjectFileError("not UTF-8 text (save the CSV as UTF-8)", file=filename) from None
-            rows = list(csv.reader(io.StringIO(text)))
-        else:
-            rows = _read_xlsx(raw, filename)
-        data, located = catalogue_from_rows(rows, filename, letters=suffix == ".xlsx")
-    else:
+    if suffix == ".csv":
+        rows, lines = _read_csv(raw, filename)
+        data, located = catalogue_from_rows(rows, filename, lines=lines)
+    elif suffix == ".xlsx":
+        data, located = _merge_sheets(_read_xlsx(raw, filename), filename)
+    elif suffix in (".yaml", ".yml"):
         from coldroom.inputs.safeyaml import load_yaml
 
-        loaded = load_yaml(raw, filename=filename)
+        loaded = load_yaml(raw, filename=filename, max_bytes=MAX_CATALOGUE_BYTES)
         data, located = loaded.data, loaded
+    else:
+        what = _OTHER_FORMATS.get(suffix, f"a file ending in {suffix!r}" if suffix else "a file with no ending")
+        raise ProjectFileError(f"{what} is not read: {ACCEPTED}; save or rename it as one of them", file=filename)
     try:
         catalogue = Catalogue.model_validate(data, context={"system": "SI"})
     except ValidationError as exc:
@@ -441,8 +630,10 @@ def load_catalogue(path: str | Path) -> Catalogue:
     """Read and validate the catalogue file at *path* (``.yaml``/``.yml``, ``.csv`` or ``.xlsx``)."""
     from coldroom.inputs.safeyaml import read_source
 
-    name = str(Path(path))
-    return parse_catalogue(read_source(name), name)
+    name = os.fspath(path)
+    raw = read_source(name, max_bytes=MAX_CATALOGUE_BYTES, what="catalogue",
+                      typical="a catalogue of a few thousand models is well under that")
+    return parse_catalogue(raw, name)
 
 
 def catalogue_rows(data: dict[str, Any]) -> list[list[Any]]:

@@ -54,7 +54,7 @@ def _list_index(items: list, parts: list[str], at: int, walked: str) -> tuple[in
         if candidate in names:
             return names.index(candidate), end - at
     token = parts[at]
-    if token.isdigit():
+    if token.isascii() and token.isdigit():  # ASCII digits only: int("١") is 1, int("¹") raises
         index = int(token)
         if index < len(items):
             return index, 1

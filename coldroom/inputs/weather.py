@@ -42,6 +42,22 @@ EPW_HEADER_RECORDS = 8
 EPW_MISSING_DRY_BULB = 99.9
 #: Field of the dry bulb in an EPW data record (0-based) [pub] [ref:epw-format].
 EPW_DRY_BULB_FIELD = 6
+#: Largest EPW file read [byte]: a year of hourly records is about 1.5 MB; a device that never
+#: ends, or a huge file, is refused at this size.
+EPW_MAX_BYTES = 16 << 20
+#: Month, day and hour fields (0-based) of an EPW data record, with their ranges [pub] [ref:epw-format].
+EPW_DATE_FIELDS = ((1, "month", 1, 12), (2, "day", 1, 31), (3, "hour", 1, 24))
+
+
+def _check_date(row: Sequence[str], filename: str, line: int) -> None:
+    """An hourly record names its month, day and hour (1-24): rows with no date are not a year."""
+    for index, name, low, high in EPW_DATE_FIELDS:
+        text = row[index].strip()
+        if not (text.isascii() and text.isdigit() and low <= int(text) <= high):
+            raise ProjectFileError(
+                f"EPW record's {name} (field {index + 1}) is {text[:20]!r}; an hourly record gives its month (1-12), "
+                "day (1-31) and hour (1-24)", file=filename, line=line,
+            )
 
 
 @dataclass(frozen=True)
@@ -111,35 +127,43 @@ def read_epw(path: str | Path) -> Weather:
         a missing (99.9) or implausible value, or not a year of hours; the
         message names the line.
     """
+    from coldroom.inputs.safeyaml import read_source
+
     p = Path(path)
-    try:
-        text = p.read_text(encoding="utf-8-sig", errors="replace")
-    except FileNotFoundError:
-        raise ProjectFileError("weather file not found", file=str(p)) from None
-    except OSError as exc:
-        raise ProjectFileError(f"cannot read the weather file: {exc.strerror}", file=str(p)) from None
-    rows = list(csv.reader(text.splitlines()))
-    if not rows or not rows[0] or rows[0][0].strip().upper() != "LOCATION":
-        raise ProjectFileError("not an EPW weather file: the first record is not LOCATION", file=str(p), line=1)
-    location = ", ".join(x.strip() for x in rows[0][1:4] if x.strip())
+    raw = read_source(p, max_bytes=EPW_MAX_BYTES, what="weather file",
+                      typical="an EPW file of one year is about 1.5 MB")
+    text = raw.decode("utf-8-sig", errors="replace")
+    reader = csv.reader(text.splitlines())
     values: list[float] = []
-    for line, row in enumerate(rows[EPW_HEADER_RECORDS:], start=EPW_HEADER_RECORDS + 1):
-        if not row or not "".join(row).strip():
-            continue
-        if len(row) <= EPW_DRY_BULB_FIELD:
-            raise ProjectFileError(
-                f"EPW record has {len(row)} fields; the dry bulb is field {EPW_DRY_BULB_FIELD + 1}", file=str(p),
-                line=line,
-            )
-        try:
-            t = float(row[EPW_DRY_BULB_FIELD])
-        except ValueError:
-            raise ProjectFileError(
-                f"EPW dry bulb {row[EPW_DRY_BULB_FIELD]!r} is not a number", file=str(p), line=line
-            ) from None
-        if not math.isfinite(t) or t >= EPW_MISSING_DRY_BULB or not -90.0 <= t <= 70.0:
-            raise ProjectFileError(f"EPW dry bulb {t:g} °C is missing or implausible", file=str(p), line=line)
-        values.append(t)
+    location = ""
+    try:
+        for line, row in enumerate(reader, start=1):
+            if line == 1:
+                if not row or row[0].strip().upper() != "LOCATION":
+                    raise ProjectFileError("not an EPW weather file: the first record is not LOCATION", file=str(p),
+                                           line=1)
+                location = ", ".join(x.strip() for x in row[1:4] if x.strip())
+            if line <= EPW_HEADER_RECORDS or not row or not "".join(row).strip():
+                continue
+            if len(row) <= EPW_DRY_BULB_FIELD:
+                raise ProjectFileError(
+                    f"EPW record has {len(row)} fields; the dry bulb is field {EPW_DRY_BULB_FIELD + 1}", file=str(p),
+                    line=line,
+                )
+            _check_date(row, str(p), line)
+            try:
+                t = float(row[EPW_DRY_BULB_FIELD])
+            except ValueError:
+                raise ProjectFileError(
+                    f"EPW dry bulb {row[EPW_DRY_BULB_FIELD][:40]!r} is not a number", file=str(p), line=line
+                ) from None
+            if not math.isfinite(t) or t >= EPW_MISSING_DRY_BULB or not -90.0 <= t <= 70.0:
+                raise ProjectFileError(f"EPW dry bulb {t:g} °C is missing or implausible", file=str(p), line=line)
+            values.append(t)
+    except csv.Error as exc:
+        raise ProjectFileError(f"not an EPW weather file: {exc}", file=str(p), line=reader.line_num) from None
+    if not location and not values:
+        raise ProjectFileError("not an EPW weather file: the first record is not LOCATION", file=str(p), line=1)
     if len(values) not in (8760, 8784):
         raise ProjectFileError(
             f"EPW file holds {len(values)} hourly records; a year is 8760 (8784 in a leap year)", file=str(p)

@@ -318,3 +318,337 @@ def test_15_one_boundary_for_pressure_and_temperature() -> None:
     for side in (-1, 1):  # the same side whichever way the boundary is approached
         t = temperature + side * 0.01
         assert r744_transcritical(t) is r744_transcritical(pressure=fluid.dew_pressure(t)) is (side > 0)
+
+
+# --- 9. XLSX bounds ------------------------------------------------------------------------------
+
+
+def _workbook_with(sheet_xml: str, shared_xml: str | None = None) -> bytes:
+    """A minimal .xlsx made by hand (openpyxl never writes the hostile parts)."""
+    import io
+    import zipfile
+
+    buffer = io.BytesIO()
+    with zipfile.ZipFile(buffer, "w", zipfile.ZIP_DEFLATED) as z:
+        z.writestr("[Content_Types].xml",
+                   '<?xml version="1.0"?><Types xmlns="http://schemas.openxmlformats.org/package/2006/content-types">'
+                   '<Default Extension="rels" ContentType="application/vnd.openxmlformats-package.relationships+xml"/>'
+                   '<Default Extension="xml" ContentType="application/xml"/>'
+                   '<Override PartName="/xl/workbook.xml" ContentType="application/vnd.openxmlformats-officedocument.spreadsheetml.sheet.main+xml"/>'
+                   '<Override PartName="/xl/worksheets/sheet1.xml" ContentType="application/vnd.openxmlformats-officedocument.spreadsheetml.worksheet+xml"/>'
+                   + ('<Override PartName="/xl/sharedStrings.xml" ContentType="application/vnd.openxmlformats-officedocument.spreadsheetml.sharedStrings+xml"/>' if shared_xml else "")
+                   + "</Types>")
+        z.writestr("_rels/.rels", '<?xml version="1.0"?><Relationships xmlns="http://schemas.openxmlformats.org/package/2006/relationships">'
+                   '<Relationship Id="rId1" Type="http://schemas.openxmlformats.org/officeDocument/2006/relationships/officeDocument" Target="xl/workbook.xml"/></Relationships>')
+        z.writestr("xl/workbook.xml", '<?xml version="1.0"?><workbook xmlns="http://schemas.openxmlformats.org/spreadsheetml/2006/main" '
+                   'xmlns:r="http://schemas.openxmlformats.org/officeDocument/2006/relationships"><sheets>'
+                   '<sheet name="Units" sheetId="1" r:id="rId1"/></sheets></workbook>')
+        z.writestr("xl/_rels/workbook.xml.rels", '<?xml version="1.0"?><Relationships xmlns="http://schemas.openxmlformats.org/package/2006/relationships">'
+                   '<Relationship Id="rId1" Type="http://schemas.openxmlformats.org/officeDocument/2006/relationships/worksheet" Target="worksheets/sheet1.xml"/>'
+                   + ('<Relationship Id="rId2" Type="http://schemas.openxmlformats.org/officeDocument/2006/relationships/sharedStrings" Target="sharedStrings.xml"/>' if shared_xml else "")
+                   + "</Relationships>")
+        z.writestr("xl/worksheets/sheet1.xml", sheet_xml)
+        if shared_xml:
+            z.writestr("xl/sharedStrings.xml", shared_xml)
+    return buffer.getvalue()
+
+
+SHEET = '<?xml version="1.0"?><worksheet xmlns="http://schemas.openxmlformats.org/spreadsheetml/2006/main">{dim}<sheetData>{rows}</sheetData></worksheet>'
+
+
+@pytest.mark.parametrize("case", ["declared-whole-sheet", "empty-rows", "shared-strings"])
+def test_09_xlsx_is_bounded_in_rows_columns_and_size(tmp_path: Path, case: str) -> None:
+    if case == "declared-whole-sheet":
+        raw = _workbook_with(SHEET.format(dim='<dimension ref="A1:XFD1048576"/>',
+                                          rows='<row r="1"><c r="A1" t="inlineStr"><is><t>kind</t></is></c></row>'))
+    elif case == "empty-rows":
+        rows = "".join(f'<row r="{r}"/>' for r in range(1, 40000)) + '<row r="1048576"><c r="A1048576"><v>1</v></c></row>'
+        raw = _workbook_with(SHEET.format(dim="", rows=rows))
+    else:
+        shared = ('<?xml version="1.0"?><sst xmlns="http://schemas.openxmlformats.org/spreadsheetml/2006/main">'
+                  + "<si><t>x</t></si>" * 400_000 + "</sst>")
+        raw = _workbook_with(SHEET.format(dim="", rows='<row r="1"><c r="A1" t="s"><v>0</v></c></row>'), shared)
+    assert len(raw) < 300_000  # small on disk
+    book = tmp_path / "cat.xlsx"
+    book.write_bytes(raw)
+    done = run("select", COOLER, "--catalogue", book, cwd=tmp_path)
+    assert done.returncode == 65, done.stderr
+    assert one_line(done.stderr).startswith(str(book))
+    assert book.read_bytes() == raw and sorted(p.name for p in tmp_path.iterdir()) == ["cat.xlsx"]
+
+
+# --- 10 and 11. weather file and catalogue: regular files, bounded, located --------------------------
+
+
+POSIX = pytest.mark.skipif(sys.platform == "win32", reason="FIFOs, devices and symlink loops are POSIX")
+
+
+@POSIX
+@pytest.mark.parametrize("case", ["fifo", "dev-zero", "symlink-loop", "long-comment", "no-dates"])
+def test_10_weather_file_guards(tmp_path: Path, case: str) -> None:
+    site = tmp_path / "site"
+    site.mkdir()
+    weather = site / "w.epw"
+    expected = {"fifo": "named pipe", "dev-zero": "larger than the limit", "symlink-loop": "cannot read",
+                "long-comment": "longer than", "no-dates": "month"}[case]
+    if case == "fifo":
+        os.mkfifo(weather)
+    elif case == "dev-zero":
+        weather.symlink_to("/dev/zero")
+    elif case == "symlink-loop":
+        weather.symlink_to(site / "loop.epw")
+        (site / "loop.epw").symlink_to(weather)
+    elif case == "long-comment":
+        weather.write_text(epw_text(comment="x" * 140_000), encoding="utf-8")
+        expected = "weather"
+    else:
+        weather.write_text(epw_text(dated=False), encoding="utf-8")
+    text = COOLER.read_text(encoding="utf-8").replace("design:\n", "design:\n  weather: site/w.epw\n", 1)
+    project = tmp_path / "p.yaml"
+    project.write_text(text, encoding="utf-8")
+    done = run("compare", project, "--json", tmp_path / "out.json", cwd=tmp_path)
+    assert done.returncode == 65, done.stderr
+    line = one_line(done.stderr)
+    assert "w.epw" in line and expected in line, line
+    assert not (tmp_path / "out.json").exists()
+
+
+@POSIX
+@pytest.mark.parametrize("which", ["catalogue", "project"])
+def test_11_fifo_as_catalogue_or_project_is_refused_at_once(tmp_path: Path, which: str) -> None:
+    fifo = tmp_path / ("cat.yaml" if which == "catalogue" else "p.yaml")
+    os.mkfifo(fifo)
+    project = fifo if which == "project" else COOLER
+    catalogue = fifo if which == "catalogue" else CATALOGUE
+    done = run("select", project, "--catalogue", catalogue, cwd=tmp_path)
+    assert done.returncode == 65, done.stderr
+    assert "named pipe" in one_line(done.stderr)
+
+
+# --- 12. catalogue columns ----------------------------------------------------------------------
+
+
+@pytest.mark.parametrize("header", ["model.note", "condenser"])
+def test_12_a_column_and_a_key_under_it_are_refused(header: str) -> None:
+    from coldroom.errors import ProjectFileError
+    from coldroom.inputs.catalogue import parse_catalogue
+
+    text = f"kind,model,currency,price,condenser.heat_rejection,{header}\ncondensing_unit,U1,EUR,1,5 kW,x\n"
+    with pytest.raises(ProjectFileError) as info:
+        parse_catalogue(text.encode(), "cat.csv")
+    assert info.value.line == 1 and "column of its own" in info.value.message
+
+
+def test_12_a_huge_csv_cell_is_a_located_error() -> None:
+    from coldroom.errors import ProjectFileError
+    from coldroom.inputs.catalogue import parse_catalogue
+
+    text = "kind,model,currency,price\nunit_cooler,C1,EUR,1\nunit_cooler," + "x" * 140_000 + ",EUR,1\n"
+    with pytest.raises(ProjectFileError) as info:
+        parse_catalogue(text.encode(), "cat.csv")
+    assert info.value.line == 3 and "longer than" in info.value.message
+
+
+# --- 13. a vanishing unit-cooler capacity --------------------------------------------------------------
+
+
+@pytest.mark.parametrize("capacity", ["1e-320 W", "5e-324 W", "0.001 W"])
+def test_13_vanishing_cooler_capacity_is_refused(capacity: str) -> None:
+    from coldroom.errors import ProjectFileError
+    from coldroom.inputs.catalogue import parse_catalogue
+
+    text = CATALOGUE.read_text(encoding="utf-8")
+    at = text.index("capacity: ", text.index("unit_coolers:")) + len("capacity: ")
+    with pytest.raises(ProjectFileError) as info:
+        parse_catalogue((text[:at] + capacity + text[text.index("\n", at):]).encode(), "cat.yaml")
+    assert info.value.key.endswith("capacity") and "outside the valid range" in info.value.message
+
+
+# --- 14. option path indices: ASCII digits only ----------------------------------------------------
+
+
+@pytest.mark.parametrize("index", ["¹", "١", "０"])
+def test_14_option_index_in_other_digits_is_refused(tmp_path: Path, index: str) -> None:
+    text = COOLER.read_text(encoding="utf-8") + (
+        f"\noptions:\n  - name: other\n    changes:\n      rooms.{index}.temperature: 3\n")
+    project = tmp_path / "p.yaml"
+    project.write_text(text, encoding="utf-8")
+    done = invoke("validate", project)
+    assert done.returncode == 65, done.stderr
+    assert f"no item named {index!r}" in one_line(done.stderr)
+
+
+# --- 16. catalogue line numbers ---------------------------------------------------------------------
+
+
+def test_16_csv_errors_name_the_file_line_after_a_quoted_newline() -> None:
+    from coldroom.errors import ProjectFileError
+    from coldroom.inputs.catalogue import parse_catalogue
+
+    text = 'kind,model,currency,price\nunit_cooler,"two\nline name",EUR,1\nfridge,C2,EUR,1\n'
+    with pytest.raises(ProjectFileError) as info:
+        parse_catalogue(text.encode(), "cat.csv")
+    assert (info.value.line, info.value.key) == (4, "kind")
+
+
+def test_16_unclosed_quote_names_its_cell() -> None:
+    from coldroom.errors import ProjectFileError
+    from coldroom.inputs.catalogue import parse_catalogue
+
+    text = 'kind,model,currency,price\nunit_cooler,C1,EUR,1\nunit_cooler,"C2,EUR,1\nunit_cooler,C3,EUR,1\n'
+    with pytest.raises(ProjectFileError) as info:
+        parse_catalogue(text.encode(), "cat.csv")
+    assert (info.value.line, info.value.column) == (3, 2) and "never closes" in info.value.message
+
+
+# --- 17. numeric model names ----------------------------------------------------------------------------
+
+
+def test_17_a_model_named_by_a_number_is_text(tmp_path: Path) -> None:
+    from coldroom.inputs.catalogue import load_catalogue, parse_catalogue
+
+    text = CATALOGUE.read_text(encoding="utf-8")
+    at = text.index("model: ") + len("model: ")
+    yaml_catalogue = parse_catalogue((text[:at] + "4050" + text[text.index("\n", at):]).encode(), "cat.yaml")
+    assert yaml_catalogue.condensing_units[0].model == "4050"
+    import openpyxl
+
+    book = openpyxl.Workbook()
+    rows = [["kind", "model", "currency", "price", "refrigerant", "rated_point.capacity",
+             "rated_point.evaporating_temperature", "rated_point.condensing_temperature", "rated_point.power"],
+            ["condensing_unit", 4050, "EUR", 1000, "R-448A", "2 kW", -10, 45, "1 kW"]]
+    for row in rows:
+        book.active.append(row)
+    book.save(tmp_path / "cat.xlsx")
+    assert load_catalogue(tmp_path / "cat.xlsx").condensing_units[0].model == "4050"
+    csv_text = "\n".join(",".join(str(c) for c in row) for row in rows).replace(",4050,", ',"4050",') + "\n"
+    assert parse_catalogue(csv_text.encode(), "cat.csv").condensing_units[0].model == "4050"
+
+
+# --- 18. XLSX: formulas with no saved value, several sheets ------------------------------------------
+
+
+def _unit_rows(model: str) -> list:
+    return [["kind", "model", "currency", "price", "refrigerant", "rated_point.capacity",
+             "rated_point.evaporating_temperature", "rated_point.condensing_temperature", "rated_point.power"],
+            ["condensing_unit", model, "EUR", 1000, "R-448A", "2 kW", -10, 45, "1 kW"]]
+
+
+def test_18_formula_without_a_saved_value_is_named(tmp_path: Path) -> None:
+    import openpyxl
+
+    from coldroom.errors import ProjectFileError
+    from coldroom.inputs.catalogue import load_catalogue
+
+    book = openpyxl.Workbook()
+    rows = _unit_rows("U1")
+    rows[1][3] = "=900+100"  # openpyxl saves the formula, never its value
+    for row in rows:
+        book.active.append(row)
+    book.save(tmp_path / "cat.xlsx")
+    with pytest.raises(ProjectFileError) as info:
+        load_catalogue(tmp_path / "cat.xlsx")
+    assert (info.value.line, info.value.column) == (2, "D") and "formula" in info.value.message
+
+
+def test_18_every_sheet_is_read(tmp_path: Path) -> None:
+    import openpyxl
+
+    from coldroom.inputs.catalogue import load_catalogue
+
+    book = openpyxl.Workbook()
+    for row in _unit_rows("U1"):
+        book.active.append(row)
+    coolers = book.create_sheet("Coolers")
+    for row in [["kind", "model", "currency", "price", "capacity", "air_on", "evaporating_temperature", "air_flow",
+                 "throw", "fan_power", "defrost", "fin_spacing"],
+                ["unit_cooler", "C1", "EUR", 500, "2 kW", 0, -8, "1500 m³/h", "8 m", "90 W", "off_cycle", "4 mm"]]:
+        coolers.append(row)
+    book.save(tmp_path / "cat.xlsx")
+    catalogue = load_catalogue(tmp_path / "cat.xlsx")
+    assert [u.model for u in catalogue.condensing_units] == ["U1"] and [c.model for c in catalogue.unit_coolers] == ["C1"]
+
+
+# --- 19. wrong formats, wrong sizes, an empty name ------------------------------------------------
+
+
+@pytest.mark.parametrize("name, expected", [("cat.xls", "Excel 97-2003"), ("cat.ods", "OpenDocument"),
+                                            ("cat.txt", "text file")])
+def test_19_other_formats_are_named(tmp_path: Path, name: str, expected: str) -> None:
+    path = tmp_path / name
+    path.write_bytes(b"kind,model,currency,price\n" if name.endswith(".txt") else b"\xd0\xcf\x11\xe0garbage")
+    done = invoke("select", COOLER, "--catalogue", path)
+    assert done.returncode == 65, done.stderr
+    line = one_line(done.stderr)
+    assert expected in line and ".csv" in line and ".xlsx" in line
+
+
+def test_19_large_catalogue_message_and_empty_name(tmp_path: Path) -> None:
+    from coldroom.inputs.catalogue import MAX_CATALOGUE_BYTES
+
+    big = tmp_path / "cat.yaml"
+    big.write_bytes(b"# x\n" * (MAX_CATALOGUE_BYTES // 4 + 1))
+    done = invoke("select", COOLER, "--catalogue", big)
+    assert done.returncode == 65 and "project file" not in one_line(done.stderr) and "catalogue" in done.stderr
+    done = invoke("select", COOLER, "--catalogue", "")
+    assert done.returncode == 2 and "--catalogue" in one_line(done.stderr)
+
+
+# --- 20. control characters in any model name ----------------------------------------------------------
+
+
+@pytest.mark.parametrize("group", ["condensing_units", "unit_coolers"])
+def test_20_control_characters_in_models_are_refused(group: str) -> None:
+    from coldroom.errors import ProjectFileError
+    from coldroom.inputs.catalogue import parse_catalogue
+
+    text = CATALOGUE.read_text(encoding="utf-8")
+    at = text.index("model: ", text.index(group + ":")) + len("model: ")
+    with pytest.raises(ProjectFileError) as info:
+        parse_catalogue((text[:at] + '"UC\\e[2J"' + text[text.index("\n", at):]).encode(), "cat.yaml")
+    assert "control character" in info.value.message and info.value.key.startswith(group)
+
+
+# --- 21. an EPW without dates ---------------------------------------------------------------------------
+
+
+def test_21_epw_rows_without_date_and_hour_are_not_a_year(tmp_path: Path) -> None:
+    from coldroom.errors import ProjectFileError
+    from coldroom.inputs.weather import read_epw
+
+    (tmp_path / "w.epw").write_text(epw_text(dated=False), encoding="utf-8")
+    with pytest.raises(ProjectFileError) as info:
+        read_epw(tmp_path / "w.epw")
+    assert info.value.line == 9 and "month" in info.value.message
+    (tmp_path / "w.epw").write_text(epw_text(), encoding="utf-8")
+    assert len(read_epw(tmp_path / "w.epw").dry_bulb) == 8760
+
+
+# --- 22. cycle --out to standard output or a device -----------------------------------------------------
+
+
+@pytest.mark.parametrize("name", ["-", "/dev/stdout", "/dev/null"])
+def test_22_cycle_page_to_stdout_or_a_device(tmp_path: Path, name: str) -> None:
+    done = subprocess.run(
+        [sys.executable, "-m", "coldroom", "cycle", "-r", "R404A", "--evaporating", "-10", "--condensing", "40",
+         "--capacity", "5 kW", "--out", name], capture_output=True, timeout=HANG_LIMIT, cwd=tmp_path,
+    )
+    assert done.returncode == 0, done.stderr
+    if name != "/dev/null":
+        assert done.stdout.startswith(b"%PDF") and b"Traceback" not in done.stderr
+    assert list(tmp_path.iterdir()) == []
+
+
+# --- 23. option names after Unicode normalisation ---------------------------------------------------
+
+
+def test_23_option_names_are_compared_after_nfc(tmp_path: Path) -> None:
+    composed, decomposed = "Caf\u00e9", "Cafe\u0301"
+    text = COOLER.read_text(encoding="utf-8") + (
+        f"\noptions:\n  - name: {composed}\n    changes:\n      rooms.0.temperature: 3\n"
+        f"  - name: {decomposed}\n    changes:\n      rooms.0.temperature: 4\n")
+    project = tmp_path / "p.yaml"
+    project.write_text(text, encoding="utf-8")
+    done = invoke("validate", project)
+    assert done.returncode == 65, done.stderr
+    assert "two options are called" in one_line(done.stderr)

@@ -70,11 +70,14 @@ class ProjectModel(Strict):
 
     @model_validator(mode="after")
     def _unique_options(self) -> "ProjectModel":
+        import unicodedata
+
         seen: set[str] = set()
         for option in self.options:
-            if option.name in seen:
+            key = unicodedata.normalize("NFC", option.name)  # "Café" composed and decomposed are one name
+            if key in seen:
                 raise ValueError(f"two options are called {option.name!r}")
-            seen.add(option.name)
+            seen.add(key)
         return self
 
     @model_validator(mode="after")

@@ -266,39 +266,64 @@ def _build(
     return result
 
 
-def read_source(path: "str | os.PathLike[str]", *, max_bytes: int = MAX_BYTES) -> bytes:
-    """Read a project file, at most *max_bytes* + 1 bytes of it.
+def read_source(
+    path: "str | os.PathLike[str]", *, max_bytes: int = MAX_BYTES, what: str = "project file",
+    typical: str = "a project file is a few kB",
+) -> bytes:
+    """Read an input file (project, catalogue, weather), at most *max_bytes* + 1 bytes of it.
 
     A device that never ends (``/dev/zero``, ``/dev/urandom``) or a huge
     sparse file is refused after ``max_bytes + 1`` bytes instead of filling
-    the memory.
+    the memory. A named pipe or a socket is refused before anything is read
+    (reading one waits for a writer that may never come); the file is opened
+    without blocking for that reason.
 
     Parameters
     ----------
     path : str or os.PathLike
-        The project file.
+        The file.
     max_bytes : int
         Size limit [byte].
+    what, typical : str
+        What the file is, and how large one usually is (for the messages).
 
     Raises
     ------
     ProjectFileError
-        Missing, a directory, unreadable, or larger than *max_bytes* (exit 65).
+        Missing, a directory, a pipe or socket, unreadable, or larger than *max_bytes* (exit 65).
     """
+    import stat
+
     name = os.fspath(path)
+    if name == "":
+        raise ProjectFileError(f"'' is not a file name; give the {what}", file=name)
     try:
-        with open(name, "rb") as handle:
-            raw = handle.read(max_bytes + 1)
+        fd = os.open(name, os.O_RDONLY | getattr(os, "O_NONBLOCK", 0) | getattr(os, "O_CLOEXEC", 0))
     except FileNotFoundError:
         raise ProjectFileError("no such file", file=name) from None
     except IsADirectoryError:
-        raise ProjectFileError("is a directory, not a project file", file=name) from None
+        raise ProjectFileError(f"is a directory, not a {what}", file=name) from None
     except OSError as exc:
         raise ProjectFileError(f"cannot read: {exc.strerror or exc}", file=name) from None
+    try:
+        mode = os.fstat(fd).st_mode
+        if stat.S_ISDIR(mode):
+            raise ProjectFileError(f"is a directory, not a {what}", file=name)
+        if stat.S_ISFIFO(mode) or stat.S_ISSOCK(mode):
+            kind = "a named pipe" if stat.S_ISFIFO(mode) else "a socket"
+            raise ProjectFileError(f"is {kind}, not a {what}; give a regular file", file=name)
+        if hasattr(os, "set_blocking"):
+            os.set_blocking(fd, True)
+        with os.fdopen(fd, "rb", closefd=True) as handle:
+            fd = -1
+            raw = handle.read(max_bytes + 1)
+    except OSError as exc:
+        raise ProjectFileError(f"cannot read: {exc.strerror or exc}", file=name) from None
+    finally:
+        if fd >= 0:
+            os.close(fd)
     if len(raw) > max_bytes:
-        raise ProjectFileError(
-            f"file is larger than the limit of {max_bytes} bytes; a project file is a few kB", file=name
-        )
+        raise ProjectFileError(f"file is larger than the limit of {max_bytes} bytes; {typical}", file=name)
     return raw
 
 
