@@ -130,8 +130,13 @@ def read_epw(path: str | Path) -> Weather:
     from coldroom.inputs.safeyaml import read_source
 
     p = Path(path)
-    raw = read_source(p, max_bytes=EPW_MAX_BYTES, what="weather file",
-                      typical="an EPW file of one year is about 1.5 MB")
+    try:
+        raw = read_source(p, max_bytes=EPW_MAX_BYTES, what="weather file",
+                          typical="an EPW file of one year is about 1.5 MB")
+    except ProjectFileError as exc:
+        if exc.message == "no such file":
+            raise ProjectFileError("weather file not found", file=str(p)) from None
+        raise
     text = raw.decode("utf-8-sig", errors="replace")
     reader = csv.reader(text.splitlines())
     values: list[float] = []
