@@ -201,7 +201,7 @@ class OptionYear:
         }
         if self.ambient_source:  # an option with its own climate names it
             out["ambient_source"] = self.ambient_source
-            out["ambient_bins"] = [{"temperature_c": b.temperature, "hours_h": b.hours} for b in self.bins]
+            out["ambient_bins"] = bins_json(self.bins)
         if base is not None and self is not base:
             bt = base.tewi
             out["difference_to_base"] = {
@@ -212,6 +212,11 @@ class OptionYear:
                 "tewi_total_kg_co2e": (t.total - bt.total) if t is not None and bt is not None else None,
             }
         return out
+
+
+def bins_json(bins: Sequence[AmbientBin]) -> list[dict]:
+    """Ambient bins as the compare JSON gives them (the comparison's and an option's own)."""
+    return [{"temperature_c": b.temperature, "duration_h": b.hours} for b in bins]
 
 
 def ambient_bins(model: "ProjectModel", cache: Optional[dict] = None) -> tuple[tuple[AmbientBin, ...], str]:
@@ -578,7 +583,7 @@ class Comparison:
         base = self.options[0]
         return {
             "ambient_source": self.ambient_source,
-            "ambient_bins": [{"temperature_c": b.temperature, "duration_h": b.hours} for b in self.bins],
+            "ambient_bins": bins_json(self.bins),
             "options": [o.to_json(base) for o in self.options],
         }
 

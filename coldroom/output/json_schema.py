@@ -495,6 +495,9 @@ class Option(TypedDict):
     systems: list[OptionSystem]
     warnings: list[str]
     difference_to_base: NotRequired[DifferenceToBase]
+    #: an option with its own climate (design.weather or ambient_bins changed) names it
+    ambient_source: NotRequired[str]
+    ambient_bins: NotRequired[list[AmbientBin]]
 
 
 # --- quote (coldroom.design.quote, valves, electrical_schedule) --------------------------------

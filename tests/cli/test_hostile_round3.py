@@ -267,8 +267,13 @@ def test_07_option_with_its_own_weather_names_it(weather_job: Path) -> None:
     base, other = result["options"]
     assert "w.epw" in result["ambient_source"] and "ambient_source" not in base
     assert "w2.epw" in other["ambient_source"] and "Otherton" in other["ambient_source"]
-    assert sum(b["hours_h"] for b in other["ambient_bins"]) == 8760
+    assert sum(b["duration_h"] for b in other["ambient_bins"]) == 8760
     assert "ambient of option elsewhere: w2.epw (Otherton" in done.stderr  # the terminal text (stdout is JSON)
+    import jsonschema
+
+    from coldroom.output.json_schema import result_schema
+
+    jsonschema.Draft202012Validator(result_schema("compare")).validate(result)  # the contract lists the keys
 
 
 # --- 8. a gauge reading without its unit --------------------------------------------------------------
