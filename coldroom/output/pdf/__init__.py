@@ -18,6 +18,7 @@ Modules:
 ``ph_geometry``        spline smoothing, clipping and the label-occupancy grid of the chart
 ``cyclepage``          the stand-alone cycle page of ``coldroom cycle --out``
 ``comparepage``        the options comparison of ``coldroom compare --out``
+``proposal``           the customer's proposal of ``coldroom quote --out``
 ``text``               text helpers: characters the built-in Helvetica can show, number formatting
 
 The sheet only presents a :class:`coldroom.results.ProjectResult` (and echoes
