@@ -417,7 +417,7 @@ XLSX_MAX_ROWS = 2 * 5000 + 1
 XLSX_MAX_COLUMNS = 200
 XLSX_MAX_SHEETS = 20
 XLSX_MAX_UNPACKED = 32 << 20
-XLSX_MAX_SHARED_STRINGS = 4 << 20
+XLSX_MAX_SHARED_STRINGS = 1 << 20  # about 40,000 distinct texts; openpyxl reads 1 MiB in about a second
 
 
 def _open_quote_cell(line: str) -> int:
@@ -525,8 +525,9 @@ def _read_xlsx(raw: bytes, filename: str) -> list[tuple[str, list[list[Any]], li
             while rows and all(v is None or (isinstance(v, str) and not v.strip()) for v in rows[-1]):
                 rows.pop()
                 numbers.pop()
-            if rows:
-                sheets.append((label, rows, numbers))
+            width = max((i + 1 for row in rows for i, v in enumerate(row) if v is not None), default=0)
+            if rows:  # the columns the table uses (a missing column is then named right after them)
+                sheets.append((label, [row[:width] for row in rows], numbers))
     finally:
         values.close()
         formulas.close()
