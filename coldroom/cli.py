@@ -799,7 +799,11 @@ def quote_command(
     """Select the equipment, then price the whole job: bill of quantities, valves, electrical schedule."""
 
     def run() -> None:
+        from coldroom.errors import UsageError
         from coldroom.output.files import check_targets
+
+        if not catalogue.strip():
+            raise UsageError("--catalogue '': give the catalogue file (.yaml, .csv or .xlsx)")
 
         pdf_target, xlsx_target, json_target = check_targets(
             (("--out", out), ("--costing", costing), ("--json", json_out)), force=force, inputs=[project, catalogue]

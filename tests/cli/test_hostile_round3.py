@@ -595,8 +595,9 @@ def test_19_large_catalogue_message_and_empty_name(tmp_path: Path) -> None:
     big.write_bytes(b"# x\n" * (MAX_CATALOGUE_BYTES // 4 + 1))
     done = invoke("select", COOLER, "--catalogue", big)
     assert done.returncode == 65 and "project file" not in one_line(done.stderr) and "catalogue" in done.stderr
-    done = invoke("select", COOLER, "--catalogue", "")
-    assert done.returncode == 2 and "--catalogue" in one_line(done.stderr)
+    for command in ("select", "quote"):
+        done = invoke(command, COOLER, "--catalogue", "")
+        assert done.returncode == 2 and "--catalogue" in one_line(done.stderr), (command, done.stderr)
 
 
 # --- 20. control characters in any model name ----------------------------------------------------------
