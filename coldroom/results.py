@@ -140,6 +140,13 @@ class LoadLine:
         return self.daily_energy / SECONDS_PER_DAY_S
 
 
+#: The one-daily-energy rule, as the JSON states it (``rooms[].daily_energy_basis``).
+DAILY_ENERGY_RULE = (
+    "one daily energy: the 24 hourly loads average to daily_energy_kwh / 24 (within 0.5 %); every line's energy "
+    "is placed in the hours, none added or lost; "
+)
+
+
 @dataclass(frozen=True)
 class RoomLoads:
     """The 24-hour heat load of one room.
@@ -229,6 +236,17 @@ class RoomLoads:
         """``"daily energy"`` or ``"peak hour"``: which figure sets the design capacity."""
         return "peak hour" if self.peak_capacity > self.required_capacity else "daily energy"
 
+    @property
+    def daily_energy_basis(self) -> str:
+        """How the daily energy and the hourly loads agree (:data:`DAILY_ENERGY_RULE`)."""
+        temps = getattr(self.design_day, "outdoor_temperature", None) or (0.0,)
+        if max(temps) == min(temps):
+            return DAILY_ENERGY_RULE + "transmission and infiltration at the design dry bulb all day (no daily range)"
+        return DAILY_ENERGY_RULE + (
+            "transmission and infiltration at each hour's outdoor air (the design day follows the daily range), "
+            "their daily energy the design day's mean"
+        )
+
     def to_json(self) -> dict[str, Any]:
         """JSON object with SI numbers; every numeric key names its unit."""
         return {
@@ -246,6 +264,7 @@ class RoomLoads:
                 else "product pull-down rate, internal loads all on, other loads at their averages"
             ),
             "hourly_load_w": list(self.design_day.hourly_load) if self.design_day is not None else None,
+            "daily_energy_basis": self.daily_energy_basis,
             "peak_hour": self.design_day.peak_hour if self.design_day is not None else None,
             "hourly_outdoor_temperature_c": (
                 list(self.design_day.outdoor_temperature) if self.design_day is not None else None

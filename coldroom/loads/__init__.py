@@ -434,10 +434,18 @@ def room_loads(model: "ProjectModel", room: "Room") -> RoomLoads:
         Every line, the safety factor, run time and the peak-hour load [W].
     """
     products = _product_loads(room)
+    day = design_day(model, room)
+    transmission, infiltration = transmission_lines(model, room), infiltration_lines(model, room)
+    means = day.outdoor_line_means
+    if means[0] or means[1]:  # one daily energy: the outdoor-driven lines over the design day (loads.hourly)
+        transmission, infiltration = (
+            [_day_mean(line, mean) for line, mean in zip(group, group_means)]
+            for group, group_means in ((transmission, means[0]), (infiltration, means[1]))
+        )
     lines: list[LoadLine] = []
-    lines += transmission_lines(model, room)
+    lines += transmission
     lines += product_lines(model, room, products)
-    lines += infiltration_lines(model, room)
+    lines += infiltration
     lines += internal_lines(model, room)
     run_time, basis = _run_time(room)
     steady = sum(
@@ -445,7 +453,6 @@ def room_loads(model: "ProjectModel", room: "Room") -> RoomLoads:
     ) / SECONDS_PER_DAY_S
     peak = steady + product_peak(model, room, products) + internal_peak(model, room)
     warnings = storage_advice(room)
-    day = design_day(model, room)
     if day.scheduled:  # the schedule replaces the all-at-once approximation
         peak = day.peak_load
     warnings += list(day.notes)
@@ -467,6 +474,15 @@ def room_loads(model: "ProjectModel", room: "Room") -> RoomLoads:
     )
     note = design_capacity_note(room, loads)
     return loads if note is None else replace(loads, warnings=loads.warnings + (note,))
+
+
+def _day_mean(line: LoadLine, mean_power: float) -> LoadLine:
+    """*line* with its daily energy the design day's mean power × 24 h (its working says so)."""
+    return replace(
+        line,
+        daily_energy=mean_power * SECONDS_PER_DAY_S,
+        basis=line.basis + (T(mean_power, "power", "design-day mean ", sep="; "),),
+    )
 
 
 DESIGN_RATIO_NOTE = 3.0

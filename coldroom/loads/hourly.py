@@ -26,9 +26,12 @@ day. This module places that energy in the hours of the design day:
 - **defrost** heat enters in the defrost periods (schedule: start times; else
   evenly spaced from 00:00 [trade]).
 
-Every line's energy is placed, none added or lost: with a daily range of 0 the
-24 hourly loads average to the 24-hour energy ÷ 86 400 s. With a daily range
-the outdoor-dependent lines are smaller in the cooler hours.
+Every line's energy is placed, none added or lost, so the 24 hourly loads average
+to the room's daily energy ÷ 86 400 s (one daily energy). With a daily range the
+outdoor-dependent lines are smaller in the cooler hours, and their daily energy
+is their mean over the design day (:attr:`DesignDay.outdoor_line_means`, which
+:func:`coldroom.loads.room_loads` takes for the transmission and infiltration
+lines); without one they hold the design dry bulb all day.
 
 The **peak-hour load** is the largest hourly load with the defrost heat left
 out (the compressor stands still while the coil defrosts; that heat is removed
@@ -232,6 +235,9 @@ class DesignDay:
         then comes from this profile).
     notes : tuple of str
         Doubts about the schedule (a door open more than the whole hour, …).
+    outdoor_line_means : tuple of (tuple of float, tuple of float)
+        The transmission lines' and the infiltration lines' mean power over the day [W],
+        in the order the load functions make them (empty without a daily range).
     """
 
     hourly_load: tuple[float, ...]
@@ -240,6 +246,7 @@ class DesignDay:
     defrost: tuple[float, ...]
     scheduled: bool
     notes: tuple[str, ...] = field(default=())
+    outdoor_line_means: tuple[tuple[float, ...], tuple[float, ...]] = ((), ())
 
     @property
     def daily_energy(self) -> float:
@@ -342,6 +349,7 @@ def room_design_day(model: "ProjectModel", room: "Room", sources: LineSources) -
     # in the same order as before, so the figures are the same to the last digit
     same_day = design.daily_range == 0.0
     outdoor_lines: dict[float, tuple[list[float], list[float]]] = {}
+    line_sums: tuple[list[float], list[float]] = ([], [])
     for h in range(HOURS):
         try:
             transmission_powers, infiltration_powers = outdoor_lines[temps[h]]
@@ -353,11 +361,16 @@ def room_design_day(model: "ProjectModel", room: "Room", sources: LineSources) -
             transmission_powers = [line.average_power for line in transmission_lines(hour_model, room)]
             infiltration_powers = [line.average_power for line in infiltration_lines(hour_model, room)]
             outdoor_lines[temps[h]] = transmission_powers, infiltration_powers
-        for power in transmission_powers:
+        if not line_sums[0] and not line_sums[1]:
+            line_sums[0].extend([0.0] * len(transmission_powers))
+            line_sums[1].extend([0.0] * len(infiltration_powers))
+        for i, power in enumerate(transmission_powers):
             by["transmission"][h] += power
-        for power in infiltration_powers:
+            line_sums[0][i] += power
+        for i, power in enumerate(infiltration_powers):
             factor = HOURS * door_shares[h] if room.infiltration.method == "door" else 1.0
             by["infiltration"][h] += power * factor
+            line_sums[1][i] += power * factor
     if room.infiltration.method == "door":
         for door in room.doors:
             open_fraction = (door.passages_per_day * door.passage_time + door.open_time) / SECONDS_PER_DAY_S
@@ -436,4 +449,7 @@ def room_design_day(model: "ProjectModel", room: "Room", sources: LineSources) -
         defrost=tuple(defrost),
         scheduled=schedule is not None,
         notes=tuple(notes),
+        outdoor_line_means=((), ()) if same_day else (
+            tuple(x / HOURS for x in line_sums[0]), tuple(x / HOURS for x in line_sums[1])
+        ),
     )

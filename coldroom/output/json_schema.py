@@ -134,6 +134,7 @@ class RoomLoads(TypedDict):
     peak_load_w: float
     peak_load_basis: str
     hourly_load_w: Optional[list[float]]
+    daily_energy_basis: str
     peak_hour: Optional[int]
     hourly_outdoor_temperature_c: Optional[list[float]]
     design_capacity_w: float
@@ -580,6 +581,7 @@ class SizeOutput(Envelope):
 
 class CheckOutput(Envelope):
     rooms: list[CheckedRoom]
+    systems: NotRequired[list[System]]
 
 
 class SelectOutput(Envelope):

@@ -188,3 +188,28 @@ def test_select_writes_the_job_as_chosen(sized_and_selected) -> None:
         assert system["daily_electricity_by_use_kwh"]["compressor"] == pytest.approx(
             check.power_at_balance * hours / 1000.0, rel=1e-12
         )
+
+
+@pytest.mark.parametrize("path", sorted(DEMOS.glob("*.yaml")) + [BACK_STORE], ids=lambda p: p.stem)
+@pytest.mark.parametrize("daily_range", ["0 K", "11 K"])
+def test_one_daily_energy_per_room(path: Path, daily_range: str, tmp_path: Path) -> None:
+    """The 24 hourly loads average to daily_energy_kwh / 24 within 0.5 % (issue 24's rule), with and
+    without a daily range; the JSON states the rule."""
+    from coldroom.loads import room_loads
+
+    text = path.read_text(encoding="utf-8")
+    text = "\n".join(line for line in text.splitlines() if not line.strip().startswith("daily_range:"))
+    marker = "  hemisphere: north\n"
+    assert marker in text
+    ranged = tmp_path / path.name
+    ranged.write_text(text.replace(marker, marker + f"  daily_range: {daily_range}\n", 1), encoding="utf-8")
+    model = _open(ranged)
+    for room in model.rooms:
+        loads = room_loads(model, room)
+        hourly = loads.design_day.hourly_load
+        assert sum(hourly) / 24 == pytest.approx(loads.daily_energy / 86400.0, rel=0.005)
+        data = loads.to_json()
+        assert "daily_energy_kwh / 24" in data["daily_energy_basis"]
+        flat = "no daily range" in data["daily_energy_basis"]
+        assert flat == (daily_range == "0 K" or all(t == hourly_t for t, hourly_t in zip(
+            loads.design_day.outdoor_temperature, loads.design_day.outdoor_temperature[:1] * 24)))

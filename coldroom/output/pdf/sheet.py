@@ -182,7 +182,8 @@ def summary_section(ctx: SheetContext) -> list:
     """One line per room: the figures needed to pick the equipment."""
     s = ctx.system
     rows: list[list[str]] = [
-        ["Room", "Conditions", "Design capacity", "Refrigerant", "SST / SCT (dew)", "Compressor input", "Heat of rejection"]
+        ["Room", "Conditions", "Design capacity", "Refrigerant", "Coil evaporating / SCT (dew)", "Compressor input",
+         "Heat of rejection"]
     ]
     for i, room in enumerate(ctx.result.rooms):
         cyc = room_cycle(ctx, i) or {}
@@ -483,7 +484,7 @@ def duties_section(ctx: SheetContext, index: int) -> list:
     system = room_system(ctx, index)
     rows = [
         ["Equipment", "Required duty", "At"],
-        ["Evaporator (unit cooler)", cap, f"evaporating {te} (dew), air on {room_air}"],
+        ["Evaporator (unit cooler)", cap, f"coil evaporating {te} (dew), air on {room_air}"],
     ]
     if system is not None and len(system.members) > 1:
         others = ", ".join(name for name in system.rooms if name != room.name)
@@ -491,13 +492,14 @@ def duties_section(ctx: SheetContext, index: int) -> list:
             [
                 f"Condensing unit: system {system.name}",
                 capacity(system.design_capacity, s),
-                f"shared with {others}; SST {temperature(system.suction_temperature, s)} / SCT {tc} (dew)"
+                f"shared with {others}; SST {temperature(system.suction_temperature, s)} at the compressor / SCT {tc} (dew)"
                 + ("; this coil behind an evaporator pressure regulator" if any(
                     m.regulated for m in system.members if m.room == room.name) else ""),
             ]
         )
     else:
-        rows.append(["Condensing unit", cap, f"SST {te} / SCT {tc} (dew), condenser air {air}"])
+        sst = temperature(system.suction_temperature, s) if system is not None else te
+        rows.append(["Condensing unit", cap, f"SST {sst} at the compressor / SCT {tc} (dew), condenser air {air}"])
     if cyc:
         rows.append(["Condenser: heat of rejection", capacity(cyc["condenser_duty_w"], s), f"SCT {tc}, air on {air}"])
     w = ctx.width
