@@ -715,8 +715,14 @@ def check_command(
         say(check_report(model, checks, limits), file=console)
         from coldroom.output.json_contract import check_body
 
-        emit_json("check", lambda: check_body(checks, limits), json_target, force=force, project=project,
-                  model=model, content=opened.content, console=console)
+        def body() -> dict:  # the sized job with the existing units as they stand (systems[], "existing")
+            from coldroom.design.job import existing_result
+            from coldroom.design.sizing import size_project
+
+            return check_body(checks, limits, existing_result(model, size_project(model, project, opened.content)))
+
+        emit_json("check", body, json_target, force=force, project=project, model=model, content=opened.content,
+                  console=console)
 
     guarded(run)
 

@@ -96,3 +96,34 @@ def selected_result(
         for system in result.systems
     )
     return replace(result, systems=systems)
+
+
+def existing_system(model: "ProjectModel", system: "SystemResult", room: Any) -> "SystemResult":
+    """A one-room *system* with the electrical figures of the room's existing unit (``coldroom check``).
+
+    The compressor's input and capacity are the existing unit's at its balance point
+    (*room* is the sized :class:`coldroom.results.RoomResult`, its ``check`` the unit's check);
+    fans, heaters and defrost heaters are the project's, the condenser fans as designed. A room
+    whose unit has no balance point (or a system of several rooms, whose existing units are
+    checked room by room) keeps the design figures.
+    """
+    from coldroom.design import systems
+    from coldroom.design.sizing import member_draw
+
+    check = room.check
+    if len(system.members) != 1 or check is None or check.power_at_balance is None or not check.capacity_at_balance:
+        return system
+    source = next(r for r in model.rooms if r.name == room.loads.name)
+    fans = (system.electrical.condenser_fan_power, system.electrical.condenser_fan_basis)
+    electrical = systems.electrical_figures(
+        check.power_at_balance, check.capacity_at_balance, fans, [member_draw(source, room.loads)]
+    )
+    return replace(system, electrical=electrical, equipment_basis="existing")
+
+
+def existing_result(model: "ProjectModel", result: "ProjectResult") -> "ProjectResult":
+    """The sized job (*result*) with every one-room system whose room has an existing unit as that
+    unit stands (:func:`existing_system`); the other systems keep ``equipment_basis: "design"``."""
+    rooms = {room.loads.name: room for room in result.rooms}
+    systems = tuple(existing_system(model, system, rooms[system.rooms[0]]) for system in result.systems)
+    return replace(result, systems=systems)

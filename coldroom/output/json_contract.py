@@ -86,9 +86,11 @@ def load_body(rooms: Sequence[Any], warnings: Sequence[str]) -> dict[str, Any]:
     }
 
 
-def check_body(checks: Sequence[tuple[Any, Any]], limits: Sequence[Any]) -> dict[str, Any]:
-    """``check``: per room its required capacity and its existing unit's check with what it can still do."""
-    return {
+def check_body(checks: Sequence[tuple[Any, Any]], limits: Sequence[Any], job: Any = None) -> dict[str, Any]:
+    """``check``: per room its required capacity and its existing unit's check with what it can still do; with
+    *job* (:func:`coldroom.design.job.existing_result`) also ``systems``, the same keys as ``size`` writes, a
+    one-room system with an existing unit at ``equipment_basis: "existing"``."""
+    body = {
         "rooms": [
             {
                 "name": loads.name,
@@ -98,6 +100,9 @@ def check_body(checks: Sequence[tuple[Any, Any]], limits: Sequence[Any]) -> dict
             for (loads, check), limit in zip(checks, limits)
         ],
     }
+    if job is not None:
+        body["systems"] = job.to_json()["systems"]
+    return body
 
 
 def select_body(selections: Sequence[Any], catalogue: str, currency: str, job: Any = None) -> dict[str, Any]:

@@ -213,3 +213,23 @@ def test_one_daily_energy_per_room(path: Path, daily_range: str, tmp_path: Path)
         flat = "no daily range" in data["daily_energy_basis"]
         assert flat == (daily_range == "0 K" or all(t == hourly_t for t, hourly_t in zip(
             loads.design_day.outdoor_temperature, loads.design_day.outdoor_temperature[:1] * 24)))
+
+
+def test_check_writes_the_existing_unit_as_it_stands() -> None:
+    """check's systems[]: a one-room system with an existing unit at equipment_basis "existing", its
+    compressor input the unit's at its balance point (the same unit check rates), the rest as sized."""
+    from coldroom.design.job import existing_result
+    from coldroom.design.sizing import existing_unit_checks, size_project
+
+    path = DEMOS / "cooler_to_freezer.yaml"
+    model = _open(path)
+    result = size_project(model, str(path), path.read_bytes())
+    sized = result.to_json()
+    standing = existing_result(model, result).to_json()
+    ((_loads, check),) = existing_unit_checks(model)
+    for designed, system in zip(sized["systems"], standing["systems"]):
+        assert designed["equipment_basis"] == "design" and system["equipment_basis"] == "existing"
+        assert system["compressor_input_power_w"] == pytest.approx(check.power_at_balance, rel=1e-6)
+        assert system["design_capacity_w"] == designed["design_capacity_w"]
+        assert system["charge"] == designed["charge"]
+        assert system["connected_load_w"] == max(system["refrigerating_load_w"], system["defrost_load_w"])
