@@ -195,10 +195,10 @@ def emit_json(command: str, body, target, *, force: bool, project: str, model, c
     if target is None:
         return
     from coldroom.output.files import json_text
-    from coldroom.output.json_contract import document, project_block
+    from coldroom.output.produce import json_document
 
-    data = document(command, body() if callable(body) else body, project_block(model, project, content))
-    write_output(target, json_text(data), force=force, project=project, console=console)
+    write_output(target, json_text(json_document(command, body, model, project, content)), force=force,
+                 project=project, console=console)
 
 
 def version_callback(value: bool) -> None:
@@ -334,6 +334,23 @@ def new_command(
     guarded(run)
 
 
+@app.command("serve")
+def serve_command(
+    project: Optional[str] = typer.Argument(None, help="Project file (YAML); without it, the starter of 'new'."),
+    port: int = typer.Option(8765, "--port", help="Port on 127.0.0.1 (0: any free port).", min=0, max=65535),
+    host: str = typer.Option("127.0.0.1", "--host", help="127.0.0.1 or localhost; nothing else is accepted."),
+    no_browser: bool = typer.Option(False, "--no-browser", help="Do not open the page in a browser."),
+) -> None:
+    """Edit the project file beside its answers in a local browser page (needs the serve extra)."""
+
+    def run() -> None:
+        from coldroom.serve.run import serve  # starlette and uvicorn, lazily
+
+        serve(project, port=port, host=host, browser=not no_browser)
+
+    guarded(run)
+
+
 # --- products (product table listing) ---------------------------------------
 
 
@@ -399,12 +416,11 @@ def size_command(
             ("--out", out if out is not None else str(source.with_suffix(".pdf"))), ("--json", json_out),
             force=force, project=project,
         )
-        from coldroom.output.pdf.sheet import render_sheet  # reportlab, lazily
-        from coldroom.design.sizing import size_project  # CoolProp, lazily
+        from coldroom.output.produce import size_pdf, size_result
         from coldroom.output.terminal import size_summary
 
-        result = size_project(model, project, opened.content)
-        pdf = render_sheet(result, model)
+        result = size_result(model, project, opened.content)
+        pdf = size_pdf(result, model)
         console = console_for(pdf_target, json_target)
         say(size_summary(result, model), file=console)
         console.flush()  # a full disk behind the terminal text stops the run before any file is written
@@ -430,48 +446,21 @@ def compare_command(
     """Compare the project and its options: annual energy and cost, charge, GWP, TEWI."""
 
     def run() -> None:
-        import hashlib
-        import os
-
-        from coldroom.errors import ProjectFileError
         from coldroom.inputs.opening import open_project
-        from coldroom.inputs.safeyaml import load_yaml
 
         pdf_target, json_target = check_outputs(("--out", out), ("--json", json_out), force=force, project=project)
         opened = open_project(project)
         raw, model = opened.content, opened.model
         reading(*opened.inputs)  # the weather files of the base and of every option
         pdf_target, json_target = check_outputs(("--out", out), ("--json", json_out), force=force, project=project)
-        if model.design.weather is None and model.design.ambient_bins is None:
-            raise load_yaml(raw, filename=project).error(
-                "compare needs the year's ambient: design.weather (an EPW file) or design.ambient_bins",
-                ("design",),
-            )
-        from coldroom.design.annual import compare  # CoolProp, lazily
-        from coldroom.design.sizing import sheet_date, versions
+        from coldroom.output.produce import compare_pdf, compare_result
         from coldroom.output.terminal import compare_text
 
-        try:
-            result = compare(model)
-        except ProjectFileError as exc:
-            if exc.file and exc.file != project:  # the weather file's own line
-                raise
-            raise load_yaml(raw, filename=project).error(exc.message, ("design", "weather")) from None
+        result = compare_result(model, project, raw)
         console = console_for(pdf_target, json_target)
         say(compare_text(result, model.project.units), file=console)
         if pdf_target is not None:
-            from coldroom.output.pdf.comparepage import render_compare  # reportlab, lazily
-
-            meta = {
-                "date": sheet_date(model.project.date),
-                "input_file": os.path.basename(project),
-                "input_sha256": hashlib.sha256(raw).hexdigest(),
-                "versions": versions(),
-                "prepared_by": model.project.prepared_by,
-                "client": model.project.client,
-                "site": model.project.site,
-            }
-            pdf = render_compare(result, model.project.units, meta)
+            pdf = compare_pdf(result, model, project, raw)
             console.flush()
             write_output(pdf_target, pdf, force=force, project=project, console=console)
         emit_json("compare", result.to_json, json_target, force=force, project=project, model=model, content=raw,
@@ -757,28 +746,17 @@ def select_command(
         reading(*opened.inputs)
         pdf_target, json_target = check_outputs(("--out", out), ("--json", json_out), force=force, project=project)
         equipment = load_catalogue(catalogue)
-        from coldroom.design.selection import select_project  # CoolProp, lazily
+        from coldroom.output.produce import selected_job, selections_for, size_pdf
         from coldroom.output.terminal import selection_report
 
-        from coldroom.design.selection import NothingFitsError
-        from coldroom.units import format_terms
-
-        try:
-            selections = select_project(model, equipment)
-        except NothingFitsError as exc:  # the duty in the project's units
-            raise NothingFitsError(format_terms(exc.args[0], model.project.units)) from None
+        selections = selections_for(model, equipment)
         console = console_for(pdf_target, json_target)
         say(selection_report(selections, model.project.units), file=console)
         job = None
         if pdf_target is not None or json_target is not None:  # the sized job, equipped as chosen
-            from coldroom.design.job import selected_result
-            from coldroom.design.sizing import size_project
-
-            job = selected_result(model, size_project(model, project, opened.content), selections)
+            job = selected_job(model, project, opened.content, selections)
         if pdf_target is not None:
-            from coldroom.output.pdf.sheet import render_sheet  # reportlab, lazily
-
-            write_output(pdf_target, render_sheet(job, model, selection=selections), force=force,
+            write_output(pdf_target, size_pdf(job, model, selection=selections), force=force,
                          project=project, console=console)
         from coldroom.output.json_contract import select_body
 
@@ -820,29 +798,17 @@ def quote_command(
         opened = open_project(project)
         model = opened.model
         equipment = load_catalogue(catalogue)
-        from coldroom.design.quote import build_quote
-        from coldroom.design.selection import NothingFitsError, select_project
-        from coldroom.design.sizing import size_project
+        from coldroom.output.produce import costing_xlsx, proposal_pdf, quote_result
         from coldroom.output.quote_text import quote_report
-        from coldroom.units import format_terms
 
-        try:
-            selections = select_project(model, equipment)
-        except NothingFitsError as exc:
-            raise NothingFitsError(format_terms(exc.args[0], model.project.units)) from None
-        result = size_project(model, project, opened.content)
-        quote = build_quote(model, equipment, result, selections)
+        quote, result, _selections = quote_result(model, project, opened.content, equipment)
         console = console_for(pdf_target, xlsx_target, json_target)
         say(quote_report(quote, model.project.units), file=console)
         if pdf_target is not None:
-            from coldroom.output.pdf.proposal import render_proposal  # reportlab, lazily
-
-            write_output(pdf_target, render_proposal(quote, result, model), force=force, project=project,
+            write_output(pdf_target, proposal_pdf(quote, result, model), force=force, project=project,
                          console=console)
         if xlsx_target is not None:
-            from coldroom.output.costing import costing_workbook  # openpyxl, lazily
-
-            write_output(xlsx_target, costing_workbook(quote, model), force=force, project=project, console=console)
+            write_output(xlsx_target, costing_xlsx(quote, model), force=force, project=project, console=console)
         from coldroom.output.json_contract import quote_body
 
         emit_json("quote", lambda: quote_body(quote, catalogue), json_target, force=force, project=project,

@@ -80,7 +80,31 @@ def costing_workbook(quote: "Quote", model: "ProjectModel") -> bytes:
     _electrical_sheet(book.create_sheet("Electrical"), quote, bold)
     buffer = io.BytesIO()
     book.save(buffer)
-    return buffer.getvalue()
+    return _reproducible(buffer.getvalue(), model)
+
+
+def _reproducible(workbook: bytes, model: "ProjectModel") -> bytes:
+    """The workbook with the sheet's date in place of the clock (document properties and zip entries), so the
+    same project gives the same bytes (the download of ``coldroom serve`` equals the command's file)."""
+    import re
+    import zipfile
+
+    from coldroom.design.sizing import sheet_date
+
+    day = sheet_date(model.project.date)
+    stamp = f"{day}T00:00:00Z".encode()
+    source = zipfile.ZipFile(io.BytesIO(workbook))
+    out = io.BytesIO()
+    with zipfile.ZipFile(out, "w", zipfile.ZIP_DEFLATED) as target:
+        for info in source.infolist():
+            data = source.read(info.filename)
+            if info.filename == "docProps/core.xml":
+                data = re.sub(rb"(<dcterms:(?:created|modified)[^>]*>)[^<]*(<)", rb"\g<1>" + stamp + rb"\g<2>", data)
+            entry = zipfile.ZipInfo(info.filename, date_time=(int(day[:4]), int(day[5:7]), int(day[8:10]), 0, 0, 0))
+            entry.compress_type = zipfile.ZIP_DEFLATED
+            entry.external_attr = info.external_attr
+            target.writestr(entry, data)
+    return out.getvalue()
 
 
 def _electrical_sheet(sheet, quote: "Quote", bold) -> None:  # type: ignore[no-untyped-def]

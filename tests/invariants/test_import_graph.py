@@ -155,7 +155,7 @@ STAGES: tuple[tuple[str, ...], ...] = (
     ("inputs",),
     ("design",),
     ("output",),
-    ("cli", "__main__"),
+    ("cli", "__main__", "serve"),
 )
 
 
@@ -209,11 +209,12 @@ def test_only_the_glue_reads_the_project_model() -> None:
 
 
 def test_the_orchestrator_is_imported_only_from_above() -> None:
-    """Only the CLI, the option comparison, the equipment selection and the job as equipped (which work on whole
-    sizings) import sizing; and the JSON envelope, for the sheet's date and the versions."""
+    """Only the CLI, the commands' outputs (output.produce, shared with serve), the option comparison, the
+    equipment selection and the job as equipped (which work on whole sizings) import sizing; and the JSON envelope
+    and the costing workbook, for the sheet's date and the versions."""
     importers = sorted(m for m, deps in import_graph().items() if "coldroom.design.sizing" in deps)
     allowed = {"coldroom.cli", "coldroom.design.annual", "coldroom.design.selection", "coldroom.design.job",
-               "coldroom.output.json_contract"}
+               "coldroom.output.json_contract", "coldroom.output.produce", "coldroom.output.costing"}
     assert set(importers) <= allowed, importers
 
 
