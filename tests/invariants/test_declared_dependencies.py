@@ -32,14 +32,27 @@ def _imported_top_levels() -> set[str]:
     return {n for n in names if n != "coldroom" and n not in sys.stdlib_module_names}
 
 
-def _declared() -> set[str]:
+def _declared(extra: str | None = None) -> set[str]:
     project = tomllib.loads((REPO / "pyproject.toml").read_text(encoding="utf-8"))["project"]
-    return {re.split(r"[<>=!~\[; ]", spec, maxsplit=1)[0].lower().replace("_", "-") for spec in project["dependencies"]}
+    specs = project["dependencies"] + (project["optional-dependencies"][extra] if extra else [])
+    return {re.split(r"[<>=!~\[; ]", spec, maxsplit=1)[0].lower().replace("_", "-") for spec in specs}
+
+
+def test_the_serve_extra_is_imported_only_by_the_serve_package() -> None:
+    """starlette and uvicorn (``pip install ".[serve]"``) are imported under ``coldroom/serve`` only."""
+    extra = _declared("serve") - _declared()
+    for path in (REPO / "coldroom").rglob("*.py"):
+        if "serve" in path.relative_to(REPO / "coldroom").parts[:1]:
+            continue
+        for node in ast.walk(ast.parse(path.read_text(encoding="utf-8"))):
+            names = [a.name for a in node.names] if isinstance(node, ast.Import) else (
+                [node.module] if isinstance(node, ast.ImportFrom) and node.module else [])
+            assert not {n.split(".")[0] for n in names} & extra, path
 
 
 def test_every_imported_distribution_is_declared() -> None:
     owners = packages_distributions()
-    declared = _declared()
+    declared = _declared("serve")  # the serve extra's modules are checked above to stay in coldroom/serve
     missing = {}
     for module in sorted(_imported_top_levels()):
         dists = {d.lower().replace("_", "-") for d in owners.get(module, [module])}
