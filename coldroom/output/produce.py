@@ -163,3 +163,16 @@ def quote_document(quote: Any, catalogue: str, model: Any, file: str, content: b
     from coldroom.output.json_contract import quote_body
 
     return json_document("quote", lambda: quote_body(quote, catalogue), model, file, content)
+
+
+# --- the p-h chart of a sized system ------------------------------------------------------------
+
+
+def cycle_svg(result: Any, model: Any, file: str, index: int) -> bytes:
+    """The p–h chart page of system *index* of a sized job as SVG (the drawing ``coldroom cycle --out x.svg`` makes)."""
+    from coldroom.design.sizing import sheet_date, versions
+    from coldroom.output.pdf.cyclepage import render_cycle_page  # reportlab, lazily
+
+    system = result.systems[index]
+    return render_cycle_page(system.cycle, model.project.units, "svg", sheet_date(model.project.date),
+                             [os.path.basename(file), system.name], versions())

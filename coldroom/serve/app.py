@@ -289,6 +289,15 @@ def create_app(session: Session) -> Starlette:
         return download(json_bytes(size_document(result, model, session.file, text)), "application/json",
                         f"{stem()}.json")
 
+    def cycle_chart(text: bytes, request: Request) -> Response:
+        from coldroom.output.produce import cycle_svg
+
+        model, result = session.sized(text)
+        index = request.query_params.get("system", "")
+        if not index.isdigit() or int(index) >= len(result.systems) or result.systems[int(index)].cycle is None:
+            raise Refused(404, f"system {index!r}: no such system (0 to {len(result.systems) - 1})")
+        return Response(cycle_svg(result, model, session.file, int(index)), media_type="image/svg+xml")
+
     def compare(text: bytes, request: Request) -> Response:
         from coldroom.output.produce import compare_document, compare_result
 
@@ -365,6 +374,7 @@ def create_app(session: Session) -> Starlette:
         Route("/api/validate", computed(validate), methods=["POST"]),
         Route("/api/size", computed(size), methods=["POST"]),
         Route("/api/compare", computed(compare), methods=["POST"]),
+        Route("/api/cycle.svg", computed(cycle_chart), methods=["POST"]),
         Route("/api/select", computed(select), methods=["POST"]),
         Route("/api/quote", computed(quote), methods=["POST"]),
         Route("/api/download/sheet.pdf", computed(size_pdf), methods=["POST"]),

@@ -212,3 +212,11 @@ def test_ctrl_c_stops_the_server_with_exit_130(tmp_path: Path) -> None:
         server.kill()
     assert server.returncode == 130, err
     assert list(tmp_path.iterdir()) == []
+
+
+def test_the_ph_chart_is_the_cycle_commands_svg_drawing(combo: TestClient, folder: Path) -> None:
+    text = (folder / "combo_quote.yaml").read_bytes()
+    chart = combo.post("/api/cycle.svg?system=0", content=text)
+    assert chart.status_code == 200 and chart.headers["content-type"].startswith("image/svg+xml")
+    assert b"<svg" in chart.content and b"Refrigerant cycle" in chart.content
+    assert combo.post("/api/cycle.svg?system=9", content=text).status_code == 404
