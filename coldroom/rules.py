@@ -9,10 +9,10 @@ it without an import circle.
   :func:`room_design_temperatures`) [trade].
 * The cycle defaults (:data:`CYCLE_DEFAULTS`): one table for ``coldroom cycle``,
   :func:`coldroom.physics.cycle.solve_cycle` and a project's ``refrigeration`` block.
-* The pressure-ratio advisory by application and compressor kind
-  (:data:`PRESSURE_RATIO_LIMITS`, :func:`pressure_ratio_limit`) [trade].
-* The discharge-temperature advisory and limit (:data:`DISCHARGE_ADVISORY`,
-  :data:`DISCHARGE_LIMIT`) [trade].
+* The one pressure-ratio rule by application (:data:`PRESSURE_RATIO_LIMITS`,
+  :func:`pressure_ratio_limit`, :func:`single_stage_application`) [trade].
+* The one discharge-temperature limit per refrigerant family
+  (:data:`DISCHARGE_LIMITS`, :func:`discharge_temperature_limit`) [trade].
 * The condenser-air range searched by the existing-unit check
   (:data:`AMBIENT_SWEEP`).
 * The capacity that removes a daily heat gain: the safety factor
@@ -31,7 +31,7 @@ Examples
 >>> evaporator_td_for(room_temperature=-20.0, relative_humidity=0.80)[0]
 5.5
 >>> pressure_ratio_limit(-30.0), pressure_ratio_limit(-8.0)
-(10.0, 8.0)
+(18.0, 8.0)
 """
 
 from __future__ import annotations
@@ -41,6 +41,7 @@ from typing import TYPE_CHECKING, Optional
 
 
 if TYPE_CHECKING:  # pragma: no cover
+    from coldroom.results import Note
     from coldroom.inputs.projectfile import ProjectModel, Room
 
 # --------------------------------------------------------------------------- design temperatures
@@ -240,18 +241,18 @@ CYCLE_DEFAULTS = CycleDefaults()
 #: envelopes start at about −20 °C suction [trade].
 LOW_TEMPERATURE_BELOW = -20.0
 
-#: Pressure ratio above which single-stage compression is questioned, by
-#: application ("medium" or "low" temperature) and compressor kind [1].
-#: Medium temperature: a single-stage unit normally runs at 3–6; past 8 the
-#: unit is working at low-temperature suction [trade]. Low temperature:
-#: single-stage reciprocating compressors are applied to about 10, scrolls
-#: with liquid or vapour injection to about 12; past that, two stages or a
-#: compound system [trade]. Each entry: (limit, source).
-PRESSURE_RATIO_LIMITS: dict[tuple[str, str], tuple[float, str]] = {
-    ("medium", "reciprocating"): (8.0, "medium-temperature single stage to ≈8 [trade]"),
-    ("medium", "scroll"): (8.0, "medium-temperature single stage to ≈8 [trade]"),
-    ("low", "reciprocating"): (10.0, "low-temperature reciprocating single stage to ≈10 [trade]"),
-    ("low", "scroll"): (12.0, "low-temperature scroll with injection to ≈12 [trade]"),
+#: The one pressure-ratio rule, by application [1], each entry (limit, source).
+#: Medium temperature: a single-stage unit normally runs at 3–6; past 8 a
+#: medium-temperature compressor is working at low-temperature suction (an
+#: advisory: a low-temperature unit does it) [trade]. Low temperature: single-stage
+#: low-temperature condensing units are rated at −35 °C suction (EN 13215 [mem]), a
+#: pressure ratio of 11–13 with R-404A / R-448A, and their envelopes reach about
+#: −40 °C at 45 °C condensing (16–19); past 18 there is no standard single-stage
+#: application: two stages or a compound system [trade]. An ordinary −22 °C walk-in
+#: (ratio about 10) is well inside it.
+PRESSURE_RATIO_LIMITS: dict[str, tuple[float, str]] = {
+    "medium": (8.0, "medium-temperature single stage to ≈8 [trade]"),
+    "low": (18.0, "single-stage low-temperature envelopes to ≈18 [trade]"),
 }
 
 
@@ -260,48 +261,117 @@ def application_of(evaporating_temperature: float) -> str:
     return "low" if evaporating_temperature < LOW_TEMPERATURE_BELOW else "medium"
 
 
-def pressure_ratio_limit(evaporating_temperature: float, kind: str = "reciprocating") -> float:
-    """The pressure ratio [1] above which the advisory is given, for this suction and compressor kind.
+def pressure_ratio_limit(evaporating_temperature: float) -> float:
+    """The pressure ratio [1] above which the advisory is given, for this suction.
 
     Parameters
     ----------
     evaporating_temperature : float
-        Evaporating (suction) dew temperature [°C].
-    kind : str
-        ``"reciprocating"`` (the default: the clearance model is a
-        reciprocating compressor's) or ``"scroll"``.
+        Saturated suction (dew) temperature at the compressor [°C].
     """
-    return PRESSURE_RATIO_LIMITS[(application_of(evaporating_temperature), kind)][0]
+    return PRESSURE_RATIO_LIMITS[application_of(evaporating_temperature)][0]
 
 
-def pressure_ratio_advisory(pressure_ratio: float, evaporating_temperature: float, kind: str = "reciprocating") -> Optional[str]:
+def single_stage_application(pressure_ratio: float, evaporating_temperature: float) -> bool:
+    """Whether a standard single-stage unit is built for this lift (the low-temperature limit; [trade]).
+
+    A medium-temperature suction past 8 is still a single-stage (low-temperature unit's) duty.
+
+    Examples
+    --------
+    >>> single_stage_application(10.2, -28.0), single_stage_application(21.0, -40.0)
+    (True, False)
+    """
+    return pressure_ratio <= PRESSURE_RATIO_LIMITS["low"][0]
+
+
+def pressure_ratio_advisory(pressure_ratio: float, evaporating_temperature: float) -> Optional[str]:
     """The advisory text when *pressure_ratio* [1] is past the limit for the application, else None.
 
     Examples
     --------
-    >>> pressure_ratio_advisory(8.7, -31.0) is None
+    >>> pressure_ratio_advisory(10.2, -28.0) is None
     True
     >>> pressure_ratio_advisory(8.7, -10.0)[:20]
     'pressure ratio 8.7 i'
     """
     application = application_of(evaporating_temperature)
-    limit, source = PRESSURE_RATIO_LIMITS[(application, kind)]
+    limit, source = PRESSURE_RATIO_LIMITS[application]
     if pressure_ratio <= limit:
         return None
     if application == "medium":
-        advice = "a medium-temperature compressor is working at low-temperature suction"
+        advice = "a medium-temperature compressor is working at low-temperature suction: use a low-temperature unit"
     else:
-        advice = "past what a single stage does sensibly: two stages or a compound system"
-    return f"pressure ratio {pressure_ratio:.1f} is above {limit:g} for a {application}-temperature {kind} compressor ({source}): {advice}"
+        advice = "no standard single-stage application: two stages or a compound system"
+    return f"pressure ratio {pressure_ratio:.1f} is above {limit:g} for {application}-temperature suction ({source}): {advice}"
 
 
 # --------------------------------------------------------------------------- discharge temperature
 
-#: Discharge temperature above which a warning is given [°C]: 110–120 °C at the
-#: discharge line is the usual advice for oil stability [trade].
-DISCHARGE_ADVISORY = 110.0
-#: Discharge temperature commonly applied as the hard limit [°C] [trade].
-DISCHARGE_LIMIT = 135.0
+#: The one discharge-temperature limit per refrigerant family [°C], each (limit, source),
+#: at the compressor's discharge (the cycle's state 2, an upper estimate of the line
+#: temperature). Fluorinated refrigerants and hydrocarbons on ester or mineral oil:
+#: 135 °C, the limit commonly applied against oil breakdown [trade]. R-744: its
+#: compressors are built for hotter discharge gas, 140 °C [trade]. R-717: 150 °C [trade].
+DISCHARGE_LIMITS: dict[str, tuple[float, str]] = {
+    "fluorinated": (135.0, "oil breakdown, commonly applied to HFC/HFO/HCFC [trade]"),
+    "hydrocarbon": (135.0, "oil breakdown, commonly applied to hydrocarbons [trade]"),
+    "carbon dioxide": (140.0, "R-744 compressors, commonly applied [trade]"),
+    "ammonia": (150.0, "R-717 compressors, commonly applied [trade]"),
+}
+
+_HYDROCARBONS = frozenset({"R290", "R600", "R600A", "R1270", "R170", "R441A", "R436A", "R436B"})
+
+
+def refrigerant_family(refrigerant: str) -> str:
+    """The family whose discharge-temperature limit applies to *refrigerant* (``"R-290"``, ``"r290"`` …).
+
+    >>> refrigerant_family("R-744"), refrigerant_family("r290"), refrigerant_family("R448A")
+    ('carbon dioxide', 'hydrocarbon', 'fluorinated')
+    """
+    compact = "".join(c for c in refrigerant.upper() if c.isalnum())
+    if compact == "R744":
+        return "carbon dioxide"
+    if compact == "R717":
+        return "ammonia"
+    if compact in _HYDROCARBONS:
+        return "hydrocarbon"
+    return "fluorinated"
+
+
+def discharge_temperature_limit(refrigerant: str) -> float:
+    """The discharge-temperature limit [°C] of *refrigerant*'s family (:data:`DISCHARGE_LIMITS`).
+
+    Examples
+    --------
+    >>> discharge_temperature_limit("R-448A"), discharge_temperature_limit("R-744")
+    (135.0, 140.0)
+    """
+    return DISCHARGE_LIMITS[refrigerant_family(refrigerant)][0]
+
+
+def discharge_temperature_over(discharge_temperature: float, refrigerant: str) -> bool:
+    """Whether *discharge_temperature* [°C] is over the family's limit (a blocking verdict)."""
+    return discharge_temperature > discharge_temperature_limit(refrigerant)
+
+
+def discharge_temperature_warning(discharge_temperature: float, refrigerant: str) -> Optional["Note"]:
+    """The one wording of a discharge temperature [°C] over its family's limit, else ``None``.
+
+    size (the design cycle), select and check (a unit's balance point) all call this.
+    """
+    if not discharge_temperature_over(discharge_temperature, refrigerant):
+        return None
+    from coldroom.results import Note
+
+    limit, source = DISCHARGE_LIMITS[refrigerant_family(refrigerant)]
+    return Note.fill(
+        f"discharge temperature {{t}} is over the {{lim}} limit for {refrigerant} ({source}): oil breakdown and "
+        "valve damage; the compressor must not run like this - reduce superheat or lift, or use injection or "
+        "two stages",
+        t=(discharge_temperature, "temperature"), lim=(limit, "temperature"),
+    )
+
 
 # --------------------------------------------------------------------------- ambient sweep
 

@@ -14,8 +14,7 @@ from dataclasses import dataclass
 from typing import Any, Callable, Optional, Sequence
 
 from coldroom.rules import (
-    DISCHARGE_ADVISORY,
-    DISCHARGE_LIMIT,
+    discharge_temperature_warning,
     pressure_ratio_advisory,
     required_capacity,
     with_safety_factor,
@@ -298,24 +297,9 @@ def check_unit(
     if point is not None:
         warnings += compressor.flags(point)
         t2 = point.discharge_temperature
-        if t2 is not None and t2 > DISCHARGE_LIMIT:
-            warnings.append(
-                Note.fill(
-                    "discharge temperature about {t} exceeds the ~{lim} hard limit [trade]: "
-                    "oil breakdown and valve damage; the unit must not run like this",
-                    t=(t2, "temperature"),
-                    lim=(DISCHARGE_LIMIT, "temperature"),
-                )
-            )
-        elif t2 is not None and t2 > DISCHARGE_ADVISORY:
-            warnings.append(
-                Note.fill(
-                    "discharge temperature about {t} is above {lim} [trade]: check discharge-line temperature, "
-                    "consider liquid injection or a lower suction superheat",
-                    t=(t2, "temperature"),
-                    lim=(DISCHARGE_ADVISORY, "temperature"),
-                )
-            )
+        too_hot = None if t2 is None else discharge_temperature_warning(t2, compressor.refrigerant)
+        if too_hot is not None:
+            warnings.append(too_hot)
         advisory = pressure_ratio_advisory(point.pressure_ratio, point.suction_dew)
         if advisory is not None:
             warnings.append(advisory)

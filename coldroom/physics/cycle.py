@@ -51,8 +51,7 @@ from dataclasses import dataclass, replace
 
 from coldroom.rules import (
     CYCLE_DEFAULTS,
-    DISCHARGE_ADVISORY,
-    DISCHARGE_LIMIT,
+    discharge_temperature_warning,
     pressure_ratio_advisory,
 )
 from coldroom.constants import STANDARD_ATMOSPHERE_PA, ZERO_CELSIUS_K
@@ -698,23 +697,9 @@ def _warnings(
     evaporating_temperature: float,
 ) -> tuple[str, ...]:
     out = []
-    if discharge_temperature > DISCHARGE_LIMIT:
-        out.append(
-            Note(
-                "discharge temperature ", Term(discharge_temperature, "temperature"), " exceeds the ",
-                Term(DISCHARGE_LIMIT, "temperature"),
-                " limit commonly applied (oil breakdown): reduce superheat or pressure ratio, or use "
-                "injection/two-stage [trade]",
-            )
-        )
-    elif discharge_temperature > DISCHARGE_ADVISORY:
-        out.append(
-            Note(
-                "discharge temperature ", Term(discharge_temperature, "temperature"), " is above the ",
-                Term(DISCHARGE_ADVISORY, "temperature:bare"), "–", Term(120.0, "temperature"),
-                " usually advised at the discharge line [trade]",
-            )
-        )
+    too_hot = discharge_temperature_warning(discharge_temperature, info.name)
+    if too_hot is not None:
+        out.append(too_hot)
     advisory = pressure_ratio_advisory(pressure_ratio, evaporating_temperature)
     if advisory is not None:
         out.append(advisory)

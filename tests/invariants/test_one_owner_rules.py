@@ -63,11 +63,10 @@ def test_validate_size_and_cycle_agree_on_the_r744_boundary(side: int) -> None:
 # --- (b) the pressure-ratio advisory ------------------------------------------------------------
 
 
-def test_pressure_ratio_table_has_a_limit_and_a_trade_tag_for_every_application_and_kind() -> None:
+def test_pressure_ratio_table_has_a_limit_and_a_trade_tag_for_every_application() -> None:
     for application in ("medium", "low"):
-        for kind in ("reciprocating", "scroll"):
-            limit, source = design.PRESSURE_RATIO_LIMITS[(application, kind)]
-            assert 5.0 < limit < 20.0 and "[trade]" in source
+        limit, source = design.PRESSURE_RATIO_LIMITS[application]
+        assert 5.0 < limit < 20.0 and "[trade]" in source
     # a low-temperature compressor is allowed more lift than a medium-temperature one
     assert design.pressure_ratio_limit(-30.0) > design.pressure_ratio_limit(-10.0)
 
@@ -85,6 +84,42 @@ def test_ordinary_low_temperature_r448a_unit_gets_no_two_stage_advisory() -> Non
     deep = solve_cycle("R-448A", -40.0, 45.0, 5000.0)
     assert deep.pressure_ratio > design.pressure_ratio_limit(-40.0)
     assert any("pressure ratio" in w and "two stages" in w for w in deep.warnings)
+    assert not design.single_stage_application(deep.pressure_ratio, -40.0)
+
+
+def test_no_two_stage_advice_for_an_ordinary_minus_22_walk_in() -> None:
+    """Issue 24: a ratio of 10.2 on a −22 °C walk-in is an ordinary single-stage duty.
+
+    Independent route: EN 13215 rates low-temperature condensing units at −35 °C suction (from memory),
+    where R-448A's ratio at 40 °C condensing is already above 10 (CoolProp, dew pressures).
+    """
+    from coldroom.physics.cycle import solve_cycle
+    from coldroom.physics.refrigerant import get_fluid
+
+    fluid = get_fluid("R-448A")
+    rating_ratio = fluid.dew_pressure(40.0) / fluid.dew_pressure(-35.0)
+    assert rating_ratio > 10.2
+    assert design.single_stage_application(rating_ratio, -35.0)
+    r = solve_cycle("R-448A", -29.0, 45.0, 5000.0)
+    assert 9.5 < r.pressure_ratio < 12.0
+    assert design.pressure_ratio_advisory(r.pressure_ratio, -29.0) is None
+    assert not any("two stages" in w for w in r.warnings)
+
+
+def test_one_discharge_limit_per_family_in_cycle_and_check() -> None:
+    """The design cycle and an existing unit's balance use the one limit of the refrigerant's family."""
+    from coldroom.physics.cycle import solve_cycle
+
+    assert design.discharge_temperature_limit("R-448A") == design.discharge_temperature_limit("R-404A")
+    assert design.discharge_temperature_limit("R-744") == design.DISCHARGE_LIMITS["carbon dioxide"][0]
+    for name in design.DISCHARGE_LIMITS:
+        assert "[trade]" in design.DISCHARGE_LIMITS[name][1]
+    hot = solve_cycle("R-448A", -40.0, 50.0, 5000.0, superheat=20.0)
+    flagged = [w for w in hot.warnings if "discharge temperature" in w]
+    if hot.discharge_temperature > design.discharge_temperature_limit("R-448A"):
+        assert flagged == [design.discharge_temperature_warning(hot.discharge_temperature, "R-448A")]
+    else:
+        assert flagged == []
 
 
 def test_existing_unit_check_flags_pressure_ratio_by_the_same_table() -> None:

@@ -232,8 +232,10 @@ def test_blend_pressures_from_dew_points_and_glide_reported():
 
 
 def test_warnings():
-    hot = solve_cycle("R-717", -30.0, 45.0, 5000.0)
-    assert any("discharge temperature" in w and "135" in w for w in hot.warnings)
+    # R-717 at -40/45 °C: ratio about 25 (past the single-stage rule's 18 [trade]), discharge well over
+    # the 150 °C ammonia limit [trade]
+    hot = solve_cycle("R-717", -40.0, 45.0, 5000.0)
+    assert any("discharge temperature" in w and "150" in w for w in hot.warnings)
     assert any("pressure ratio" in w for w in hot.warnings)
     assert any("B2L" in w for w in hot.warnings)
     deep = solve_cycle("R-134a", -40.0, 40.0, 5000.0)
