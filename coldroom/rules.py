@@ -13,6 +13,8 @@ it without an import circle.
   :func:`pressure_ratio_limit`, :func:`single_stage_application`) [trade].
 * The one discharge-temperature limit per refrigerant family
   (:data:`DISCHARGE_LIMITS`, :func:`discharge_temperature_limit`) [trade].
+* The application classes of compressors (:data:`APPLICATION_CLASSES`,
+  :func:`application_mismatch`) [trade].
 * The condenser-air range searched by the existing-unit check
   (:data:`AMBIENT_SWEEP`).
 * The capacity that removes a daily heat gain: the safety factor
@@ -304,6 +306,62 @@ def pressure_ratio_advisory(pressure_ratio: float, evaporating_temperature: floa
     else:
         advice = "no standard single-stage application: two stages or a compound system"
     return f"pressure ratio {pressure_ratio:.1f} is above {limit:g} for {application}-temperature suction ({source}): {advice}"
+
+
+# --------------------------------------------------------------------------- application class
+
+#: A compressor's (condensing unit's) application class: the saturated suction range at the
+#: compressor it is built for [°C], (lowest, highest, words). Manufacturers' convention of
+#: low/medium/high back pressure (LBP/MBP/HBP) envelopes [trade]; EN 13215 rates
+#: condensing units of the classes at −35 °C (LT) and −10 °C (MT) suction [mem] [ref:en-13215].
+APPLICATION_CLASSES: dict[str, tuple[float, float, str]] = {
+    "LT": (-45.0, -15.0, "low-temperature"),
+    "MT": (-20.0, 10.0, "medium-temperature"),
+    "HT": (-5.0, 15.0, "high-temperature"),
+}
+
+
+def application_class_of_rating(rating_suction: float) -> str:
+    """The class of a unit known by one rated point [°C] when the catalogue names none [trade].
+
+    Rated at −20 °C suction or colder: LT (EN 13215's LT point is −35 °C [mem]); up to 0 °C: MT
+    (its MT point −10 °C); warmer: HT.
+
+    >>> application_class_of_rating(-35.0), application_class_of_rating(-10.0), application_class_of_rating(5.0)
+    ('LT', 'MT', 'HT')
+    """
+    if rating_suction <= LOW_TEMPERATURE_BELOW:
+        return "LT"
+    return "MT" if rating_suction <= 0.0 else "HT"
+
+
+def suction_class(suction_temperature: float) -> str:
+    """The class a saturated suction at the compressor [°C] calls for (LT below −20 °C, MT to +10, HT above)."""
+    if suction_temperature < LOW_TEMPERATURE_BELOW:
+        return "LT"
+    return "MT" if suction_temperature <= APPLICATION_CLASSES["MT"][1] else "HT"
+
+
+def application_mismatch(application: str, suction_temperature: float) -> Optional[str]:
+    """Why a unit of class *application* is not suitable at this suction [°C], or ``None`` when it is.
+
+    Examples
+    --------
+    >>> application_mismatch("MT", -29.0)
+    'medium-temperature unit at low-temperature suction'
+    >>> application_mismatch("LT", -9.6)
+    'low-temperature unit at medium-temperature suction'
+    >>> application_mismatch("LT", -29.0) is None
+    True
+    """
+    low, high, words = APPLICATION_CLASSES[application]
+    if low <= suction_temperature <= high:
+        return None
+    needed = APPLICATION_CLASSES[suction_class(suction_temperature)][2]
+    if needed == words:  # inside the class's name but past its range (colder than −45 °C …)
+        side = "below" if suction_temperature < low else "above"
+        return f"{words} unit at a suction {side} its range"
+    return f"{words} unit at {needed} suction"
 
 
 # --------------------------------------------------------------------------- discharge temperature

@@ -128,6 +128,8 @@ class OptionYear:
     economics : dict
         The inputs used, with ``defaulted`` naming those that took a default.
     warnings : tuple of str
+    blocking : tuple of str
+        Plain reasons the option cannot be built as written (empty: feasible).
     """
 
     name: str
@@ -147,6 +149,12 @@ class OptionYear:
     #: bins), else "" (the comparison's ambient_source).
     ambient_source: str = ""
     bins: tuple = ()
+    blocking: tuple = field(default=())
+
+    @property
+    def feasible(self) -> bool:
+        """Nothing blocks building the option as written (:func:`blocking_reasons`)."""
+        return not self.blocking
 
     @property
     def annual_energy(self) -> float:
@@ -167,6 +175,8 @@ class OptionYear:
         out = {
             "name": self.name,
             "note": self.note,
+            "feasible": self.feasible,
+            "blocking": list(self.blocking),
             "design_capacity_w": self.design_capacity,
             "compressor_input_power_w": self.compressor_input_power,
             "annual_energy_kwh": self.annual_energy,
@@ -554,6 +564,7 @@ def option_year(
             econ["emission_factor"],
         )
     return OptionYear(
+        blocking=blocking_reasons(model, designs),
         name=name,
         note=note,
         design_capacity=sum(x.design_capacity for d in designs for x in d.loads),
@@ -568,6 +579,57 @@ def option_year(
         economics=econ,
         warnings=tuple(warnings),
     )
+
+
+def blocking_reasons(model: "ProjectModel", designs: Sequence[Any]) -> tuple[str, ...]:
+    """Why an option cannot be built as written; empty when it can.
+
+    Blocking: a charge over a charge limit with no measures stated (``charge.measures``), or one
+    not permitted at all; a design discharge temperature over its family's limit
+    (:func:`coldroom.rules.discharge_temperature_limit`); a pressure ratio with no standard
+    single-stage application (:func:`coldroom.rules.single_stage_application`); an existing unit
+    (``existing_unit``, fixed) that does not hold its room.
+    """
+    from coldroom.design.existing import check_room
+    from coldroom.physics import charge as charge_rules
+    from coldroom.rules import discharge_temperature_limit, single_stage_application
+
+    reasons: list[str] = []
+    for d in designs:
+        works = d.pipework
+        measures = d.settings[0].charge.measures
+        if works is not None:
+            for limit in works.limits:
+                if limit.verdict == charge_rules.WITHIN or (limit.verdict == charge_rules.OVER and measures):
+                    continue
+                why = "not permitted" if limit.verdict == charge_rules.NOT_PERMITTED else "no measures stated"
+                reasons.append(
+                    f"system {d.name}: charge {limit.charge:.3g} kg over the limit {limit.limit or 0.0:.3g} kg "
+                    f"({limit.rule}; {why})"
+                )
+        cyc = d.cycle
+        ceiling = discharge_temperature_limit(d.info.name)
+        if cyc.discharge_temperature > ceiling:
+            reasons.append(
+                f"system {d.name}: discharge temperature {cyc.discharge_temperature:.0f} °C over the {ceiling:.0f} °C "
+                f"limit for {d.info.name}"
+            )
+        if not single_stage_application(cyc.pressure_ratio, d.suction):
+            reasons.append(
+                f"system {d.name}: pressure ratio {cyc.pressure_ratio:.1f} has no standard single-stage application "
+                "(two stages or a compound system)"
+            )
+    for room in model.rooms:
+        if room.existing_unit is None:
+            continue
+        try:
+            check = check_room(model, room, chart=False)
+        except CalculationError as exc:
+            reasons.append(f"room {room.name}: existing unit {room.existing_unit.name}: {exc}")
+            continue
+        if check is not None and not check.holds:
+            reasons.append(f"room {room.name}: existing unit {room.existing_unit.name}: {check.verdict}")
+    return tuple(reasons)
 
 
 @dataclass(frozen=True)

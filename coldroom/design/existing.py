@@ -68,6 +68,7 @@ def build_compressor(unit: "ExistingUnit", refrigeration: "Refrigeration") -> Co
             clearance=refrigeration.clearance,
             isentropic_efficiency=refrigeration.isentropic_efficiency,
             operating=operating,
+            application=r.application,
         )
     if unit.rating_table is not None:
         from coldroom.equipment.rating_table import RatingTableUnit
@@ -231,6 +232,7 @@ def check_room(
         )
     ambient = temps.condenser_air_temperature
     load_at = room_load_at(model, room, loads, ambient)
+    design_suction = temps.evaporating_temperature - r.suction_line_drop  # SST at the compressor
 
     result = check_unit(
         compressor,
@@ -246,6 +248,7 @@ def check_room(
         chart_ambients=CHART_AMBIENTS if chart else (),
         search_max_ambient=chart,
         name=unit.name,
+        design_suction=design_suction,
     )
     if drop:
         result = replace(result, room_temperature=room.temperature)

@@ -448,6 +448,7 @@ def _rate(compressor: Any, condenser: "HeatExchanger", duty: Duty, name: str, ma
         chart_ambients=(),
         search_max_ambient=max_ambient,
         name=name,
+        design_suction=duty.design_suction,
     )
 
 

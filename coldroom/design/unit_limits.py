@@ -35,6 +35,7 @@ from dataclasses import dataclass
 from typing import TYPE_CHECKING, Any, Callable, Optional
 
 from coldroom.results import Note, Term
+from coldroom.rules import LOW_TEMPERATURE_BELOW
 
 if TYPE_CHECKING:  # pragma: no cover
     from coldroom.inputs.projectfile import ProjectModel, Room
@@ -48,10 +49,10 @@ INTAKE_TOLERANCE = 0.002  # of the asked intake
 INTAKE_LIMIT = 64.0  # times the asked intake: "more than this" is reported as this
 #: Medium-temperature units are rated at a saturated suction of about −10 °C (EN 12900 MT
 #: rating point −10/45 °C; LT −35/40 °C [ref:en-12900] [mem]); a unit whose rating suction or envelope
-#: floor is at or above :data:`MT_SUCTION_FLOOR` is taken as a medium-temperature unit, and
-#: a design suction below :data:`LT_SUCTION_BELOW` as low-temperature duty [trade].
-MT_SUCTION_FLOOR = -20.0
-LT_SUCTION_BELOW = -20.0
+#: floor is above :data:`MT_SUCTION_FLOOR` is taken as a medium-temperature unit, and
+#: a design suction below :data:`LT_SUCTION_BELOW` as low-temperature duty: the class boundary of
+#: :data:`coldroom.rules.APPLICATION_CLASSES` [trade].
+MT_SUCTION_FLOOR = LT_SUCTION_BELOW = LOW_TEMPERATURE_BELOW
 
 
 @dataclass(frozen=True)
@@ -82,6 +83,9 @@ class UnitLimits:
         The verdict at the project's conditions.
     pulldown : PulldownResult or None
         The pull-down after a delivery with this unit (:mod:`coldroom.loads.pulldown`).
+    storage_ceiling : (float, str) or None
+        The lowest of the room's products' highest recommended storage temperatures [°C] and that
+        product's name: no remedy raises the set point above it.
     """
 
     coldest_room_temperature_held: Optional[float]
@@ -95,6 +99,7 @@ class UnitLimits:
     medium_at_low: Optional[Note]
     holds: bool
     pulldown: Any = None
+    storage_ceiling: Optional[tuple[float, str]] = None
 
     def remedies(self) -> tuple[Note, ...]:
         """The way forward as plain sentences, the medium-temperature message first."""
@@ -103,9 +108,16 @@ class UnitLimits:
             out.append(self.medium_at_low)
         if not self.holds:
             t = self.coldest_room_temperature_held
+            ceiling = self.storage_ceiling
             if t is not None and t > self.room_temperature:
-                out.append(Note.fill("Raise the set point to {t} (the coldest room this unit still holds).",
-                                     t=(t, "temperature")))
+                if ceiling is not None and t > ceiling[0]:
+                    out.append(Note.fill(
+                        f"Raising the set point is no remedy: the unit holds only at {{t}}, above the highest "
+                        f"recommended storage temperature of {ceiling[1]} ({{c}}).",
+                        t=(t, "temperature"), c=(ceiling[0], "temperature")))
+                else:
+                    out.append(Note.fill("Raise the set point to {t} (the coldest room this unit still holds).",
+                                         t=(t, "temperature")))
             if self.max_daily_intake is not None and self.max_daily_intake < self.daily_intake:
                 if self.max_daily_intake > 0:
                     out.append(Note.fill("Or cut the intake to {m}/day at {t}.", m=(self.max_daily_intake, "mass"),
@@ -313,6 +325,30 @@ def medium_at_low_message(room: "Room", design_evaporating: float) -> Optional[N
     )
 
 
+def storage_ceiling(room: "Room") -> Optional[tuple[float, str]]:
+    """The lowest highest-recommended storage temperature among the room's products [°C], and whose.
+
+    From the product table (:mod:`coldroom.physics.products`); products given by composition only
+    (no table entry) set none.
+    """
+    from coldroom.errors import ColdroomError
+    from coldroom.physics.products import get_product
+
+    found: Optional[tuple[float, str]] = None
+    for item in room.products:
+        name = getattr(item, "product", None)
+        if not isinstance(name, str):
+            continue
+        try:
+            product = get_product(name)
+        except (ColdroomError, KeyError, ValueError):
+            continue
+        high = product.storage_temperature[1]
+        if found is None or high < found[0]:
+            found = (high, product.name)
+    return found
+
+
 #: Room air temperatures (above the set point) at which the existing unit's capacity is found for the
 #: pull-down; linear in between [K].
 PULLDOWN_OFFSETS = (0.0, 3.0, 8.0, 16.0)
@@ -408,6 +444,7 @@ def unit_limits(
             f"existing unit {unit.name!r}: capacity at balance at the design condenser air as the room air moves",
         )
     return UnitLimits(
+        storage_ceiling=storage_ceiling(room),
         pulldown=simulated,
         coldest_room_temperature_held=coldest,
         coldest_status=status,

@@ -13,7 +13,13 @@ from dataclasses import dataclass
 from typing import Any, Optional, Sequence
 
 from coldroom.errors import CalculationError
-from coldroom.rules import CYCLE_DEFAULTS
+from coldroom.rules import (
+    APPLICATION_CLASSES,
+    CYCLE_DEFAULTS,
+    application_class_of_rating,
+    application_mismatch,
+    suction_class,
+)
 from coldroom.results import Note, Phrase
 from coldroom.results import inline_term as _n
 
@@ -269,6 +275,7 @@ class RatedPointCompressor:
     notes: tuple[Phrase, ...] = ()
     model: str = "rated point"
     envelope: Optional[Envelope] = None
+    application: Optional[str] = None
 
     @classmethod
     def from_rating(
@@ -285,6 +292,7 @@ class RatedPointCompressor:
         clearance: float = CYCLE_DEFAULTS.clearance,
         isentropic_efficiency: float = CYCLE_DEFAULTS.isentropic_efficiency,
         operating: OperatingConditions = OperatingConditions(),
+        application: Optional[str] = None,
     ) -> "RatedPointCompressor":
         """Infer the compressor from one rated point.
 
@@ -311,6 +319,9 @@ class RatedPointCompressor:
             Used when the power is not given [-] (default as *clearance*).
         operating : OperatingConditions
             The project's superheats and subcooling.
+        application : str, optional
+            ``"LT"``, ``"MT"`` or ``"HT"`` (:data:`coldroom.rules.APPLICATION_CLASSES`); by default
+            the class of the rating suction (:func:`coldroom.rules.application_class_of_rating`).
 
         Raises
         ------
@@ -395,7 +406,15 @@ class RatedPointCompressor:
             rated_capacity=capacity,
             operating=operating,
             notes=tuple(notes),
+            application=application or application_class_of_rating(evaporating_temperature),
         )
+
+    def application_mismatch(self, suction_dew: float, design: bool = False) -> Optional[str]:
+        """Why the unit is not suitable at this suction [°C] (outside its application class), or ``None``.
+
+        *design*: the suction is the system's design SST rather than a balance point (the same test here).
+        """
+        return None if self.application is None else application_mismatch(self.application, suction_dew)
 
     def performance(
         self, suction_dew: float, discharge_dew: float, *, check_envelope: bool = True, discharge: bool = True
@@ -586,6 +605,30 @@ class PolynomialCompressor:
         return CompressorPoint(
             suction_dew, discharge_dew, capacity, power, mass_flow, heat_rejection, t2, p_c / p_e, inside
         )
+
+    @property
+    def application(self) -> str:
+        """The class its envelope makes it [trade]: LT when the envelope stops at −5 °C suction or colder,
+        HT when it starts at −10 °C or warmer, else MT."""
+        if self.envelope.suction_max <= -5.0:
+            return "LT"
+        return "HT" if self.envelope.suction_min >= -10.0 else "MT"
+
+    def application_mismatch(self, suction_dew: float, design: bool = False) -> Optional[str]:
+        """Why the unit is not suitable for a system whose design SST is *suction_dew* [°C], or ``None``.
+
+        A polynomial's envelope is its application range: at a balance point (``design`` false) the
+        check's envelope test decides (no capacity outside it), so this says nothing; a design suction
+        outside the envelope's suction range (no tolerance) makes the unit the wrong class for the job,
+        wherever its balance would drift to.
+        """
+        if not design or self.envelope.suction_min <= suction_dew <= self.envelope.suction_max:
+            return None
+        words = APPLICATION_CLASSES[self.application][2]
+        needed = APPLICATION_CLASSES[suction_class(suction_dew)][2]
+        if needed == words:
+            return f"{words} unit at a design suction outside its envelope"
+        return f"{words} unit at {needed} suction"
 
     def flags(self, point: CompressorPoint) -> list[str]:
         """Warnings particular to this model at *point*."""

@@ -68,9 +68,9 @@ class CheckResult:
     margin_percent : float or None
         (capacity / required − 1)·100 [%].
     holds : bool
-        True when the capacity at balance covers the required capacity.
+        True when the unit is suitable and the capacity at balance covers the required capacity.
     within_envelope : bool
-        False when the balance lies outside a polynomial's envelope.
+        False when the balance lies outside a polynomial's envelope or the unit's application class.
     max_ambient : float or None
         Highest condenser-air temperature at which the unit still holds [°C]
         (None when it holds over the whole search range, or nowhere in it —
@@ -89,6 +89,9 @@ class CheckResult:
         Unit capacity at balance at each chart ambient [W] (None: no balance or outside envelope).
     chart_load : tuple of float
         Required capacity of the room at each chart ambient [W].
+    not_suitable : str or None
+        Why the unit is not suitable here (outside its application class, e.g. "medium-temperature
+        unit at low-temperature suction"); ``None`` when it is. Such a unit never holds.
     """
 
     name: str
@@ -122,10 +125,13 @@ class CheckResult:
     chart_ambient: tuple[float, ...] = ()
     chart_capacity: tuple[Optional[float], ...] = ()
     chart_load: tuple[float, ...] = ()
+    not_suitable: Optional[str] = None
 
     @property
     def verdict_word(self) -> str:
-        """``"HOLDS"``, ``"DOES NOT HOLD"`` or ``"NOT RATED"`` (the one wording every report uses)."""
+        """``"HOLDS"``, ``"DOES NOT HOLD"``, ``"NOT RATED"`` or ``"NOT SUITABLE"`` (the one wording every report uses)."""
+        if self.not_suitable is not None:
+            return "NOT SUITABLE"
         if self.capacity_at_balance is None and not self.within_envelope:
             return "NOT RATED"
         return "HOLDS" if self.holds else "DOES NOT HOLD"
@@ -133,6 +139,8 @@ class CheckResult:
     @property
     def verdict_detail(self) -> str:
         """Why, in a few words: the margin, or what stopped the rating."""
+        if self.not_suitable is not None:
+            return self.not_suitable
         if self.capacity_at_balance is None:
             if not self.within_envelope:
                 return "outside the compressor envelope"
@@ -141,7 +149,9 @@ class CheckResult:
 
     @property
     def verdict(self) -> str:
-        """One line: holds / does not hold / cannot be rated, and why."""
+        """One line: holds / does not hold / cannot be rated / not suitable, and why."""
+        if self.not_suitable is not None:
+            return f"NOT SUITABLE: {self.not_suitable}"
         if self.capacity_at_balance is None:
             if not self.within_envelope:
                 return f"{self.verdict_word} for these conditions (balance {self.verdict_detail})"
@@ -167,6 +177,8 @@ class CheckResult:
             "verdict": self.verdict,
             "holds": self.holds,
             "within_envelope": self.within_envelope,
+            "suitable": self.not_suitable is None,
+            "not_suitable_reason": self.not_suitable,
             "room_temperature_c": self.room_temperature,
             "ambient_temperature_c": self.ambient_temperature,
             "balance_evaporating_temperature_c": self.balance_evaporating,
@@ -236,6 +248,7 @@ def check_unit(
     chart_ambients: Sequence[float] = CHART_AMBIENTS,
     search_max_ambient: bool = True,
     name: str = "existing unit",
+    design_suction: Optional[float] = None,
 ) -> CheckResult:
     """The verdict on one unit for one room.
 
@@ -262,6 +275,9 @@ def check_unit(
         Ambients of the chart [°C] (empty: no chart).
     search_max_ambient : bool
         Search the highest ambient at which the unit holds (1-D, to 0.1 K).
+    design_suction : float, optional
+        The system's design SST at the compressor [°C]: a unit whose application class (or
+        envelope) does not include it is not suitable, wherever its balance point lands.
 
     Returns
     -------
@@ -281,7 +297,7 @@ def check_unit(
             bp, point = solve_balance(compressor, evaporator, condenser, room_temperature, ambient, guess)
         except CalculationError:
             return None, guess
-        if not point.within_envelope:
+        if not point.within_envelope or not_suitable is not None or compressor.application_mismatch(bp.suction_dew):
             return None, (bp.suction_dew, bp.discharge_dew)
         return point.capacity, (bp.suction_dew, bp.discharge_dew)
 
@@ -293,9 +309,26 @@ def check_unit(
     except CalculationError as exc:
         warnings.append(_message(exc))
     within = point.within_envelope if point is not None else True
+    # a unit outside its application class never holds, whatever its extrapolated capacity says
+    not_suitable: Optional[str] = None
+    at_suction = design_suction
+    if bp is not None:
+        not_suitable, at_suction = compressor.application_mismatch(bp.suction_dew), bp.suction_dew
+    if not_suitable is None and design_suction is not None:
+        not_suitable, at_suction = compressor.application_mismatch(design_suction, design=True), design_suction
+    if not_suitable is not None:
+        within = False
+        warnings.append(
+            Note.fill(
+                f"NOT SUITABLE: {not_suitable} (SST {{s}}); its compressor is not built for this "
+                "suction (pressure ratio, discharge temperature, motor cooling), so no capacity is credited",
+                s=(at_suction, "temperature"),
+            )
+        )
     capacity = point.capacity if (point is not None and within and point.capacity > 0) else None
     if point is not None:
-        warnings += compressor.flags(point)
+        if not_suitable is None:  # the not-suitable warning already says what a rated point's flag would
+            warnings += compressor.flags(point)
         t2 = point.discharge_temperature
         too_hot = None if t2 is None else discharge_temperature_warning(t2, compressor.refrigerant)
         if too_hot is not None:
@@ -380,4 +413,5 @@ def check_unit(
         chart_ambient=tuple(ambients),
         chart_capacity=tuple(chart_capacity),
         chart_load=tuple(chart_load),
+        not_suitable=not_suitable,
     )

@@ -169,7 +169,7 @@ def compare_rows(comparison: Any, system: str) -> tuple[list[str], list[list[str
     """Headers and rows of the options table (terminal and PDF share them): one row per option."""
     base = comparison.options[0]
     headers = [
-        "option", "refrigerant (class)", "design capacity", "compressor input", "kWh/year", "cost/year",
+        "option", "feasible", "refrigerant (class)", "design capacity", "compressor input", "kWh/year", "cost/year",
         "charge", "GWP", "TEWI t CO2e (direct + indirect)", "vs base: cost/year", "vs base: TEWI t",
     ]
     rows = []
@@ -186,6 +186,8 @@ def compare_rows(comparison: Any, system: str) -> tuple[list[str], list[list[str
         )
         if o is base:
             d_cost = d_tewi = "–"
+        elif not o.feasible:  # never read as better: it cannot be built as written
+            d_cost = d_tewi = "n/a: not feasible"
         else:
             d_cost = f"{o.annual_cost - base.annual_cost:+,.0f} {cur}"
             d_tewi = (
@@ -193,6 +195,7 @@ def compare_rows(comparison: Any, system: str) -> tuple[list[str], list[list[str
             )
         rows.append([
             o.name,
+            "yes" if o.feasible else f"NO ({len(o.blocking)} blocking)",
             refrigerants,
             display(o.design_capacity, "power_large", system) if system == "SI" else display(o.design_capacity, "power", system),
             display(o.compressor_input_power, "power_large", "SI"),
@@ -234,14 +237,20 @@ def compare_text(comparison: Any, system: str) -> str:
         "",
     ]
     headers, rows = compare_rows(comparison, system)
-    lines.append(table(headers, rows, "llrrrrrrrrr"))
-    notes = [f"{o.name}: {o.note}" for o in comparison.options if o.note and o.name != "base"]
+    lines.append(table(headers, rows, "lllrrrrrrrrr"))
+    notes = blocking_notes(comparison)
+    notes += [f"{o.name}: {o.note}" for o in comparison.options if o.note and o.name != "base"]
     notes += charge_notes(comparison)
     for o in comparison.options:
         notes.extend(f"warning: {o.name}: {w}" for w in o.warnings)
     if notes:
         lines += [""] + notes
     return "\n".join(lines)
+
+
+def blocking_notes(comparison: Any) -> list[str]:
+    """One line per reason an option cannot be built as written (terminal and PDF share them)."""
+    return [f"NOT FEASIBLE: {o.name}: {reason}" for o in comparison.options for reason in o.blocking]
 
 
 def charge_notes(comparison: Any) -> list[str]:

@@ -82,6 +82,14 @@ class ChargeSettings(Strict):
         "wins over the estimate; with total given as well they must agree within 1 %.",
     )
 
+    measures: list[Name] = Field(
+        default_factory=list,
+        max_length=20,
+        description="Measures taken for a charge over the room limit (EN 378-3: gas detection and alarm, "
+        "mechanical ventilation, ...); with them a charge 'over - measures needed' does not block an option in "
+        "compare.",
+    )
+
     @model_validator(mode="after")
     def _parts_agree(self) -> "ChargeSettings":
         if self.parts and self.total is not None:
@@ -219,6 +227,11 @@ class RatedPoint(Strict):
     subcooling: Q("temperature_difference", ge=0.0, le=30.0) = 0.0  # type: ignore[valid-type]
     power: Optional[Rating] = None  # type: ignore[valid-type]
     swept_volume: Optional[Q("volume_flow", gt=0.0, le=1.0)] = None  # type: ignore[valid-type]
+    application: Optional[Literal["LT", "MT", "HT"]] = Field(
+        default=None,
+        description="Application class (LT -45…-15 °C, MT -20…+10 °C, HT -5…+15 °C saturated suction); by default "
+        "from the rating suction (-20 °C or colder LT, to 0 °C MT, else HT). Outside it the unit is not suitable.",
+    )
 
     @model_validator(mode="after")
     def _check(self) -> "RatedPoint":

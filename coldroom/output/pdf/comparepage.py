@@ -23,7 +23,7 @@ from coldroom.output.pdf.cautions_section import people_cautions, refrigerant_ca
 from coldroom.output.pdf.layout import CELL_SMALL, H1, SMALL, TINY, document, grid, heading, note
 from coldroom.output.pdf.page_frame import canvas_maker
 from coldroom.output.pdf.text import clean, temperature
-from coldroom.output.terminal import charge_notes, compare_rows
+from coldroom.output.terminal import blocking_notes, charge_notes, compare_rows
 
 
 def _basis_rows(comparison: Any, system: str = "SI") -> list[list[str]]:
@@ -88,9 +88,12 @@ def render_compare(comparison: Any, system: str, meta: dict) -> bytes:
     story.append(grid(basis, [width * 0.2, width * 0.8], style=CELL_SMALL))
     story.append(heading("Base and options"))
     headers, rows = compare_rows(comparison, system)
-    fractions = [0.11, 0.1, 0.075, 0.075, 0.07, 0.08, 0.07, 0.05, 0.135, 0.095, 0.08]
+    fractions = [0.1, 0.07, 0.1, 0.07, 0.07, 0.065, 0.075, 0.065, 0.05, 0.13, 0.09, 0.08]
     story.append(grid([headers] + rows, [width * f / sum(fractions) for f in fractions],
-                      align_right=range(2, 11), style=CELL_SMALL))
+                      align_right=range(3, 12), style=CELL_SMALL))
+    blocking = blocking_notes(comparison)
+    if blocking:  # page 1 carries every blocking verdict
+        story += [note(text, SMALL) for text in blocking]
     story.append(note(
         "Design capacity: sum of the rooms' design capacities (as on the sizing sheet). Compressor input: electrical, "
         "at the design condition. kWh/year: compressor, fans, defrost and other (heaters, lights) over the ambient "
