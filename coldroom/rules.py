@@ -15,6 +15,7 @@ it without an import circle.
   (:data:`DISCHARGE_LIMITS`, :func:`discharge_temperature_limit`) [trade].
 * The application classes of compressors (:data:`APPLICATION_CLASSES`,
   :func:`application_mismatch`) [trade].
+* The condenser air over a year (:func:`condenser_air_at`, :func:`condenser_air_basis`) [trade].
 * The condenser-air range searched by the existing-unit check
   (:data:`AMBIENT_SWEEP`).
 * The capacity that removes a daily heat gain: the safety factor
@@ -429,6 +430,34 @@ def discharge_temperature_warning(discharge_temperature: float, refrigerant: str
         "two stages",
         t=(discharge_temperature, "temperature"), lim=(limit, "temperature"),
     )
+
+
+# --------------------------------------------------------------------------- condenser air over a year
+
+#: ``condenser_air_basis`` values (JSON contract).
+CONDENSER_AIR_FOLLOWS = "follows outdoor air"
+CONDENSER_AIR_FIXED = "fixed (indoors)"
+
+
+def condenser_air_basis(location: str) -> str:
+    """How the condenser air moves over a year: ``"follows outdoor air"`` or ``"fixed (indoors)"``."""
+    return CONDENSER_AIR_FIXED if location == "indoors" else CONDENSER_AIR_FOLLOWS
+
+
+def condenser_air_at(
+    outdoor_temperature: float, design_outdoor_temperature: float, design_condenser_air: float, location: str
+) -> float:
+    """The air on the condenser [°C] when the outdoor air is *outdoor_temperature* [°C].
+
+    Outdoors it keeps its design-day offset above the outdoor air (a roof or yard that runs warmer
+    than the weather station stays so); indoors it stays at its design value [trade].
+
+    >>> condenser_air_at(10.0, 30.0, 35.0, "outdoors"), condenser_air_at(10.0, 30.0, 35.0, "indoors")
+    (15.0, 35.0)
+    """
+    if location == "indoors":
+        return design_condenser_air
+    return outdoor_temperature + (design_condenser_air - design_outdoor_temperature)
 
 
 # --------------------------------------------------------------------------- ambient sweep

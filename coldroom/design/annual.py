@@ -10,9 +10,11 @@ For every system and every ambient bin (:mod:`coldroom.inputs.weather`; an EPW f
    air change. The loads are computed on a 5 K grid of ambients that includes
    the design dry bulb and interpolated linearly in between [trade]; a room
    that loses heat to a cold outside counts zero (no heating);
-2. the heat rejection: a condenser with ``condenser_air_temperature`` given
-   (a plant room) keeps the design condensing temperature; otherwise the
-   condensing temperature floats with the ambient, bin + condenser TD, down to
+2. the heat rejection: the condenser air follows the weather, keeping its design-day offset
+   above the outdoor design temperature (``condenser_air_temperature`` is the design day's);
+   with ``condenser_location: indoors`` (a plant room) it stays fixed and so does the design
+   condensing temperature. Outdoors the
+   condensing temperature floats with the air, + condenser TD, down to
    ``minimum_condensing_temperature`` (default 25 °C [trade]); R-744 past the
    transcritical boundary rejects heat in a gas cooler (outlet = ambient +
    approach; :func:`coldroom.design.sizing.heat_rejection_temperatures`);
@@ -88,6 +90,8 @@ class SystemYear:
         Hours in the year when the design unit cannot keep up [h].
     heating_hours : float
         Hours when a room loses more heat to the cold outside than it gains [h].
+    condenser_air_basis : str
+        ``"follows outdoor air"`` or ``"fixed (indoors)"`` (:func:`coldroom.rules.condenser_air_basis`).
     """
 
     name: str
@@ -101,6 +105,7 @@ class SystemYear:
     gwp: float
     hours_short: float
     heating_hours: float
+    condenser_air_basis: str = "follows outdoor air"
 
 
 @dataclass(frozen=True)
@@ -204,6 +209,7 @@ class OptionYear:
                     "gwp": float(s.gwp),
                     "unit_short_time_h": s.hours_short,
                     "heat_loss_time_h": s.heating_hours,
+                    "condenser_air_basis": s.condenser_air_basis,
                 }
                 for s in self.systems
             ],
@@ -327,6 +333,7 @@ def system_year(
     """One system over the year: (SystemYear, its SystemDesign, warnings)."""
     from coldroom.design import systems as _systems
     from coldroom.design.sizing import member_draw, design_system, heat_rejection_temperatures
+    from coldroom.rules import condenser_air_at, condenser_air_basis
 
     d = design_system(model, name, indices, diversity)
     r = d.settings[0]
@@ -347,7 +354,7 @@ def system_year(
                 e = 0.0
             gains[k] += e / SECONDS_PER_DAY_S  # W
     # 2. heat rejection per bin
-    indoor = r.condenser_air_temperature is not None
+    indoor = r.condenser_location == "indoors"
     td = d.temps[0].condenser_td
     design_key = (d.info.name, d.coils, r.subcooling, r.isentropic_efficiency, r.suction_line_superheat,
                   r.suction_line_drop, r.clearance)
@@ -355,7 +362,7 @@ def system_year(
     def rejection(ambient: float) -> tuple[Optional[float], Optional[float]]:
         if indoor:
             return d.condensing, d.gas_cooler
-        air = ambient
+        air = condenser_air_at(ambient, design_t, d.air, r.condenser_location)  # the design offset kept
         return heat_rejection_temperatures(
             d.info.name, max(air + td, r.minimum_condensing_temperature), air, r.gas_cooler_approach
         )
@@ -467,6 +474,7 @@ def system_year(
             gwp=info.gwp_ar4,
             hours_short=short,
             heating_hours=heat_loss_hours,
+            condenser_air_basis=condenser_air_basis(r.condenser_location),
         ),
         d,
         tuple(warnings),

@@ -309,15 +309,15 @@ def _design_unit_pulldown(
         capacity,
         f"design unit: {loads.design_capacity:.0f} W at evaporating {temps.evaporating_temperature:.1f} °C, "
         f"same compressor displacement as the room air moves (evaporator TD {temps.evaporator_td:g} K)",
+        unit="design",
     )
     if pulldown is None or pulldown.met:
         return pulldown, ()
-    g = pulldown.governing
-    assert g is not None and g.asked_time is not None
-    reached = "is not reached" if g.time_to_final is None else f"takes {g.time_to_final / 3600:.1f} h"
-    return pulldown, (
-        f"{room.name}: pull-down: {g.name} to its final temperature {reached} with the design unit, "
-        f"more than the {g.asked_time / 3600:g} h asked",
+    return pulldown, tuple(
+        f"{room.name}: pull-down: {p.name} to its final temperature "
+        + ("is not reached" if p.time_to_final is None else f"takes {p.time_to_final / 3600:.1f} h")
+        + f" with the design unit, more than the {(p.asked_time or 0.0) / 3600:g} h asked for it"
+        for p in pulldown.missed()
     )
 
 

@@ -273,7 +273,7 @@ def margin(model: "ProjectModel", index: int) -> float:
     then treats it as a room the unit does not hold.
     """
     check = _check_or_none(model, index)
-    if check is None or check.capacity_at_balance is None or check.margin_percent is None:
+    if check is None or check.capacity_at_balance is None or check.margin_percent is None or check.not_suitable:
         return -1.0
     return check.margin_percent / 100.0
 
@@ -289,6 +289,9 @@ def _check_or_none(model: "ProjectModel", index: int) -> Any:
 
 
 def _unit_suction_floor(room: "Room") -> Optional[float]:
+    """The unit's rating suction or envelope floor [°C]; ``None`` when it is not a medium-temperature unit."""
+    from coldroom.rules import application_class_of_rating
+
     unit = room.existing_unit
     if unit is None:
         return None
@@ -297,7 +300,10 @@ def _unit_suction_floor(room: "Room") -> Optional[float]:
     if unit.rating_table is not None:
         return unit.rating_table.evaporating_temperatures[0]
     assert unit.rated_point is not None
-    return unit.rated_point.evaporating_temperature
+    r = unit.rated_point
+    if (r.application or application_class_of_rating(r.evaporating_temperature)) == "LT":
+        return None  # declared (or rated as) a low-temperature unit
+    return r.evaporating_temperature
 
 
 def medium_at_low_message(room: "Room", design_evaporating: float) -> Optional[Note]:
@@ -442,6 +448,7 @@ def unit_limits(
         simulated = room_pulldown(
             model, room, existing_unit_capacity(model, index),
             f"existing unit {unit.name!r}: capacity at balance at the design condenser air as the room air moves",
+            unit="existing",
         )
     return UnitLimits(
         storage_ceiling=storage_ceiling(room),

@@ -227,6 +227,12 @@ def solve_balance(
     return bp, point
 
 
+def _mismatch(compressor: Compressor, suction_dew: float, design: bool = False) -> Optional[str]:
+    """The compressor's application mismatch at this suction [°C]; a model without classes has none."""
+    ask = getattr(compressor, "application_mismatch", None)
+    return None if ask is None else ask(suction_dew, design=design)
+
+
 def _message(error: Exception) -> str:
     """The error's message, keeping a :class:`Note` (SI numbers, shown in the report's units) as it is."""
     first = error.args[0] if error.args else ""
@@ -297,7 +303,7 @@ def check_unit(
             bp, point = solve_balance(compressor, evaporator, condenser, room_temperature, ambient, guess)
         except CalculationError:
             return None, guess
-        if not point.within_envelope or not_suitable is not None or compressor.application_mismatch(bp.suction_dew):
+        if not point.within_envelope or not_suitable is not None or _mismatch(compressor, bp.suction_dew):
             return None, (bp.suction_dew, bp.discharge_dew)
         return point.capacity, (bp.suction_dew, bp.discharge_dew)
 
@@ -313,9 +319,9 @@ def check_unit(
     not_suitable: Optional[str] = None
     at_suction = design_suction
     if bp is not None:
-        not_suitable, at_suction = compressor.application_mismatch(bp.suction_dew), bp.suction_dew
+        not_suitable, at_suction = _mismatch(compressor, bp.suction_dew), bp.suction_dew
     if not_suitable is None and design_suction is not None:
-        not_suitable, at_suction = compressor.application_mismatch(design_suction, design=True), design_suction
+        not_suitable, at_suction = _mismatch(compressor, design_suction, design=True), design_suction
     if not_suitable is not None:
         within = False
         warnings.append(

@@ -60,9 +60,22 @@ THERMOSTAT_BAND = 1.0
 #: A product is at its final temperature within this much of it [K] [trade].
 FINAL_TOLERANCE = 0.5
 #: Default half-cooling time of product in a cold room with the unit
-#: cooler's air movement [s]: 3 h (cartons and crates room-cooled; forced-air
-#: cooling is faster, stacked pallets slower — common practice, no source).
+#: cooler's air movement [s]: 3 h, for product whose pack is not described
+#: (common practice, no source).
 DEFAULT_HALF_COOLING_TIME = 3.0 * 3600.0
+#: Half-cooling time by pack type, room-cooled with the unit cooler's air movement, for a
+#: pack of :data:`REFERENCE_PACK_MASS` [s] (common practice, no source [trade]: forced-air
+#: cooling is several times faster, a wrapped pallet cools as one block):
+PACK_HALF_COOLING_TIMES: dict[str, float] = {
+    "loose": 2.0 * 3600.0,  # unpacked, on shelves, hooks or open trays
+    "crate": 3.0 * 3600.0,  # open or vented crate (plastic, wood)
+    "carton": 6.0 * 3600.0,  # closed corrugated carton
+    "pallet": 18.0 * 3600.0,  # cartons stacked and wrapped on a pallet (not scaled by pack mass)
+}
+#: The pack mass the table is for [kg] [trade].
+REFERENCE_PACK_MASS = 10.0
+#: Pack type assumed from the packaging material when none is given [trade].
+PACK_OF_MATERIAL = {"corrugated_board": "carton", "wood": "crate", "plastic": "crate"}
 #: Packaging cools this many times faster than the product it holds [-] [trade].
 PACKAGING_SPEED = 3.0
 #: Inner panel skin: 0.5 mm steel, 7850 kg/m³, 460 J/(kg·K) (steel properties
@@ -165,6 +178,10 @@ class PulldownResult:
         The room air's lowest temperature during the simulation [°C].
     basis : str
         Where the capacity came from, and the model's assumptions.
+    set_point : float or None
+        The thermostat set point [°C].
+    unit : str
+        Which unit's capacity was used: ``"design"``, ``"selected"`` or ``"existing"`` (empty: not said).
     """
 
     time: tuple[float, ...]
@@ -173,6 +190,33 @@ class PulldownResult:
     duration: float
     lowest_air_temperature: float
     basis: str = ""
+    set_point: Optional[float] = None
+    unit: str = ""
+
+    @property
+    def highest_air_temperature(self) -> float:
+        """The room air's highest temperature after the delivery [°C] (at the report steps)."""
+        return max(self.air_temperature)
+
+    def hours_above(self, temperature: float) -> float:
+        """Hours the room air spends above *temperature* [°C] (linear between the report steps)."""
+        total = 0.0
+        pairs = zip(zip(self.time, self.air_temperature), zip(self.time[1:], self.air_temperature[1:]))
+        for (t0, a), (t1, b) in pairs:
+            if a > temperature and b > temperature:
+                total += t1 - t0
+            elif a > temperature or b > temperature:  # one crossing inside the step
+                total += (t1 - t0) * (max(a, b) - temperature) / abs(b - a)
+        return total / 3600.0
+
+    @property
+    def hours_above_setpoint_plus_2k(self) -> Optional[float]:
+        """Hours the room air is more than 2 K above the set point after the delivery [h]."""
+        return None if self.set_point is None else self.hours_above(self.set_point + 2.0)
+
+    def missed(self) -> tuple[ProductTrace, ...]:
+        """The products that miss their own asked time."""
+        return tuple(p for p in self.products if not p.met)
 
     @property
     def governing(self) -> Optional[ProductTrace]:
@@ -198,7 +242,10 @@ class PulldownResult:
         g = self.governing
         return {
             "time_to_final_temperature_h": self.hours_to_final,
+            "unit": self.unit or None,
             "lowest_room_air_temperature_c": self.lowest_air_temperature,
+            "highest_room_air_temperature_c": self.highest_air_temperature,
+            "hours_above_setpoint_plus_2k": self.hours_above_setpoint_plus_2k,
             "time_h": [t / 3600.0 for t in self.time],
             "product_temperature_c": list(g.temperature) if g is not None else [],
             "room_air_temperature_c": list(self.air_temperature),
@@ -498,6 +545,7 @@ def simulate(
         duration=duration,
         lowest_air_temperature=float(min(air)),
         basis=basis,
+        set_point=set_point,
     )
 
 
@@ -512,6 +560,41 @@ def half_cooling_conductance(mass: float, specific_heat: float, half_cooling_tim
     231.05
     """
     return math.log(2.0) * mass * specific_heat / half_cooling_time
+
+
+def product_half_cooling_time(item: Any) -> tuple[float, str]:
+    """A product's half-cooling time [s] and where it came from.
+
+    ``half_cooling_time`` given wins; else its packaging's pack type (``packaging.pack``, or the
+    one its material implies, :data:`PACK_OF_MATERIAL`) from :data:`PACK_HALF_COOLING_TIMES`
+    [trade], scaled by (pack mass ÷ :data:`REFERENCE_PACK_MASS`)^(1/3) when ``packaging.pack_mass``
+    is given: for geometrically similar packs t½ = ln 2·m·c/(h·A) with A ∝ m^(2/3) (lumped
+    capacitance [ref:incropera-dewitt] [mem]); else :data:`DEFAULT_HALF_COOLING_TIME`.
+
+    Examples
+    --------
+    >>> from types import SimpleNamespace as N
+    >>> product_half_cooling_time(N(half_cooling_time=7200.0, packaging=None))[0]
+    7200.0
+    >>> pack = N(pack="carton", pack_mass=80.0, material="corrugated_board", mass=1.0)
+    >>> round(product_half_cooling_time(N(half_cooling_time=None, packaging=pack))[0] / 3600, 1)
+    12.0
+    """
+    given = getattr(item, "half_cooling_time", None)
+    if given is not None:
+        return given, "given"
+    pack = item.packaging
+    kind = None
+    if pack is not None:
+        kind = getattr(pack, "pack", None) or PACK_OF_MATERIAL.get(pack.material)
+    if kind is None:
+        return DEFAULT_HALF_COOLING_TIME, "pack not described [trade]"
+    t = PACK_HALF_COOLING_TIMES[kind]
+    size = getattr(pack, "pack_mass", None)
+    if size is not None and kind != "pallet":
+        t *= (size / REFERENCE_PACK_MASS) ** (1.0 / 3.0)
+        return t, f"{kind}, {size:g} kg packs [trade]"
+    return t, f"{kind} [trade]"
 
 
 def _steady_load(model: "ProjectModel", room: "Room") -> Callable[[float], float]:
@@ -547,13 +630,15 @@ def _reference_specific_heat(properties: Any, temperature: float) -> float:
     return properties.enthalpy(temperature) - properties.enthalpy(temperature - 1.0)
 
 
-def room_masses(room: "Room", half_cooling_time: float = DEFAULT_HALF_COOLING_TIME) -> list[ThermalMass]:
+def room_masses(room: "Room", half_cooling_time: Optional[float] = None) -> list[ThermalMass]:
     """The lumped masses of *room* just after a delivery.
 
     The delivery is the largest of the schedule's deliveries (else the whole daily
     intake), shared among the products in proportion to their intake; its packaging
     comes with it; the stored product and, when ``pulldown.panel_skin`` is set, the
-    panels' inner skin start at the set point.
+    panels' inner skin start at the set point. Each product cools with its own
+    half-cooling time (:func:`product_half_cooling_time`) unless *half_cooling_time* [s]
+    is given for all.
     """
     from coldroom.loads import product_properties
     from coldroom.loads.product import packaging_specific_heat
@@ -567,6 +652,7 @@ def room_masses(room: "Room", half_cooling_time: float = DEFAULT_HALF_COOLING_TI
     for item in room.products:
         properties, _respiration, label = product_properties(item)
         label = label.replace("_", " ")
+        own = product_half_cooling_time(item)[0] if half_cooling_time is None else half_cooling_time
         if item.daily_intake > 0:
             assert item.entering_temperature is not None and item.final_temperature is not None
             m = item.daily_intake * share
@@ -575,7 +661,7 @@ def room_masses(room: "Room", half_cooling_time: float = DEFAULT_HALF_COOLING_TI
                 ThermalMass(
                     label,
                     m,
-                    half_cooling_conductance(m, c, half_cooling_time),
+                    half_cooling_conductance(m, c, own),
                     item.entering_temperature,
                     enthalpy=properties.enthalpy,
                     final_temperature=item.final_temperature,
@@ -592,7 +678,7 @@ def room_masses(room: "Room", half_cooling_time: float = DEFAULT_HALF_COOLING_TI
                     ThermalMass(
                         f"{label} packaging",
                         mp,
-                        half_cooling_conductance(mp, cp, half_cooling_time / PACKAGING_SPEED),
+                        half_cooling_conductance(mp, cp, own / PACKAGING_SPEED),
                         item.entering_temperature,
                         specific_heat=cp,
                     )
@@ -603,7 +689,7 @@ def room_masses(room: "Room", half_cooling_time: float = DEFAULT_HALF_COOLING_TI
                 ThermalMass(
                     f"{label} stored",
                     item.stored_mass,
-                    half_cooling_conductance(item.stored_mass, c, half_cooling_time),
+                    half_cooling_conductance(item.stored_mass, c, own),
                     room.temperature,
                     enthalpy=properties.enthalpy,
                 )
@@ -631,7 +717,7 @@ def simulated_time(room: "Room") -> float:
 
 
 def room_pulldown(
-    model: "ProjectModel", room: "Room", capacity: Callable[[float], float], basis: str
+    model: "ProjectModel", room: "Room", capacity: Callable[[float], float], basis: str, unit: str = ""
 ) -> Optional[PulldownResult]:
     """Simulate the pull-down after a delivery in *room* with a unit of *capacity*.
 
@@ -643,6 +729,8 @@ def room_pulldown(
         Unit capacity [W] at a room air temperature [°C].
     basis : str
         Where the capacity comes from (printed with the result).
+    unit : str
+        ``"design"``, ``"selected"`` or ``"existing"``: the unit whose capacity is used.
 
     Returns
     -------
@@ -652,14 +740,21 @@ def room_pulldown(
     if not any(p.daily_intake > 0 for p in room.products):
         return None
     masses = room_masses(room)
+    halves = []
+    for item in room.products:
+        if item.daily_intake > 0:
+            t, origin = product_half_cooling_time(item)
+            name = (item.product or "product").replace("_", " ")
+            halves.append(f"{name} {t / 3600:.3g} h ({origin})")
     text = (
         f"{basis}; room air, product (food enthalpy, freezing included), packaging"
         + (", panel inner skin" if room.pulldown.panel_skin else "")
-        + f" as lumped masses, half-cooling time {DEFAULT_HALF_COOLING_TIME / 3600:g} h (packaging "
-        f"{PACKAGING_SPEED:g}× faster) [trade]; steady loads at their averages, defrost off; "
-        f"final temperature reached within {FINAL_TOLERANCE:g} K; Rosenbrock 2(3) integrator"
+        + f" as lumped masses; half-cooling time {', '.join(halves)}, packaging "
+        f"{PACKAGING_SPEED:g}× faster; thermostat: proportional band {THERMOSTAT_BAND:g} K centred on the set "
+        f"point (the air settles up to {THERMOSTAT_BAND / 2:g} K below it) [trade]; steady loads at their "
+        f"averages, defrost off; final temperature reached within {FINAL_TOLERANCE:g} K; Rosenbrock 2(3) integrator"
     )
-    return simulate(
+    result = simulate(
         AIR_HEAT_CAPACITY_PER_VOLUME * room.inside_volume,
         masses,
         capacity,
@@ -669,3 +764,6 @@ def room_pulldown(
         duration=simulated_time(room),
         basis=text,
     )
+    from dataclasses import replace
+
+    return replace(result, unit=unit)

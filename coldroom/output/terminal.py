@@ -239,6 +239,7 @@ def compare_text(comparison: Any, system: str) -> str:
     headers, rows = compare_rows(comparison, system)
     lines.append(table(headers, rows, "lllrrrrrrrrr"))
     notes = blocking_notes(comparison)
+    notes += [condenser_air_note(comparison)]
     notes += [f"{o.name}: {o.note}" for o in comparison.options if o.note and o.name != "base"]
     notes += charge_notes(comparison)
     for o in comparison.options:
@@ -246,6 +247,25 @@ def compare_text(comparison: Any, system: str) -> str:
     if notes:
         lines += [""] + notes
     return "\n".join(lines)
+
+
+def condenser_air_note(comparison: Any) -> str:
+    """How the condenser air moves over the year, per system (each option's systems share the project's basis)."""
+    by_basis: dict[str, list[str]] = {}
+    for o in comparison.options:
+        for s in o.systems:
+            names = by_basis.setdefault(s.condenser_air_basis, [])
+            if s.name not in names:
+                names.append(s.name)
+    parts = []
+    for basis, names in by_basis.items():
+        how = (
+            "the condensing temperature stays at its design value" if basis.startswith("fixed")
+            else "keeping its design-day offset above the outdoor air; condensing floats down to the minimum "
+            "condensing temperature"
+        )
+        parts.append(f"condenser air {basis} ({', '.join(names)}): {how}")
+    return "; ".join(parts).capitalize() + "." if parts else ""
 
 
 def blocking_notes(comparison: Any) -> list[str]:
@@ -319,12 +339,60 @@ def selection_report(selections: Sequence[object], system: str) -> str:
     return "\n".join(lines).rstrip()
 
 
+def blocking_verdicts(result: Any) -> list:
+    """Every verdict that blocks the job as sized (Notes, SI wording): the sheet's page 1 and the terminal.
+
+    A charge over a charge limit (stated or estimated), an existing unit that does not hold or is not
+    suitable, a pull-down that does not meet a product's asked time (design unit or existing unit).
+    Computes nothing: reads the result.
+    """
+    from coldroom.results import Note
+
+    out: list = []
+    for system in getattr(result, "systems", ()) or ():
+        works = getattr(system, "pipework", None)
+        if works is None:
+            continue
+        how = "stated" if works.charge.stated else "estimated"
+        for limit in works.limits:
+            if limit.verdict == "within":
+                continue
+            out.append(Note.fill(
+                f"{system.name}: {how} charge {{m}} against {limit.rule}: {limit.verdict.upper()} (limit {{lim}})",
+                m=(limit.charge, "mass"), lim=(limit.limit or 0.0, "mass"),
+            ))
+    for room in result.rooms:
+        check = getattr(room, "check", None)
+        if check is not None and not check.holds:
+            out.append(Note(f"{room.name}: existing unit {check.name}: {check.verdict}"))
+        runs = [("design unit", getattr(room, "pulldown", None))]
+        limits = getattr(room, "limits", None)
+        if limits is not None:
+            runs.append(("existing unit", limits.pulldown))
+        for unit, run in runs:
+            if run is None:
+                continue
+            for product in run.products:
+                if product.met:
+                    continue
+                reached = (
+                    f"reaches it in {product.time_to_final / 3600.0:.1f} h" if product.time_to_final is not None
+                    else f"not within {run.duration / 3600.0:.0f} h"
+                )
+                out.append(Note(
+                    f"{room.name}: pull-down NOT MET with the {unit}: {product.name} asked "
+                    f"{(product.asked_time or 0.0) / 3600.0:g} h, {reached}"
+                ))
+    return out
+
+
 def size_summary(result: Any, model: Any) -> str:
     """The terminal summary of ``coldroom size`` (presents the result, computes nothing)."""
     from coldroom.output.pdf.text import capacity, q, temperature
 
     s = result.unit_system
     lines = [f"{result.project_name}  ({result.date}, {s} units)"]
+    lines += [f"BLOCKING: {format_terms(v, s)}" for v in blocking_verdicts(result)]
     for room, room_in in zip(result.rooms, model.rooms):
         loads = room.loads
         lines.append("")
@@ -503,14 +571,16 @@ def check_report(model: Any, checks: Sequence[tuple[RoomLoads, Any]], limits: Op
             )
             pull = limit.pulldown
             if pull is not None:
-                g = pull.governing
                 reached = (
                     f"{pull.hours_to_final:.1f} h" if pull.hours_to_final is not None
                     else f"not within {pull.duration / 3600:g} h"
                 )
-                asked = "" if g is None or g.asked_time is None else f" (asked {g.asked_time / 3600:g} h{'' if pull.met else ', NOT MET'})"
-                lines.append(f"  pull-down after a delivery with this unit: {reached}{asked}; "
-                             f"lowest room air {t(pull.lowest_air_temperature)}")
+                lines.append(f"  pull-down after a delivery with this unit: {reached}; highest room air "
+                             f"{t(pull.highest_air_temperature)}, {pull.hours_above_setpoint_plus_2k:.1f} h more than "
+                             "2 K above the set point")
+                for p in pull.missed():  # each product with its own asked time
+                    got = "not reached" if p.time_to_final is None else f"{p.time_to_final / 3600:.1f} h"
+                    lines.append(f"  pull-down NOT MET: {p.name}: {got}, asked {(p.asked_time or 0.0) / 3600:g} h")
             for sentence in limit.remedies():
                 if sentence is not limit.medium_at_low:
                     lines.append(f"  - {format_terms(sentence, system)}")

@@ -38,11 +38,11 @@ def test_check_demo_prints_the_verdict() -> None:
     assert result.returncode == 0, result.stderr
     out = result.stdout
     assert "Room: Freezer (ex produce cooler)" in out
-    assert "verdict: HOLDS" in out
-    assert "capacity at balance" in out and "kW" in out
-    assert "run time needed" in out and "h/day" in out
-    assert "holds up to a condenser air of" in out
-    assert "WARNING:" in out and "application class" in out
+    # the demo's medium-temperature unit on a freezer: never "HOLDS" (issue 24)
+    assert "verdict: NOT SUITABLE: medium-temperature unit at low-temperature suction" in out
+    assert "capacity at balance" in out
+    assert "WARNING:" in out and "NOT SUITABLE" in out
+    assert "Raise the set point to" not in out
 
 
 def test_check_json_to_stdout() -> None:
@@ -57,7 +57,7 @@ def test_check_json_to_stdout() -> None:
     assert "verdict" in result.stderr
     room = data["rooms"][0]
     unit = room["existing_unit"]
-    assert unit["holds"] is True
+    assert unit["holds"] is False and unit["suitable"] is False and unit["within_envelope"] is False
     for key in ("capacity_at_balance_w", "required_capacity_w", "daily_run_time_needed_h", "margin_percent", "max_ambient_temperature_c",
                 "balance_evaporating_temperature_c", "balance_condensing_temperature_c", "warnings"):
         assert key in unit

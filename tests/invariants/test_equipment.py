@@ -140,7 +140,9 @@ def test_medium_temperature_polynomial_at_freezer_suction_is_flagged_not_extrapo
 
 
 def test_rated_point_far_below_rating_is_flagged() -> None:
-    comp = E.RatedPointCompressor.from_rating("R-448A", 4500.0, -10.0, 45.0, power=2200.0, operating=PROJECT)
+    # declared low-temperature (so the check rates it at −25 °C suction), yet rated at −10 °C: flagged
+    comp = E.RatedPointCompressor.from_rating("R-448A", 4500.0, -10.0, 45.0, power=2200.0, operating=PROJECT,
+                                              application="LT")
     result = E.check_unit(
         comp,
         E.HeatExchanger.from_rating(4000.0, 8.0),

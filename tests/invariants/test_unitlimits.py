@@ -26,6 +26,9 @@ from coldroom.design.unit_limits import unit_limits
 from tests.conftest import PROJECT_FILES
 
 DEMO = load_yaml((PROJECT_FILES / "cooler_to_freezer.yaml").read_bytes(), "demo").data
+# The round trips need a unit that is suitable for the room (a medium-temperature unit on a freezer
+# is "NOT SUITABLE" at any margin): the demo's rated point declared a low-temperature unit.
+DEMO["rooms"][0]["existing_unit"]["rated_point"]["application"] = "LT"
 
 
 def _model(data):
@@ -80,12 +83,24 @@ def test_setting_the_largest_intake_gives_zero_margin(case) -> None:
     assert again.margin_percent == pytest.approx(0.0, abs=2.0)
 
 
-def test_remedies_put_the_medium_temperature_message_first(case) -> None:
+def test_remedies_end_with_the_replacement(case) -> None:
     _data, check, limits = case
     remedies = limits.remedies()
-    assert remedies[0].startswith("This is a medium-temperature unit")
+    assert limits.medium_at_low is None  # declared low-temperature
     assert remedies[-1].startswith(("Or replace it with a unit of", "A replacement needs a unit of"))
     if not check.holds:
-        assert any(r.startswith("Raise the set point to") for r in remedies)
+        # the set point may rise only to the products' highest recommended storage temperature
+        assert any(r.startswith(("Raise the set point to", "Raising the set point is no remedy")) for r in remedies)
         assert any(r.startswith("Or cut the intake to") for r in remedies)
     assert limits.replacement_capacity > check.required_capacity * 0.99
+
+
+def test_the_demo_as_written_puts_the_medium_temperature_message_first() -> None:
+    data = load_yaml((PROJECT_FILES / "cooler_to_freezer.yaml").read_bytes(), "demo").data
+    model = _model(data)
+    loads = room_loads(model, model.rooms[0])
+    check = check_room(model, model.rooms[0], loads, chart=False)
+    assert check.verdict == "NOT SUITABLE: medium-temperature unit at low-temperature suction"
+    remedies = unit_limits(model, 0, loads, check.holds).remedies()
+    assert remedies[0].startswith("This is a medium-temperature unit")
+    assert not any(r.startswith("Raise the set point to") for r in remedies)  # frozen food stays frozen

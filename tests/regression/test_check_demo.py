@@ -40,27 +40,37 @@ def check():  # type: ignore[no-untyped-def]
 
 
 def test_demo_verdict_is_pinned(check) -> None:  # type: ignore[no-untyped-def]
+    """The demo's MT unit on a freezer is NOT SUITABLE (issue 24): no capacity is credited; the balance and
+    the compressor model at it stay pinned."""
+    from coldroom.design.existing import build_compressor
+    from coldroom.inputs.opening import open_project
+
     data = check.to_json()
-    for key, value in PINS.items():
-        assert data[key] == pytest.approx(value, rel=1e-4, abs=1e-4), key
-    assert data["holds"] is True
-    assert data["within_envelope"] is True
+    for key in ("balance_evaporating_temperature_c", "balance_condensing_temperature_c", "required_capacity_w"):
+        assert data[key] == pytest.approx(PINS[key], rel=1e-4, abs=1e-4), key
+    assert data["holds"] is False and data["suitable"] is False
+    assert data["verdict"] == "NOT SUITABLE: medium-temperature unit at low-temperature suction"
+    assert data["capacity_at_balance_w"] is None and data["margin_percent"] is None
     assert data["model"] == "rated point"
-    assert data["max_ambient_temperature_status"] == "found"
-    assert data["max_ambient_temperature_c"] == pytest.approx(33.670, abs=0.06)  # search resolution 0.05 K
-    assert any("application class" in w for w in data["warnings"])
+    assert data["max_ambient_temperature_status"] == "fails_below_range"
+    model = open_project(DEMO).model
+    room = model.rooms[0]
+    compressor = build_compressor(room.existing_unit, model.refrigeration_for(room))
+    point = compressor.performance(
+        data["balance_evaporating_temperature_c"], data["balance_condensing_temperature_c"], check_envelope=False
+    )
+    assert point.capacity == pytest.approx(PINS["capacity_at_balance_w"], rel=1e-4)
+    assert point.power == pytest.approx(PINS["power_at_balance_w"], rel=1e-4)
+    assert point.heat_rejection == pytest.approx(PINS["heat_rejection_at_balance_w"], rel=1e-4)
+    assert point.discharge_temperature == pytest.approx(PINS["discharge_temperature_c"], rel=1e-4)
 
 
 def test_demo_chart_is_pinned(check) -> None:  # type: ignore[no-untyped-def]
     chart = check.chart()
     assert chart["ambient_temperature_c"] == [20.0 + 5.0 * i for i in range(6)]
-    assert chart["unit_capacity_w"][0] == pytest.approx(2939.58, rel=1e-4)
-    assert chart["unit_capacity_w"][-1] == pytest.approx(2003.03, rel=1e-4)
+    assert chart["unit_capacity_w"] == [None] * 6  # not suitable: no capacity credited at any ambient
     assert chart["room_load_w"][0] == pytest.approx(2193.74, rel=1e-4)
     assert chart["room_load_w"][-1] == pytest.approx(2746.14, rel=1e-4)
-    # the capacity line crosses the load line between 30 and 35 °C (max ambient 33.7 °C)
-    crossing = [a for a, c, l in zip(chart["ambient_temperature_c"], chart["unit_capacity_w"], chart["room_load_w"]) if c < l]
-    assert crossing[0] == 35.0
 
 
 def test_size_carries_the_check_into_json_and_sheet() -> None:
@@ -75,7 +85,7 @@ def test_size_carries_the_check_into_json_and_sheet() -> None:
     model = open_project(DEMO).model
     result = size_project(model, str(DEMO), DEMO.read_bytes())
     unit = result.to_json()["rooms"][0]["existing_unit"]
-    assert unit["capacity_at_balance_w"] == pytest.approx(PINS["capacity_at_balance_w"], rel=1e-4)
+    assert unit["holds"] is False and unit["verdict"].startswith("NOT SUITABLE")
     text = "".join(page.extract_text() for page in pypdf.PdfReader(io.BytesIO(render_sheet(result, model))).pages)
     assert "Existing unit check" in text
     assert "capacity at balance and room load vs condenser air" in text

@@ -44,7 +44,8 @@ def test_page_one_carries_the_verdict_and_the_way_forward(sheet) -> None:
     assert f"{unit['max_daily_intake_kg']:,.0f} kg/day" in first
     assert f"{unit['replacement_duty']['capacity_w'] / 1000:.2f} kW" in first
     # the medium-temperature unit at low-temperature suction is said before the margin
-    assert first.index("This is a medium-temperature unit") < first.index(unit["verdict"])
+    block = first.index("Existing unit: verdict and the way forward")  # the blocking box above names it too
+    assert block < first.index("This is a medium-temperature unit") < first.index(unit["verdict"], block)
 
 
 def test_the_existing_unit_pulldown_is_on_the_sheet(sheet) -> None:

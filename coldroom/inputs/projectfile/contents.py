@@ -38,6 +38,14 @@ class Packaging(Strict):
     mass: Mass = 0.0
     material: Literal["corrugated_board", "wood", "plastic", "other"] = "corrugated_board"
     specific_heat: Optional[Q("specific_heat", gt=0.0, le=5e3)] = None  # type: ignore[valid-type]
+    pack: Optional[Literal["loose", "crate", "carton", "pallet"]] = Field(
+        default=None,
+        description="How the product is packed, for its half-cooling time in the pull-down (default from the "
+        "material: corrugated_board carton, wood or plastic crate).",
+    )
+    pack_mass: Optional[Q("mass", gt=0.0, le=2000.0)] = Field(  # type: ignore[valid-type]
+        default=None, description="Product mass of one pack; the half-cooling time scales with its cube root."
+    )
 
 
 class Product(Strict):
@@ -52,6 +60,11 @@ class Product(Strict):
     pulldown_time: Q("time", si="h", ip="h", ge=3600.0, le=7 * SECONDS_PER_DAY_S) = SECONDS_PER_DAY_S  # type: ignore[valid-type]
     packaging: Optional[Packaging] = None
     stored_mass: Mass = 0.0
+    half_cooling_time: Optional[Q("time", si="h", ip="h", ge=600.0, le=7 * 86400.0)] = Field(  # type: ignore[valid-type]
+        default=None,
+        description="Time for the product's excess over the room air to halve (pull-down); default from its "
+        "pack type and size.",
+    )
 
     @model_validator(mode="after")
     def _check(self) -> "Product":

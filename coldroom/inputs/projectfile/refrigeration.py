@@ -133,7 +133,16 @@ class CondensingSettings(Strict):
 
     refrigerant: str = "R448A"
     condenser_td: Optional[Q("temperature_difference", gt=0.0, le=30.0)] = None  # type: ignore[valid-type]
-    condenser_air_temperature: Optional[OutdoorTemperature] = None
+    condenser_air_temperature: Optional[OutdoorTemperature] = Field(
+        default=None,
+        description="Air on the condenser on the design day (default: the outdoor design temperature). Over a "
+        "year a condenser outdoors keeps this offset above the outdoor air; indoors it stays fixed.",
+    )
+    condenser_location: Literal["outdoors", "indoors"] = Field(
+        default="outdoors",
+        description="outdoors: the condenser air follows the weather over a year (compare); indoors: it stays at "
+        "condenser_air_temperature all year.",
+    )
     suction_line_superheat: Q("temperature_difference", ge=0.0, le=40.0) = _CYCLE.suction_line_superheat  # type: ignore[valid-type]
     suction_line_drop: Q("temperature_difference", ge=0.0, le=10.0) = Field(  # type: ignore[valid-type]
         default=0.0,

@@ -23,7 +23,7 @@ from coldroom.output.pdf.cautions_section import people_cautions, refrigerant_ca
 from coldroom.output.pdf.layout import CELL_SMALL, H1, SMALL, TINY, document, grid, heading, note
 from coldroom.output.pdf.page_frame import canvas_maker
 from coldroom.output.pdf.text import clean, temperature
-from coldroom.output.terminal import blocking_notes, charge_notes, compare_rows
+from coldroom.output.terminal import blocking_notes, charge_notes, compare_rows, condenser_air_note
 
 
 def _basis_rows(comparison: Any, system: str = "SI") -> list[list[str]]:
@@ -97,8 +97,8 @@ def render_compare(comparison: Any, system: str, meta: dict) -> bytes:
     story.append(note(
         "Design capacity: sum of the rooms' design capacities (as on the sizing sheet). Compressor input: electrical, "
         "at the design condition. kWh/year: compressor, fans, defrost and other (heaters, lights) over the ambient "
-        "bins, condensing floating down to the minimum condensing temperature, the design compressor's capacity "
-        "at each bin. 'vs base' = option minus base.", TINY))
+        "bins, the design compressor's capacity at each bin. " + condenser_air_note(comparison)
+        + " 'vs base' = option minus base.", TINY))
     story.append(CondPageBreak(230))
     base = comparison.options[0]
     cur = base.currency

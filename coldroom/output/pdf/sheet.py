@@ -71,7 +71,7 @@ from coldroom.output.pdf.pipework_section import system_pipework_section
 from coldroom.output.pdf.selection_section import selected_equipment_section, selection_summary_section
 from coldroom.output.pdf.text import capacity, clean, esc, q, temperature
 from coldroom.output.pdf.timecharts import design_day_section, pulldown_section
-from coldroom.output.pdf.verdict_section import verdict_section
+from coldroom.output.pdf.verdict_section import blocking_section, verdict_section
 from coldroom.units import format_terms
 
 
@@ -521,6 +521,7 @@ def room_warnings_section(ctx: SheetContext, index: int) -> list:
 #: Project-wide sections, printed first.
 PROJECT_SECTIONS: list[Callable[[SheetContext], list]] = [
     title_section,
+    blocking_section,
     systems_overview_section,
     selection_summary_section,
     summary_section,
@@ -555,7 +556,7 @@ def build_story(ctx: SheetContext) -> list:
         story += section(ctx)
     for index in range(len(ctx.result.rooms)):
         if index > 0 or len(story) > 0:
-            story.append(PageBreak() if index > 0 else CondPageBreak(200))
+            story.append(PageBreak())  # each room section starts on a new page
         for section in ROOM_SECTIONS:
             story += section(ctx, index)
     return story

@@ -248,7 +248,8 @@ def pulldown_section(ctx: object, index: int) -> list:
         ("Pull-down after a delivery (existing unit)", getattr(limits, "pulldown", None)),
     ):
         if p is not None:
-            out += _pulldown_block(ctx, title, p)
+            unit = getattr(p, "unit", "")
+            out += _pulldown_block(ctx, f"Pull-down after a delivery ({unit} unit)" if unit else title, p)
     return out
 
 
@@ -281,6 +282,11 @@ def _pulldown_block(ctx: object, title: str, p: object) -> list:
         )
         asked = "" if t.asked_time is None else f" (asked: {t.asked_time / 3600:g} h{'' if t.met else ' - NOT MET'})"
         lines.append(f"{t.name} {reached}{asked}.")
-    lines.append(f"Lowest room air during the pull-down: {temperature(p.lowest_air_temperature, s)}.")  # type: ignore[attr-defined]
+    above = p.hours_above_setpoint_plus_2k  # type: ignore[attr-defined]
+    lines.append(
+        f"Highest room air after the delivery: {temperature(p.highest_air_temperature, s)}"  # type: ignore[attr-defined]
+        + ("" if above is None else f"; {above:.1f} h more than 2 K above the set point")
+        + f"; lowest {temperature(p.lowest_air_temperature, s)}."  # type: ignore[attr-defined]
+    )
     out = [heading(title), chart, Spacer(1, 3), note(" ".join(lines)), note(f"Basis: {p.basis}.")]  # type: ignore[attr-defined]
     return [KeepTogether(out)]

@@ -69,3 +69,17 @@ def verdict_section(ctx: Any) -> list:
         block += [line, Spacer(1, 3), boxes, Spacer(1, 3), note("The way forward: " + " ".join(remedies))]
         out += [KeepTogether(block), Spacer(1, 6)]
     return out
+
+
+def blocking_section(ctx: Any) -> list:
+    """Page 1: every blocking verdict in one box, before anything else is read."""
+    from coldroom.output.terminal import blocking_verdicts
+
+    found = blocking_verdicts(ctx.result)
+    if not found:
+        return []
+    from reportlab.platypus import Spacer
+
+    from coldroom.output.pdf.layout import H3, heading, warning_box
+
+    return [heading("Blocking verdicts", H3), *warning_box(ctx, found), Spacer(1, 4)]
