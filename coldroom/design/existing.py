@@ -232,7 +232,7 @@ def check_room(
         )
     ambient = temps.condenser_air_temperature
     load_at = room_load_at(model, room, loads, ambient)
-    design_suction = temps.evaporating_temperature - r.suction_line_drop  # SST at the compressor
+    design_suction = temps.evaporating_temperature - drop  # SST at the compressor
 
     result = check_unit(
         compressor,
