@@ -265,7 +265,8 @@ def condenser_air_note(comparison: Any) -> str:
             "condensing temperature"
         )
         parts.append(f"condenser air {basis} ({', '.join(names)}): {how}")
-    return "; ".join(parts).capitalize() + "." if parts else ""
+    text = "; ".join(parts)
+    return text[:1].upper() + text[1:] + "." if text else ""
 
 
 def blocking_notes(comparison: Any) -> list[str]:
