@@ -474,6 +474,7 @@ class SystemResult:
     warnings: tuple[str, ...] = ()
     pipework: Any = None
     equipment_basis: str = "design"
+    condenser_air_basis: str = "follows outdoor air"
 
     @property
     def rooms(self) -> tuple[str, ...]:
@@ -495,6 +496,7 @@ class SystemResult:
             "suction_temperature_c": self.suction_temperature,
             "condensing_temperature_c": self.condensing_temperature,
             "condenser_air_temperature_c": self.condenser_air_temperature,
+            "condenser_air_basis": self.condenser_air_basis,
             "suction_line_drop_k": self.suction_line_drop,
             "diversity": self.diversity,
             "design_capacity_w": self.design_capacity,

@@ -47,7 +47,7 @@ from dataclasses import dataclass
 from typing import TYPE_CHECKING, Any, Optional
 
 from coldroom.constants import SECONDS_PER_DAY_S
-from coldroom.rules import DesignTemperatures, room_design_temperatures
+from coldroom.rules import DesignTemperatures, condenser_air_basis, room_design_temperatures
 from coldroom.errors import CalculationError
 
 if TYPE_CHECKING:  # pragma: no cover
@@ -533,6 +533,7 @@ def size_system(
         electrical=electrical,
         warnings=warnings,
         pipework=works,
+        condenser_air_basis=condenser_air_basis(settings[0].condenser_location),
     )
     pulldowns = [
         _design_unit_pulldown(model, room, x, t, s, info.name, condensing, gas_cooler)

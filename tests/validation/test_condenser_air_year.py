@@ -68,3 +68,12 @@ def test_readme_systems_example_is_not_365_design_days(tmp_path: Path):
     system = size_project(opened.model, str(COMBO), opened.content).to_json()["systems"][0]
     per_day = system["electricity_kwh_per_day"]
     assert year.annual_energy < 0.95 * 365 * per_day
+
+
+def test_size_json_states_the_condenser_air_basis():
+    from coldroom.design.sizing import size_project
+    from coldroom.inputs.opening import open_project
+
+    opened = open_project(str(COMBO))
+    system = size_project(opened.model, str(COMBO), opened.content).to_json()["systems"][0]
+    assert system["condenser_air_basis"] == "follows outdoor air"
