@@ -156,8 +156,10 @@ def test_check_is_the_sized_job() -> None:
             continue
         sized = room["existing_unit"]
         assert check.holds == sized["holds"]
-        assert check.capacity_at_balance == pytest.approx(sized["capacity_at_balance_w"], rel=1e-6)
-        assert check.power_at_balance == pytest.approx(sized["power_at_balance_w"], rel=1e-6)
+        assert check.verdict == sized["verdict"]
+        # the demo's MT unit on a freezer is not suitable: no capacity credited by either command
+        for mine, key in ((check.capacity_at_balance, "capacity_at_balance_w"), (check.power_at_balance, "power_at_balance_w")):
+            assert (mine is None and sized[key] is None) or mine == pytest.approx(sized[key], rel=1e-6)
 
 
 def test_select_writes_the_job_as_chosen(sized_and_selected) -> None:
