@@ -34,7 +34,6 @@ from reportlab.lib.pagesizes import A4, LETTER
 from reportlab.lib.styles import ParagraphStyle
 from reportlab.lib.units import mm
 from reportlab.platypus import (
-    CondPageBreak,
     KeepTogether,
     PageBreak,
     Spacer,
