@@ -44,7 +44,6 @@ from typing import TYPE_CHECKING, Optional
 
 
 if TYPE_CHECKING:  # pragma: no cover
-    from coldroom.results import Note
     from coldroom.inputs.projectfile import ProjectModel, Room
 
 # --------------------------------------------------------------------------- design temperatures
@@ -412,24 +411,6 @@ def discharge_temperature_limit(refrigerant: str) -> float:
 def discharge_temperature_over(discharge_temperature: float, refrigerant: str) -> bool:
     """Whether *discharge_temperature* [°C] is over the family's limit (a blocking verdict)."""
     return discharge_temperature > discharge_temperature_limit(refrigerant)
-
-
-def discharge_temperature_warning(discharge_temperature: float, refrigerant: str) -> Optional["Note"]:
-    """The one wording of a discharge temperature [°C] over its family's limit, else ``None``.
-
-    size (the design cycle), select and check (a unit's balance point) all call this.
-    """
-    if not discharge_temperature_over(discharge_temperature, refrigerant):
-        return None
-    from coldroom.results import Note
-
-    limit, source = DISCHARGE_LIMITS[refrigerant_family(refrigerant)]
-    return Note.fill(
-        f"discharge temperature {{t}} is over the {{lim}} limit for {refrigerant} ({source}): oil breakdown and "
-        "valve damage; the compressor must not run like this - reduce superheat or lift, or use injection or "
-        "two stages",
-        t=(discharge_temperature, "temperature"), lim=(limit, "temperature"),
-    )
 
 
 # --------------------------------------------------------------------------- condenser air over a year

@@ -13,8 +13,8 @@ from __future__ import annotations
 from dataclasses import dataclass
 from typing import Any, Callable, Optional, Sequence
 
+from coldroom.physics.limits import discharge_temperature_warning
 from coldroom.rules import (
-    discharge_temperature_warning,
     pressure_ratio_advisory,
     required_capacity,
     with_safety_factor,

@@ -51,9 +51,9 @@ from dataclasses import dataclass, replace
 
 from coldroom.rules import (
     CYCLE_DEFAULTS,
-    discharge_temperature_warning,
     pressure_ratio_advisory,
 )
+from coldroom.physics.limits import discharge_temperature_warning
 from coldroom.constants import STANDARD_ATMOSPHERE_PA, ZERO_CELSIUS_K
 from coldroom.errors import CalculationError
 from coldroom.results import Note, Term
