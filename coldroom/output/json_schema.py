@@ -160,7 +160,10 @@ class PulldownProduct(TypedDict):
 
 class Pulldown(TypedDict):
     time_to_final_temperature_h: Optional[float]
+    unit: Optional[Literal["design", "selected", "existing"]]
     lowest_room_air_temperature_c: float
+    highest_room_air_temperature_c: float
+    hours_above_setpoint_plus_2k: Optional[float]  # spelled by issue 24 (a contract key)
     time_h: list[float]
     product_temperature_c: list[float]
     room_air_temperature_c: list[float]
@@ -191,6 +194,8 @@ class ExistingUnit(TypedDict):
     verdict: str
     holds: bool
     within_envelope: bool
+    suitable: bool
+    not_suitable_reason: Optional[str]
     room_temperature_c: float
     ambient_temperature_c: float
     balance_evaporating_temperature_c: Optional[float]
@@ -331,6 +336,7 @@ class System(TypedDict):
     suction_temperature_c: float
     condensing_temperature_c: Optional[float]
     condenser_air_temperature_c: float
+    condenser_air_basis: Literal["follows outdoor air", "fixed (indoors)"]
     suction_line_drop_k: float
     diversity: float
     design_capacity_w: float
@@ -466,6 +472,7 @@ class OptionSystem(TypedDict):
     gwp: Optional[float]
     unit_short_time_h: float
     heat_loss_time_h: float
+    condenser_air_basis: Literal["follows outdoor air", "fixed (indoors)"]
 
 
 class DifferenceToBase(TypedDict):
@@ -479,6 +486,8 @@ class DifferenceToBase(TypedDict):
 class Option(TypedDict):
     name: str
     note: str
+    feasible: bool
+    blocking: list[str]
     design_capacity_w: float
     compressor_input_power_w: float
     annual_energy_kwh: float

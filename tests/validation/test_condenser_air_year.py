@@ -66,7 +66,7 @@ def test_readme_systems_example_is_not_365_design_days(tmp_path: Path):
     year = _year(tmp_path, WIDE_BINS)
     opened = open_project(str(COMBO))
     system = size_project(opened.model, str(COMBO), opened.content).to_json()["systems"][0]
-    per_day = system["electricity_kwh_per_day"]
+    per_day = system["daily_electricity_kwh"]
     assert year.annual_energy < 0.95 * 365 * per_day
 
 
