@@ -60,7 +60,7 @@ class Product(Strict):
     pulldown_time: Q("time", si="h", ip="h", ge=3600.0, le=7 * SECONDS_PER_DAY_S) = SECONDS_PER_DAY_S  # type: ignore[valid-type]
     packaging: Optional[Packaging] = None
     stored_mass: Mass = 0.0
-    half_cooling_time: Optional[Q("time", si="h", ip="h", ge=600.0, le=7 * 86400.0)] = Field(  # type: ignore[valid-type]
+    half_cooling_time: Optional[Q("time", si="h", ip="h", ge=600.0, le=7 * SECONDS_PER_DAY_S)] = Field(  # type: ignore[valid-type]
         default=None,
         description="Time for the product's excess over the room air to halve (pull-down); default from its "
         "pack type and size.",
