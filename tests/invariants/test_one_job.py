@@ -217,13 +217,20 @@ def test_one_daily_energy_per_room(path: Path, daily_range: str, tmp_path: Path)
             loads.design_day.outdoor_temperature, loads.design_day.outdoor_temperature[:1] * 24)))
 
 
-def test_check_writes_the_existing_unit_as_it_stands() -> None:
+def test_check_writes_the_existing_unit_as_it_stands(tmp_path: Path) -> None:
     """check's systems[]: a one-room system with an existing unit at equipment_basis "existing", its
-    compressor input the unit's at its balance point (the same unit check rates), the rest as sized."""
+    compressor input the unit's at its balance point (the same unit check rates), the rest as sized.
+    The demo's unit is declared low-temperature here: as written it is NOT SUITABLE for the freezer
+    (issue 24) and no balance-point input is credited."""
+    import yaml
+
     from coldroom.design.job import existing_result
     from coldroom.design.sizing import existing_unit_checks, size_project
 
-    path = DEMOS / "cooler_to_freezer.yaml"
+    data = yaml.safe_load((DEMOS / "cooler_to_freezer.yaml").read_text(encoding="utf-8"))
+    data["rooms"][0]["existing_unit"]["rated_point"]["application"] = "LT"
+    path = tmp_path / "cooler_to_freezer.yaml"
+    path.write_text(yaml.safe_dump(data, allow_unicode=True, sort_keys=False), encoding="utf-8")
     model = _open(path)
     result = size_project(model, str(path), path.read_bytes())
     sized = result.to_json()
