@@ -81,6 +81,13 @@
       if (typeof node.verdict === 'string') {
         found.push({ where: here, verdict: node.verdict, detail: node.working || node.message || node.rule || '' });
       }
+      if (node.suitable === false) {
+        found.push({ where: here, verdict: 'not suitable', detail: node.not_suitable_reason || '' });
+      }
+      if (node.meets_asked_time === false && node.asked_time_h !== undefined) {
+        found.push({ where: here, verdict: 'pull-down too slow',
+          detail: `${fixed(node.time_to_final_temperature_h, 1)} h against ${fixed(node.asked_time_h, 1)} h asked` });
+      }
       for (const [k, v] of Object.entries(node)) if (k !== 'states') walk(v, here);
     })(doc, '');
     return found;
