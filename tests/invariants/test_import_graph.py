@@ -155,7 +155,7 @@ STAGES: tuple[tuple[str, ...], ...] = (
     ("inputs",),
     ("design",),
     ("output",),
-    ("cli", "__main__", "serve"),
+    ("cli", "cli_runtime", "__main__", "serve"),
 )
 
 
