@@ -20,19 +20,6 @@ from coldroom.inputs.safeyaml.scalars import _MAP, _SEQ, _Reject, _scalar, _show
 if _CLoader is not None:
     from coldroom.inputs.safeyaml.composer import _FastComposer
 
-__all__ = [
-    "KeyPath",
-    "LoadedYaml",
-    "MAX_ALIASES",
-    "MAX_BYTES",
-    "MAX_DEPTH",
-    "MAX_NODES",
-    "Mark",
-    "dotted",
-    "load_yaml",
-    "read_source",
-]
-
 KeyPath = tuple[Union[str, int], ...]
 """A path into the document: mapping keys (str) and sequence indices (int)."""
 
